@@ -1,0 +1,74 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"strings"
+
+	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/place"
+	"github.com/gridwood/gridwood/planarize"
+)
+
+// writeExplain writes, for every graph with set-aside edges, an undirected
+// DOT graph holding one subgraph per set-aside edge: a Kuratowski subgraph
+// made of that edge and kept edges, with its type and branch vertices as
+// attributes, and its paths as edge chains. Certificates whose search ran
+// out of its work bound say so instead.
+func writeExplain(w *bytes.Buffer, f *dotio.File, results []*place.Result, total *planarize.Budget) {
+	for gi, g := range f.Graphs {
+		res := results[gi]
+		if len(res.Removed) == 0 {
+			continue
+		}
+		id := g.ID
+		if id == "" {
+			id = dotQuote(fmt.Sprintf("anonymous %d", gi+1))
+		}
+		fmt.Fprintf(w, "graph %s {\n", id)
+		cache := map[[2]int32]*planarize.Kuratowski{}
+		for k, i := range res.Removed {
+			e := g.Edges[i]
+			line, col := g.EdgePos(i)
+			fmt.Fprintf(w, "\tsubgraph %s {\n", dotQuote(fmt.Sprintf("set-aside %d", k+1)))
+			edgeText := g.Nodes[e.From].Name + " -- " + g.Nodes[e.To].Name
+			fmt.Fprintf(w, "\t\tgraph [removed_edge=%s, at=%s", dotQuote(edgeText), dotQuote(fmt.Sprintf("%s:%d:%d", f.Name, line, col)))
+			key := [2]int32{min(e.From, e.To), max(e.From, e.To)}
+			ks, seen := cache[key]
+			if !seen {
+				budget := &planarize.Budget{Left: min(explainBudgetEach, total.Left)}
+				before := budget.Left
+				if budget.Left > 0 {
+					ks, _ = res.Explain(i, budget)
+				}
+				total.Left -= before - max(budget.Left, 0)
+				cache[key] = ks
+			}
+			if ks == nil {
+				fmt.Fprintf(w, ", obstruction=\"not computed\", reason=\"work bound reached\"]\n\t}\n")
+				continue
+			}
+			names := make([]string, len(ks.Branch))
+			for j, v := range ks.Branch {
+				names[j] = g.Nodes[v].Name
+			}
+			fmt.Fprintf(w, ", obstruction=%s, branch=%s]\n", dotQuote(ks.Kind.String()), dotQuote(strings.Join(names, ", ")))
+			for _, path := range ks.Paths {
+				ids := make([]string, len(path))
+				for j, v := range path {
+					ids[j] = g.Nodes[v].ID
+				}
+				fmt.Fprintf(w, "\t\t%s\n", strings.Join(ids, " -- "))
+			}
+			fmt.Fprintf(w, "\t}\n")
+		}
+		fmt.Fprintf(w, "}\n")
+	}
+}
+
+// dotQuote returns s as a double-quoted DOT string.
+func dotQuote(s string) string {
+	s = strings.ReplaceAll(s, `\`, `\\`)
+	s = strings.ReplaceAll(s, `"`, `\"`)
+	return `"` + s + `"`
+}

@@ -1,0 +1,383 @@
+package main
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"os"
+	"path/filepath"
+	"runtime/debug"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/pflag"
+
+	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/place"
+	"github.com/gridwood/gridwood/planarize"
+)
+
+// Exit statuses, documented in --help and README.md.
+const (
+	exitOK        = 0
+	exitProblems  = 1 // a check found problems
+	exitBadInput  = 2 // bad input, usage, or an I/O failure
+	exitNonPlanar = 3 // a graph is not planar under --planar-only
+)
+
+// Work bounds for --explain, in edge visits of planarity tests, so that the
+// output never depends on timing.
+const (
+	explainBudgetEach  = 20_000_000
+	explainBudgetTotal = 200_000_000
+)
+
+// config holds the parsed command line.
+type config struct {
+	output       string
+	unit         float64
+	quiet        bool
+	removedFile  string
+	dropRemoved  bool
+	markRemoved  []dotio.Attr
+	planarOnly   bool
+	explainFile  string
+	effort       int
+	maxExpansion int
+	inputs       []string
+}
+
+// usageError is a command-line problem: it prints with a hint to --help.
+type usageError struct{ msg string }
+
+func (e *usageError) Error() string { return e.msg }
+
+// exitError carries an exit status with its message.
+type exitError struct {
+	status int
+	msg    string
+}
+
+func (e *exitError) Error() string { return e.msg }
+
+func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
+	cfg, err := parseFlags(args, stderr)
+	if err != nil {
+		if errors.Is(err, pflag.ErrHelp) {
+			return exitOK
+		}
+		if err == errVersionShown {
+			return exitOK
+		}
+		fmt.Fprintf(stderr, "gridwood: %v\nRun 'gridwood --help' for usage.\n", err)
+		return exitBadInput
+	}
+	if err := process(cfg, stdin, stdout, stderr); err != nil {
+		var ee *exitError
+		if errors.As(err, &ee) {
+			fmt.Fprintf(stderr, "gridwood: %s\n", ee.msg)
+			return ee.status
+		}
+		fmt.Fprintf(stderr, "gridwood: %v\n", err)
+		return exitBadInput
+	}
+	return exitOK
+}
+
+var errVersionShown = errors.New("version shown")
+
+func parseFlags(args []string, stderr io.Writer) (*config, error) {
+	cfg := &config{}
+	fs := pflag.NewFlagSet("gridwood", pflag.ContinueOnError)
+	fs.SetOutput(io.Discard)
+	fs.SortFlags = false
+	fs.StringVarP(&cfg.output, "output", "o", "", "write the laid-out DOT to `FILE` instead of standard output\n(written to a temporary file first, then renamed: a failed run leaves FILE as it was)\nexample: -o site.laid.dot")
+	fs.Float64VarP(&cfg.unit, "unit", "u", 72, "points per grid step; positions are integer multiples of it plus a margin\nexample: --unit 36")
+	fs.BoolVarP(&cfg.quiet, "quiet", "q", false, "print nothing on standard error except errors")
+	fs.StringVar(&cfg.removedFile, "removed", "", "write the edges set aside to make a graph planar to `FILE`, as DOT:\none graph per input graph, one edge per line, with its attributes\nexample: --removed removed.dot")
+	fs.BoolVar(&cfg.dropRemoved, "drop-removed", false, "leave the set-aside edges out of the main output")
+	mark := fs.String("mark-removed", "", "add these attributes to the set-aside edges in the main output\nexample: --mark-removed 'style=dashed,color=gray'")
+	fs.BoolVar(&cfg.planarOnly, "planar-only", false, "treat a non-planar graph as an error (exit status 3, nothing written)")
+	fs.StringVar(&cfg.explainFile, "explain", "", "write to `FILE`, for each set-aside edge, a Kuratowski subgraph (a subdivision\nof K5 or K3,3 made of it and kept edges) proving it could not stay, as DOT\nexample: --explain why.dot")
+	fs.IntVar(&cfg.effort, "effort", 0, "extra search for fewer set-aside edges: N seeded restarts and a larger exact\nsearch on small blocks; the result for a given N is always the same\nexample: --effort 8")
+	fs.IntVar(&cfg.maxExpansion, "max-expansion", dotio.DefaultMaxExpansion, "refuse input whose edge statements with subgraph operands ({a b} -- {c d})\nexpand to more than `N` edges; negative means no limit")
+	version := fs.Bool("version", false, "print the version and exit")
+	help := fs.BoolP("help", "h", false, "show this help and exit")
+	fs.Usage = func() {}
+	if err := fs.Parse(args); err != nil {
+		return nil, &usageError{err.Error()}
+	}
+	if *help {
+		printHelp(stderr, fs)
+		return nil, pflag.ErrHelp
+	}
+	if *version {
+		fmt.Fprintf(stderr, "gridwood %s\n", versionString())
+		return nil, errVersionShown
+	}
+	if !(cfg.unit > 0) || cfg.unit > 1e6 || math.IsInf(cfg.unit, 0) {
+		return nil, &usageError{fmt.Sprintf("--unit %v: want a number of points between 0 and 1000000", cfg.unit)}
+	}
+	if cfg.effort < 0 || cfg.effort > 1000 {
+		return nil, &usageError{fmt.Sprintf("--effort %d: want 0 to 1000", cfg.effort)}
+	}
+	if *mark != "" {
+		attrs, err := dotio.ParseAttrList(*mark)
+		if err != nil {
+			return nil, &usageError{"--mark-removed: " + err.Error()}
+		}
+		cfg.markRemoved = attrs
+	}
+	cfg.inputs = fs.Args()
+	if len(cfg.inputs) == 0 {
+		cfg.inputs = []string{"-"}
+	}
+	return cfg, nil
+}
+
+func printHelp(w io.Writer, fs *pflag.FlagSet) {
+	fmt.Fprint(w, `gridwood: give graphs in DOT integer positions for crossing-free straight-line drawings
+
+Usage: gridwood [flags] [FILE ...]
+
+Reads each FILE (standard input when there is none, or for "-") and writes
+the same DOT with pos="X,Y" on every node and bb on every graph. Planar
+graphs are drawn on Schnyder's (n-2) x (n-2) grid per connected component.
+A non-planar graph first loses an inclusion-minimal set of edges (adding any
+one back would force a crossing); they are reported on standard error and
+kept in the output unless --drop-removed is given.
+
+Flags:
+`)
+	fmt.Fprint(w, fs.FlagUsagesWrapped(0))
+	fmt.Fprint(w, `
+Exit status:
+  0  done
+  1  a check found problems
+  2  bad input, bad usage, or a file could not be read or written
+  3  a graph is not planar and --planar-only was given
+
+Examples:
+  gridwood examples/campus-fibre.dot > laid.dot
+  gridwood --removed removed.dot --mark-removed style=dashed net.dot -o net.laid.dot
+`)
+}
+
+func versionString() string {
+	bi, ok := debug.ReadBuildInfo()
+	if !ok {
+		return "(unknown)"
+	}
+	v := bi.Main.Version
+	if v == "" {
+		v = "(devel)"
+	}
+	for _, s := range bi.Settings {
+		if s.Key == "vcs.revision" && len(s.Value) >= 12 {
+			v += " " + s.Value[:12]
+		}
+	}
+	return v
+}
+
+// process runs the whole filter; nothing is written until every input was
+// read and laid out, so a failure leaves no partial output.
+func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
+	var out, removedOut, explainOut bytes.Buffer
+	budget := &planarize.Budget{Left: explainBudgetTotal}
+	stdinUsed := false
+	for _, in := range cfg.inputs {
+		src, name, err := readInput(in, stdin, &stdinUsed)
+		if err != nil {
+			return err
+		}
+		f, err := dotio.Read(src, dotio.ReadOptions{Name: name, MaxExpansion: cfg.maxExpansion})
+		if err != nil {
+			return err
+		}
+		layouts := make([]dotio.Layout, len(f.Graphs))
+		removed := make([][]int, len(f.Graphs))
+		results := make([]*place.Result, len(f.Graphs))
+		for gi, g := range f.Graphs {
+			res, lay, err := layoutGraph(cfg, g)
+			if err != nil {
+				return err
+			}
+			results[gi], layouts[gi], removed[gi] = res, lay, res.Removed
+			if len(res.Removed) == 0 {
+				continue
+			}
+			where := fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi))
+			if cfg.planarOnly {
+				return &exitError{exitNonPlanar, fmt.Sprintf("%s is not planar: %d of %d edges would have to be set aside", where, len(res.Removed), len(g.Edges))}
+			}
+			if !cfg.quiet {
+				see := "see --removed"
+				if cfg.removedFile != "" {
+					see = "listed in " + cfg.removedFile
+				}
+				fmt.Fprintf(stderr, "gridwood: %s: %d of %d edges set aside to make it planar (%s)\n", where, len(res.Removed), len(g.Edges), see)
+			}
+		}
+		if !cfg.quiet {
+			warnPinned(stderr, name, f)
+		}
+		opt := dotio.WriteOptions{DropRemoved: cfg.dropRemoved, MarkRemoved: cfg.markRemoved}
+		if err := dotio.Write(&out, f, layouts, opt); err != nil {
+			return err
+		}
+		if cfg.removedFile != "" {
+			if err := dotio.WriteRemoved(&removedOut, f, removed); err != nil {
+				return err
+			}
+		}
+		if cfg.explainFile != "" {
+			writeExplain(&explainOut, f, results, budget)
+		}
+	}
+	// All inputs succeeded: write the side files first, the main output last.
+	if cfg.removedFile != "" {
+		if err := writeFileAtomic(cfg.removedFile, removedOut.Bytes()); err != nil {
+			return err
+		}
+	}
+	if cfg.explainFile != "" {
+		if err := writeFileAtomic(cfg.explainFile, explainOut.Bytes()); err != nil {
+			return err
+		}
+	}
+	if cfg.output != "" {
+		return writeFileAtomic(cfg.output, out.Bytes())
+	}
+	_, err := stdout.Write(out.Bytes())
+	return err
+}
+
+func readInput(in string, stdin io.Reader, stdinUsed *bool) ([]byte, string, error) {
+	if in == "-" {
+		if *stdinUsed {
+			return nil, "", &exitError{exitBadInput, "standard input (-) given more than once"}
+		}
+		*stdinUsed = true
+		src, err := io.ReadAll(stdin)
+		if err != nil {
+			return nil, "", &exitError{exitBadInput, "<stdin>: " + err.Error()}
+		}
+		return src, "<stdin>", nil
+	}
+	src, err := os.ReadFile(in)
+	if err != nil {
+		return nil, "", &exitError{exitBadInput, err.Error()}
+	}
+	return src, in, nil
+}
+
+// layoutGraph draws one graph and converts grid points to DOT positions.
+func layoutGraph(cfg *config, g *dotio.Graph) (*place.Result, dotio.Layout, error) {
+	edges := make([][2]int32, len(g.Edges))
+	for i, e := range g.Edges {
+		edges[i] = [2]int32{e.From, e.To}
+	}
+	res, err := place.Draw(len(g.Nodes), edges, place.DrawOptions{
+		Subgraph: planarize.SubgraphOptions{Effort: cfg.effort},
+	})
+	if err != nil {
+		return nil, dotio.Layout{}, err
+	}
+	mx, my := margins(g)
+	lay := dotio.Layout{X: make([]int64, len(g.Nodes)), Y: make([]int64, len(g.Nodes))}
+	for v := range g.Nodes {
+		lay.X[v] = mx + int64(math.Round(float64(res.X[v])*cfg.unit))
+		lay.Y[v] = my + int64(math.Round(float64(res.Y[v])*cfg.unit))
+	}
+	lay.BB = [4]int64{0, 0, 2*mx + int64(math.Round(float64(res.Width)*cfg.unit)), 2*my + int64(math.Round(float64(res.Height)*cfg.unit))}
+	if len(res.Removed) > 0 {
+		lay.Removed = make([]bool, len(g.Edges))
+		for _, i := range res.Removed {
+			lay.Removed[i] = true
+		}
+	}
+	return res, lay, nil
+}
+
+// DOT's default node size in inches (from memory of its documentation, see
+// ../shared/REFERENCES.md).
+const defaultWidth, defaultHeight = 0.75, 0.5
+
+// margins returns half the largest node width and height in points, so
+// that the bounding box holds every node's box, not only its centre.
+func margins(g *dotio.Graph) (int64, int64) {
+	w, h := defaultWidth, defaultHeight
+	for _, n := range g.Nodes {
+		if x, err := strconv.ParseFloat(n.Attrs.Width, 64); err == nil && x > w && x < 1e4 {
+			w = x
+		}
+		if y, err := strconv.ParseFloat(n.Attrs.Height, 64); err == nil && y > h && y < 1e4 {
+			h = y
+		}
+	}
+	return int64(math.Ceil(w * 72 / 2)), int64(math.Ceil(h * 72 / 2))
+}
+
+func graphName(g *dotio.Graph, index int) string {
+	kind := "graph"
+	if g.Directed {
+		kind = "digraph"
+	}
+	if g.ID == "" {
+		return fmt.Sprintf("anonymous %s %d", kind, index+1)
+	}
+	if strings.HasPrefix(g.ID, `"`) {
+		return kind + " " + g.ID
+	}
+	return kind + " " + strconv.Quote(g.ID)
+}
+
+// warnPinned notes input positions marked pinned with '!': gridwood
+// replaces every pos, so say so rather than ignore them silently.
+func warnPinned(w io.Writer, name string, f *dotio.File) {
+	for gi, g := range f.Graphs {
+		pinned := 0
+		for _, n := range g.Nodes {
+			if strings.HasSuffix(strings.TrimSpace(n.Attrs.Pos), "!") {
+				pinned++
+			}
+		}
+		if pinned > 0 {
+			fmt.Fprintf(w, "gridwood: %s:%d:%d: %s: %d pinned positions (pos=\"...!\") replaced by the layout\n", name, g.Line, g.Col, graphName(g, gi), pinned)
+		}
+	}
+}
+
+// writeFileAtomic writes data to a temporary file next to path and renames
+// it into place, so that readers never see a half-written file and a
+// failed run leaves an existing file untouched.
+func writeFileAtomic(path string, data []byte) error {
+	dir := filepath.Dir(path)
+	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp*")
+	if err != nil {
+		return &exitError{exitBadInput, err.Error()}
+	}
+	name := tmp.Name()
+	_, err = tmp.Write(data)
+	if cerr := tmp.Close(); err == nil {
+		err = cerr
+	}
+	if err == nil {
+		if fi, serr := os.Stat(path); serr == nil {
+			err = os.Chmod(name, fi.Mode().Perm())
+		} else {
+			err = os.Chmod(name, 0o644)
+		}
+	}
+	if err == nil {
+		err = os.Rename(name, path)
+	}
+	if err != nil {
+		os.Remove(name)
+		return &exitError{exitBadInput, err.Error()}
+	}
+	return nil
+}

@@ -1,0 +1,228 @@
+package place
+
+import "github.com/gridwood/gridwood/planarize"
+
+// augmentation records what triangulate added, so the dummy edges can be
+// told apart and the outer face chosen among the faces of the input.
+type augmentation struct {
+	firstDummy int // edges with index >= firstDummy were added
+}
+
+// biconnect adds edges to emb until every connected component with at least
+// three vertices is biconnected. Around every vertex v it looks at each pair
+// of consecutive neighbours u, w; when the edges vu and vw lie in different
+// blocks it adds uw inside the face between them. Blocks are tracked with a
+// union-find structure: adding uw merges exactly the blocks of vu and vw,
+// and since u, w in different blocks are never adjacent, no parallel edge
+// can arise (the classical argument for this augmentation; common practice,
+// see e.g. Kant and Bodlaender 1997 for refined variants).
+func biconnect(emb *planarize.Embedding) {
+	n := emb.N()
+	block := blocks(emb)
+	uf := newUnionFind(len(block))
+	for v := int32(0); int(v) < n; v++ {
+		h := emb.First(v)
+		if h < 0 || emb.Degree(v) < 2 {
+			continue
+		}
+		for range emb.Degree(v) {
+			h2 := emb.Next(h)
+			b1, b2 := uf.find(block[h>>1]), uf.find(block[h2>>1])
+			if b1 != b2 {
+				emb.AddEdge(emb.FaceNext(h), h2^1, -1, -1)
+				block = append(block, uf.union(b1, b2))
+			}
+			h = h2
+		}
+	}
+}
+
+// blocks labels every edge with its biconnected component, by the
+// lowpoint method of Hopcroft and Tarjan (1973) with an explicit stack.
+func blocks(emb *planarize.Embedding) []int32 {
+	n, m := emb.N(), emb.M()
+	block := make([]int32, m)
+	disc := make([]int32, n)
+	low := make([]int32, n)
+	parentDart := make([]int32, n)
+	cursor := make([]int32, n) // next dart to look at, -1 when done
+	for v := range disc {
+		disc[v] = -1
+	}
+	var vstack, estack []int32
+	clock, nb := int32(0), int32(0)
+	for s := int32(0); int(s) < n; s++ {
+		if disc[s] >= 0 || emb.First(s) < 0 {
+			continue
+		}
+		disc[s], low[s] = clock, clock
+		clock++
+		parentDart[s] = -1
+		cursor[s] = emb.First(s)
+		vstack = append(vstack, s)
+		for len(vstack) > 0 {
+			v := vstack[len(vstack)-1]
+			d := cursor[v]
+			if d < 0 {
+				vstack = vstack[:len(vstack)-1]
+				pd := parentDart[v]
+				if pd < 0 {
+					continue
+				}
+				u := emb.Tail(pd)
+				low[u] = min(low[u], low[v])
+				if low[v] >= disc[u] {
+					for {
+						e := estack[len(estack)-1]
+						estack = estack[:len(estack)-1]
+						block[e] = nb
+						if e == pd>>1 {
+							break
+						}
+					}
+					nb++
+				}
+				continue
+			}
+			if nx := emb.Next(d); nx != emb.First(v) {
+				cursor[v] = nx
+			} else {
+				cursor[v] = -1
+			}
+			if pd := parentDart[v]; pd >= 0 && d>>1 == pd>>1 {
+				continue
+			}
+			w := emb.Head(d)
+			switch {
+			case disc[w] < 0:
+				disc[w], low[w] = clock, clock
+				clock++
+				parentDart[w] = d
+				cursor[w] = emb.First(w)
+				estack = append(estack, d>>1)
+				vstack = append(vstack, w)
+			case disc[w] < disc[v]:
+				low[v] = min(low[v], disc[w])
+				estack = append(estack, d>>1)
+			}
+		}
+	}
+	return block
+}
+
+type unionFind struct{ parent []int32 }
+
+func newUnionFind(n int) *unionFind {
+	p := make([]int32, n)
+	for i := range p {
+		p[i] = int32(i)
+	}
+	return &unionFind{p}
+}
+
+func (u *unionFind) find(x int32) int32 {
+	r := x
+	for u.parent[r] != r {
+		r = u.parent[r]
+	}
+	for u.parent[x] != r {
+		u.parent[x], x = r, u.parent[x]
+	}
+	return r
+}
+
+func (u *unionFind) union(a, b int32) int32 {
+	a, b = u.find(a), u.find(b)
+	if a != b {
+		u.parent[b] = a
+	}
+	return a
+}
+
+// triangulateFaces adds edges inside every face of length four or more of a
+// biconnected embedding until all faces are triangles, never creating a
+// parallel edge. For a face v0 ... v(k-1) it takes as v0 a vertex of least
+// degree (so that the work of marking its neighbours sums to O(m) over all
+// faces: it is bounded by twice the sum over edges of the smaller end
+// degree, which is linear for planar graphs, Chiba and Nishizeki 1985).
+// If v0 is adjacent to no vi with 2 <= i <= k-2, it fans out from v0.
+// Otherwise such an edge v0 vi runs outside the face and separates
+// v1..v(i-1) from v(i+1)..v(k-1), so no edge joins those two sides: the face
+// is cut by v1 v(k-1), ..., v1 v(i+1) and then fanned from v(i+1) to
+// v2..v(i-1), all new and non-crossing. It returns, for each face it split,
+// the face size and one dart of a triangle made from it, so the caller can
+// pick an outer face inside a large face of the input.
+func triangulateFaces(emb *planarize.Embedding, onSplit func(size int, tri int32)) {
+	n := emb.N()
+	seen := make([]bool, 2*emb.M())
+	mark := make([]int32, n)
+	for v := range mark {
+		mark[v] = -1
+	}
+	var walk, face []int32
+	stamp := int32(0)
+	for d0 := int32(0); int(d0) < len(seen); d0++ {
+		if seen[d0] {
+			continue
+		}
+		walk = walk[:0]
+		for d := d0; !seen[d]; d = emb.FaceNext(d) {
+			seen[d] = true
+			walk = append(walk, d)
+		}
+		k := len(walk)
+		if k <= 3 {
+			continue
+		}
+		// Rotate so that face[0] leaves the least-degree vertex.
+		best := 0
+		for i, d := range walk {
+			if emb.Degree(emb.Tail(d)) < emb.Degree(emb.Tail(walk[best])) {
+				best = i
+			}
+		}
+		face = append(append(face[:0], walk[best:]...), walk[:best]...)
+		v0 := emb.Tail(face[0])
+		stamp++
+		h := emb.First(v0)
+		for range emb.Degree(v0) {
+			mark[emb.Head(h)] = stamp
+			h = emb.Next(h)
+		}
+		chord := -1
+		for i := 2; i <= k-2; i++ {
+			if mark[emb.Tail(face[i])] == stamp {
+				chord = i
+				break
+			}
+		}
+		add := func(a, b int32) int32 {
+			e := emb.AddEdge(a, b, -1, -1)
+			seen = append(seen, true, true)
+			return int32(2 * e)
+		}
+		var tri int32
+		if chord < 0 {
+			a := face[0]
+			for i := 2; i <= k-2; i++ {
+				a = add(a, face[i]) // dart v0 -> vi
+			}
+			tri = face[0]
+		} else {
+			i := chord
+			for j := k - 1; j >= i+1; j-- {
+				add(face[1], face[j])
+			}
+			// Remaining face v1 .. v(i+1); its dart leaving v(i+1) is the
+			// twin of the last edge added, v1 -> v(i+1).
+			c := emb.FaceNext(face[i]) // dart v(i+1) -> v1
+			for j := 2; j <= i-1; j++ {
+				c = add(c, face[j]) // dart v(i+1) -> vj
+			}
+			tri = face[k-1] // triangle v(k-1) v0 v1
+		}
+		if onSplit != nil {
+			onSplit(k, tri)
+		}
+	}
+}

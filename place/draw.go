@@ -1,0 +1,123 @@
+package place
+
+import (
+	"errors"
+
+	"github.com/gridwood/gridwood/planarize"
+)
+
+// errNotPlanar means the planar subgraph was not planar: a bug, reported
+// instead of a crash.
+var errNotPlanar = errors.New("place: internal error: kept subgraph is not planar")
+
+// DrawOptions tune Draw. The zero value is the default.
+type DrawOptions struct {
+	Layout   Options
+	Subgraph planarize.SubgraphOptions
+}
+
+// Result is a crossing-free straight-line grid drawing of a graph that may
+// have loops, repeated edges and crossings-forcing (non-planar) edges.
+type Result struct {
+	Drawing
+	// DistinctPairs is the number of distinct vertex pairs joined by an
+	// edge.
+	DistinctPairs int
+	// Removed lists, in increasing order, the input edges the drawing
+	// leaves out to stay planar: every copy of each removed vertex pair.
+	// Loops are never listed; they do not affect planarity.
+	Removed []int
+	// RemovedPairs is the number of distinct pairs removed. Adding back any
+	// one of them would make the drawn graph non-planar.
+	RemovedPairs int
+	// Optimal reports that no planar subgraph keeps more pairs.
+	Optimal bool
+	// LowerBound is a proved lower bound on the pairs any planar subgraph
+	// must drop.
+	LowerBound int
+
+	simple    [][2]int32
+	simpleOf  []int32
+	removedSP []int32
+}
+
+// Draw lays out the graph with n vertices and the given edges (ordered
+// pairs; direction, loops and repeats are ignored for the layout). Each
+// vertex gets an integer grid point; edges that are kept are straight
+// segments that neither cross nor touch except at common ends. If the graph
+// is not planar, an inclusion-minimal set of vertex pairs is set aside first
+// (see planarize.MaximalPlanar) and reported in Result.Removed.
+func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
+	simple, index := planarize.Simplify(n, edges)
+	res := &Result{DistinctPairs: len(simple), Optimal: true, simple: simple, simpleOf: index}
+	kept := simple
+	emb, ok := planarize.Embed(n, simple)
+	if !ok {
+		sub := planarize.MaximalPlanar(n, simple, opt.Subgraph)
+		res.Optimal, res.LowerBound = sub.Optimal, sub.LowerBound
+		res.RemovedPairs = len(sub.Removed)
+		res.removedSP = sub.Removed
+		gone := make([]bool, len(simple))
+		for _, e := range sub.Removed {
+			gone[e] = true
+		}
+		kept = make([][2]int32, 0, len(simple)-len(sub.Removed))
+		for i, e := range simple {
+			if !gone[i] {
+				kept = append(kept, e)
+			}
+		}
+		for i, s := range index {
+			if s >= 0 && gone[s] {
+				res.Removed = append(res.Removed, i)
+			}
+		}
+		if emb, ok = planarize.Embed(n, kept); !ok {
+			return nil, errNotPlanar
+		}
+	}
+	d, err := Layout(emb, opt.Layout)
+	if err != nil {
+		return nil, err
+	}
+	res.Drawing = *d
+	return res, nil
+}
+
+// Kept returns the distinct vertex pairs of the drawing, without the
+// removed ones: the straight segments a renderer will draw.
+func (r *Result) Kept() [][2]int32 {
+	gone := make([]bool, len(r.simple))
+	for _, e := range r.removedSP {
+		gone[e] = true
+	}
+	var out [][2]int32
+	for i, e := range r.simple {
+		if !gone[i] {
+			out = append(out, e)
+		}
+	}
+	return out
+}
+
+// Explain returns, for the removed input edge i, a Kuratowski subgraph made
+// of that edge's pair and kept pairs, as indices into PairList(). ok is
+// false when the budget ran out.
+func (r *Result) Explain(i int, budget *planarize.Budget) (*planarize.Kuratowski, bool) {
+	target := r.simpleOf[i]
+	gone := make([]bool, len(r.simple))
+	for _, e := range r.removedSP {
+		gone[e] = true
+	}
+	subset := make([]int32, 0, len(r.simple))
+	for e := range r.simple {
+		if !gone[e] || int32(e) == target {
+			subset = append(subset, int32(e))
+		}
+	}
+	return planarize.FindKuratowski(len(r.X), r.simple, subset, []int32{target}, budget)
+}
+
+// PairList returns the distinct vertex pairs of the input, in order of
+// first occurrence; Explain's edge indices refer to it.
+func (r *Result) PairList() [][2]int32 { return r.simple }

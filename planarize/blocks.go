@@ -1,0 +1,132 @@
+package planarize
+
+// csr is a compact adjacency structure: the darts leaving v are
+// adj[start[v]:start[v+1]]; dart 2e leaves edges[e][0], dart 2e+1 leaves
+// edges[e][1].
+type csr struct {
+	start []int32
+	adj   []int32
+}
+
+func newCSR(n int, edges [][2]int32) csr {
+	start := make([]int32, n+1)
+	for _, e := range edges {
+		start[e[0]+1]++
+		start[e[1]+1]++
+	}
+	for v := 1; v <= n; v++ {
+		start[v] += start[v-1]
+	}
+	adj := make([]int32, 2*len(edges))
+	pos := append([]int32(nil), start[:n]...)
+	for i, e := range edges {
+		adj[pos[e[0]]] = int32(2 * i)
+		pos[e[0]]++
+		adj[pos[e[1]]] = int32(2*i + 1)
+		pos[e[1]]++
+	}
+	return csr{start, adj}
+}
+
+// Blocks labels each edge of the simple graph with its biconnected
+// component (block), numbered from 0 in order of completion, and returns
+// the labels and the number of blocks. A graph is planar if and only if
+// each of its blocks is, so planarity work can be split along them. It is
+// the lowpoint method of Hopcroft and Tarjan, "Efficient algorithms for
+// graph manipulation", Comm. ACM 16 (1973), run with explicit stacks.
+func Blocks(n int, edges [][2]int32) (block []int32, count int) {
+	g := newCSR(n, edges)
+	block = make([]int32, len(edges))
+	disc := make([]int32, n)
+	low := make([]int32, n)
+	parentEdge := make([]int32, n)
+	cursor := make([]int32, n)
+	for v := range disc {
+		disc[v] = -1
+	}
+	var vstack, estack []int32
+	clock := int32(0)
+	nb := int32(0)
+	head := func(d int32) int32 { return edges[d>>1][1-d&1] }
+	for s := int32(0); int(s) < n; s++ {
+		if disc[s] >= 0 {
+			continue
+		}
+		disc[s], low[s] = clock, clock
+		clock++
+		parentEdge[s] = -1
+		cursor[s] = g.start[s]
+		vstack = append(vstack, s)
+		for len(vstack) > 0 {
+			v := vstack[len(vstack)-1]
+			if cursor[v] == g.start[v+1] {
+				vstack = vstack[:len(vstack)-1]
+				pe := parentEdge[v]
+				if pe < 0 {
+					continue
+				}
+				u := head(2*pe) ^ head(2*pe+1) ^ v // the other end
+				low[u] = min(low[u], low[v])
+				if low[v] >= disc[u] {
+					for {
+						e := estack[len(estack)-1]
+						estack = estack[:len(estack)-1]
+						block[e] = nb
+						if e == pe {
+							break
+						}
+					}
+					nb++
+				}
+				continue
+			}
+			d := g.adj[cursor[v]]
+			cursor[v]++
+			e := d >> 1
+			if e == parentEdge[v] {
+				continue
+			}
+			w := head(d)
+			switch {
+			case disc[w] < 0:
+				disc[w], low[w] = clock, clock
+				clock++
+				parentEdge[w] = e
+				cursor[w] = g.start[w]
+				estack = append(estack, e)
+				vstack = append(vstack, w)
+			case disc[w] < disc[v]:
+				low[v] = min(low[v], disc[w])
+				estack = append(estack, e)
+			}
+		}
+	}
+	return block, int(nb)
+}
+
+type unionFind struct{ parent []int32 }
+
+func newUnionFind(n int) *unionFind {
+	p := make([]int32, n)
+	for i := range p {
+		p[i] = int32(i)
+	}
+	return &unionFind{p}
+}
+
+func (u *unionFind) find(x int32) int32 {
+	r := x
+	for u.parent[r] != r {
+		r = u.parent[r]
+	}
+	for u.parent[x] != r {
+		u.parent[x], x = r, u.parent[x]
+	}
+	return r
+}
+
+func (u *unionFind) union(a, b int32) {
+	if a, b = u.find(a), u.find(b); a != b {
+		u.parent[b] = a
+	}
+}

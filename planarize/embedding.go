@@ -1,0 +1,174 @@
+package planarize
+
+// An Embedding is a combinatorial embedding (rotation system) of a simple
+// undirected graph on the vertices 0..N()-1.
+//
+// Edge e joins Edge(e)[0] and Edge(e)[1]. Each edge has two darts
+// (half-edges): dart 2e leaves Edge(e)[0] and dart 2e+1 leaves Edge(e)[1].
+// Around every vertex the darts leaving it form a cycle in counter-clockwise
+// order, reached with Next and Prev.
+//
+// Faces are traversed with FaceNext, which keeps the face on the left of
+// every dart: inner faces of a drawing that respects the rotation are walked
+// counter-clockwise, the outer face clockwise.
+type Embedding struct {
+	edges [][2]int32
+	next  []int32 // counter-clockwise successor of a dart around its tail
+	prev  []int32 // counter-clockwise predecessor
+	first []int32 // a dart leaving the vertex, -1 if it is isolated
+	deg   []int32
+}
+
+// NewEmbedding returns an embedding of n isolated vertices, ready for
+// AddEdge. It is the starting point for building embeddings by hand.
+func NewEmbedding(n int) *Embedding {
+	e := &Embedding{first: make([]int32, n), deg: make([]int32, n)}
+	for v := range e.first {
+		e.first[v] = -1
+	}
+	return e
+}
+
+// N returns the number of vertices.
+func (e *Embedding) N() int { return len(e.first) }
+
+// M returns the number of edges.
+func (e *Embedding) M() int { return len(e.edges) }
+
+// Edge returns the two ends of edge i.
+func (e *Embedding) Edge(i int) [2]int32 { return e.edges[i] }
+
+// Tail returns the vertex dart d leaves.
+func (e *Embedding) Tail(d int32) int32 { return e.edges[d>>1][d&1] }
+
+// Head returns the vertex dart d enters.
+func (e *Embedding) Head(d int32) int32 { return e.edges[d>>1][1-d&1] }
+
+// Next returns the dart after d, counter-clockwise around Tail(d).
+func (e *Embedding) Next(d int32) int32 { return e.next[d] }
+
+// Prev returns the dart before d, counter-clockwise around Tail(d).
+func (e *Embedding) Prev(d int32) int32 { return e.prev[d] }
+
+// FaceNext returns the dart that follows d along the face on the left of d.
+func (e *Embedding) FaceNext(d int32) int32 { return e.prev[d^1] }
+
+// First returns a dart leaving v, or -1 if v has no edges.
+func (e *Embedding) First(v int32) int32 { return e.first[v] }
+
+// Degree returns the number of edges at v.
+func (e *Embedding) Degree(v int32) int { return int(e.deg[v]) }
+
+// AddEdge adds an edge between u = Tail(a) and v = Tail(b). Its dart leaving
+// u is placed counter-clockwise right after a, its dart leaving v right after
+// b. When a and b lie on one face (the face on their left), that face is
+// split in two: one face holds a and the new dart v->u, the other the new
+// dart u->v and b. Either argument may be -1 for an isolated vertex, given
+// as u or v. The new edge's index is returned.
+func (e *Embedding) AddEdge(a, b int32, u, v int32) int {
+	if a >= 0 {
+		u = e.Tail(a)
+	}
+	if b >= 0 {
+		v = e.Tail(b)
+	}
+	id := len(e.edges)
+	e.edges = append(e.edges, [2]int32{u, v})
+	d := int32(2 * id)
+	e.next = append(e.next, d, d+1)
+	e.prev = append(e.prev, d, d+1)
+	e.insertAfter(d, a, u)
+	e.insertAfter(d+1, b, v)
+	return id
+}
+
+// insertAfter links the new dart d into the rotation of v right after a, or
+// makes it the only dart of v when a is -1.
+func (e *Embedding) insertAfter(d, a, v int32) {
+	e.deg[v]++
+	if a < 0 {
+		if e.first[v] >= 0 {
+			a = e.prev[e.first[v]]
+		} else {
+			e.first[v] = d
+			return
+		}
+	}
+	n := e.next[a]
+	e.next[a] = d
+	e.prev[d] = a
+	e.next[d] = n
+	e.prev[n] = d
+}
+
+// Faces returns the number of faces of the embedding, counting every
+// connected component on its own sphere: for a planar rotation system with
+// V vertices, E edges and C components, Faces = 2C - V + E (Euler), where an
+// isolated vertex is a component with one face.
+func (e *Embedding) Faces() int {
+	seen := make([]bool, len(e.next))
+	faces := 0
+	for d := range e.next {
+		if seen[d] {
+			continue
+		}
+		faces++
+		for x := int32(d); !seen[x]; x = e.FaceNext(x) {
+			seen[x] = true
+		}
+	}
+	for _, f := range e.first {
+		if f < 0 {
+			faces++
+		}
+	}
+	return faces
+}
+
+// Components returns the number of connected components, isolated vertices
+// included.
+func (e *Embedding) Components() int {
+	n := e.N()
+	seen := make([]bool, n)
+	stack := make([]int32, 0, 64)
+	c := 0
+	for s := range n {
+		if seen[s] {
+			continue
+		}
+		c++
+		seen[s] = true
+		stack = append(stack[:0], int32(s))
+		for len(stack) > 0 {
+			v := stack[len(stack)-1]
+			stack = stack[:len(stack)-1]
+			f := e.first[v]
+			if f < 0 {
+				continue
+			}
+			for d := f; ; {
+				if w := e.Head(d); !seen[w] {
+					seen[w] = true
+					stack = append(stack, w)
+				}
+				if d = e.next[d]; d == f {
+					break
+				}
+			}
+		}
+	}
+	return c
+}
+
+// Clone returns an independent copy, so that augmentation can add edges
+// without touching the caller's embedding.
+func (e *Embedding) Clone() *Embedding {
+	c := &Embedding{
+		edges: append([][2]int32(nil), e.edges...),
+		next:  append([]int32(nil), e.next...),
+		prev:  append([]int32(nil), e.prev...),
+		first: append([]int32(nil), e.first...),
+		deg:   append([]int32(nil), e.deg...),
+	}
+	return c
+}

@@ -1,0 +1,276 @@
+package planarize
+
+import "slices"
+
+// KuratowskiKind names the two obstructions of Kuratowski's theorem.
+type KuratowskiKind int
+
+const (
+	K33 KuratowskiKind = iota // a subdivision of K3,3
+	K5                        // a subdivision of K5
+)
+
+func (k KuratowskiKind) String() string {
+	if k == K5 {
+		return "K5"
+	}
+	return "K3,3"
+}
+
+// A Kuratowski subgraph certifies that a graph is not planar: a subdivision
+// of K5 or K3,3 (K. Kuratowski, "Sur le problème des courbes gauches en
+// topologie", Fund. Math. 15, 1930).
+type Kuratowski struct {
+	Kind   KuratowskiKind
+	Edges  []int32   // indices into the edge list given
+	Branch []int32   // the 5 or 6 branch vertices
+	Paths  [][]int32 // one vertex path per edge of K5 or K3,3, branch vertex to branch vertex
+}
+
+// Budget bounds the work of a search in edge visits of planarity tests, so
+// that the result never depends on timing. A nil Budget is unlimited.
+type Budget struct{ Left int64 }
+
+func (b *Budget) spend(m int) bool {
+	if b == nil {
+		return true
+	}
+	b.Left -= int64(m) + 1
+	return b.Left >= 0
+}
+
+// tester runs planarity tests on subsets of one edge list, reusing buffers.
+type tester struct {
+	n      int
+	edges  [][2]int32
+	buf    [][2]int32
+	budget *Budget
+	tests  int
+	lr     lr
+}
+
+// planar tests the union of the given index sets; ok is false when the
+// budget ran out (the verdict is then meaningless).
+func (t *tester) planar(sets ...[]int32) (planar, ok bool) {
+	t.buf = t.buf[:0]
+	for _, s := range sets {
+		for _, i := range s {
+			t.buf = append(t.buf, t.edges[i])
+		}
+	}
+	t.tests++
+	if !t.budget.spend(len(t.buf)) {
+		return false, false
+	}
+	return t.lr.isPlanar(t.n, t.buf), true
+}
+
+// FindKuratowski returns a Kuratowski subgraph of the non-planar simple
+// graph formed by the edges with indices in subset (all edges when subset
+// is nil). Edges listed in must are kept in it whenever possible: if
+// subset minus each edge of must is planar, the result contains them all,
+// which is how a removed edge is explained against the kept planar graph.
+// It deletes edges in adaptively sized groups while the rest stays
+// non-planar (the group-testing scheme of delta debugging, Zeller and
+// Hildebrandt 2002); an edge-minimal non-planar graph is a subdivision of K5
+// or K3,3. The second result is false if the graph is planar or the budget
+// ran out.
+func FindKuratowski(n int, edges [][2]int32, subset, must []int32, budget *Budget) (*Kuratowski, bool) {
+	if subset == nil {
+		subset = make([]int32, len(edges))
+		for i := range subset {
+			subset[i] = int32(i)
+		}
+	}
+	t := &tester{n: n, edges: edges, budget: budget}
+	if len(must) > 0 {
+		subset = blockOf(n, edges, subset, must[0])
+	}
+	isMust := make(map[int32]bool, len(must))
+	for _, e := range must {
+		isMust[e] = true
+	}
+	rest := pruneLeaves(n, edges, subset, isMust)
+	var need []int32
+	fixed := append([]int32(nil), must...)
+	if p, ok := t.planar(fixed, rest); !ok || p {
+		return nil, false
+	}
+	chunk := max(1, len(rest)/2)
+	for len(rest) > 0 {
+		k := min(chunk, len(rest))
+		p, ok := t.planar(fixed, need, rest[k:])
+		if !ok {
+			return nil, false
+		}
+		if !p { // still non-planar without rest[:k]: drop them
+			rest = rest[k:]
+			chunk = min(2*chunk, max(1, len(rest)))
+			continue
+		}
+		if k == 1 {
+			need = append(need, rest[0])
+			rest = rest[1:]
+			continue
+		}
+		chunk = k / 2
+	}
+	sub := append(fixed, need...)
+	return classify(edges, sub)
+}
+
+// blockOf returns the edges of subset that lie in the same biconnected
+// component as edge e (itself in subset): a Kuratowski subgraph through e
+// lies inside that block.
+func blockOf(n int, edges [][2]int32, subset []int32, e int32) []int32 {
+	sub := make([][2]int32, len(subset))
+	at := -1
+	for i, x := range subset {
+		sub[i] = edges[x]
+		if x == e {
+			at = i
+		}
+	}
+	if at < 0 {
+		return subset
+	}
+	block, _ := Blocks(n, sub)
+	var out []int32
+	for i, x := range subset {
+		if block[i] == block[at] {
+			out = append(out, x)
+		}
+	}
+	return out
+}
+
+// pruneLeaves drops, repeatedly, edges at vertices of degree one: they lie
+// on no cycle and so in no Kuratowski subgraph. Edges in keep stay, and
+// count towards degrees.
+func pruneLeaves(n int, edges [][2]int32, subset []int32, keep map[int32]bool) []int32 {
+	deg := make([]int32, n)
+	start := make([]int32, n+1)
+	for _, i := range subset {
+		e := edges[i]
+		deg[e[0]]++
+		deg[e[1]]++
+		if !keep[i] {
+			start[e[0]+1]++
+			start[e[1]+1]++
+		}
+	}
+	for v := 1; v <= n; v++ {
+		start[v] += start[v-1]
+	}
+	inc := make([]int32, start[n])
+	pos := append([]int32(nil), start[:n]...)
+	for _, i := range subset {
+		if keep[i] {
+			continue
+		}
+		for _, v := range edges[i] {
+			inc[pos[v]] = i
+			pos[v]++
+		}
+	}
+	gone := make([]bool, len(edges))
+	var queue []int32
+	for v := range n {
+		if deg[v] == 1 {
+			queue = append(queue, int32(v))
+		}
+	}
+	for len(queue) > 0 {
+		v := queue[len(queue)-1]
+		queue = queue[:len(queue)-1]
+		if deg[v] != 1 {
+			continue
+		}
+		for _, i := range inc[start[v]:start[v+1]] {
+			if gone[i] {
+				continue
+			}
+			gone[i] = true
+			e := edges[i]
+			deg[e[0]]--
+			deg[e[1]]--
+			if w := e[0] ^ e[1] ^ v; deg[w] == 1 {
+				queue = append(queue, w)
+			}
+			break
+		}
+	}
+	out := make([]int32, 0, len(subset))
+	for _, i := range subset {
+		if !keep[i] && !gone[i] {
+			out = append(out, i)
+		}
+	}
+	return out
+}
+
+// classify reads off the branch vertices and paths of an edge-minimal
+// non-planar graph.
+func classify(edges [][2]int32, sub []int32) (*Kuratowski, bool) {
+	adj := make(map[int32][]int32)
+	for _, i := range sub {
+		e := edges[i]
+		adj[e[0]] = append(adj[e[0]], i)
+		adj[e[1]] = append(adj[e[1]], i)
+	}
+	var branch []int32
+	kind := K33
+	for _, i := range sub {
+		for _, v := range edges[i] {
+			d := len(adj[v])
+			if d >= 3 && !containsVertex(branch, v) {
+				branch = append(branch, v)
+			}
+			if d == 4 {
+				kind = K5
+			}
+		}
+	}
+	want := 6
+	if kind == K5 {
+		want = 5
+	}
+	if len(branch) != want {
+		return nil, false
+	}
+	slices.Sort(branch)
+	isBranch := make(map[int32]bool, len(branch))
+	for _, b := range branch {
+		isBranch[b] = true
+	}
+	used := make(map[int32]bool)
+	var paths [][]int32
+	for _, b := range branch {
+		for _, e0 := range adj[b] {
+			if used[e0] {
+				continue
+			}
+			path := []int32{b}
+			v, e := b, e0
+			for {
+				used[e] = true
+				w := edges[e][0] ^ edges[e][1] ^ v
+				path = append(path, w)
+				if isBranch[w] {
+					break
+				}
+				next := adj[w][0]
+				if next == e {
+					next = adj[w][1]
+				}
+				v, e = w, next
+			}
+			paths = append(paths, path)
+		}
+	}
+	k := &Kuratowski{Kind: kind, Edges: append([]int32(nil), sub...), Branch: branch, Paths: paths}
+	slices.Sort(k.Edges)
+	return k, true
+}
+
+func containsVertex(s []int32, v int32) bool { return slices.Contains(s, v) }

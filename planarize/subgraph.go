@@ -1,0 +1,505 @@
+package planarize
+
+import (
+	"math/rand/v2"
+	"slices"
+)
+
+// SubgraphOptions tune MaximalPlanar. The zero value is the default.
+type SubgraphOptions struct {
+	// Effort buys more search for fewer removed edges: Effort seeded
+	// restarts of the greedy growth in shuffled edge orders, and a larger
+	// work bound for the exact search on small blocks. The result for a
+	// given Effort is deterministic.
+	Effort int
+}
+
+// Subgraph is the result of MaximalPlanar.
+type Subgraph struct {
+	Removed []int32 // indices of the removed edges, increasing
+	// Optimal is true when len(Removed) is proved to be the minimum: it
+	// meets a lower bound in every block, or an exact search finished.
+	Optimal bool
+	// LowerBound is a proved lower bound on the number of edges any planar
+	// subgraph must lose (the sum over blocks of Euler-type bounds and of
+	// exact search results).
+	LowerBound int
+}
+
+// exactEdgeLimit is the largest block (in edges) given to the exact search.
+const exactEdgeLimit = 120
+
+// exactTests bounds the planarity tests of one exact search at Effort 0.
+const exactTests = 40000
+
+// MaximalPlanar finds a set of edges whose removal leaves the simple graph
+// planar and that is inclusion-minimal: adding back any one removed edge
+// makes the kept graph non-planar (a maximal planar subgraph). Finding the
+// fewest such edges is NP-hard (Liu and Geldmacher 1977; Yannakakis 1978),
+// so it aims low with these steps, per biconnected block (a graph is planar
+// iff its blocks are):
+//
+//   - seed with a triangular cactus (Calinescu, Fernandes, Finkler and
+//     Karloff, "A better approximation algorithm for finding planar
+//     subgraphs", J. Algorithms 27, 1998) joined by a spanning forest;
+//   - grow it greedily in edge order, testing edges in adaptively split
+//     groups: a whole group is added when the result stays planar, and a
+//     single edge is rejected only when it makes the kept graph non-planar,
+//     which keeps every rejection valid for the final graph;
+//   - reject every remaining edge without a test once the block holds as
+//     many edges as Euler's formula allows (3n-6, or 2n-4 for a bipartite
+//     block, or g(n-2)/(g-2) for girth g);
+//   - for small blocks, search exactly for a smaller removal set, branching
+//     on the edges of a Kuratowski subgraph, under a deterministic work bound.
+func MaximalPlanar(n int, edges [][2]int32, opt SubgraphOptions) *Subgraph {
+	res := &Subgraph{Optimal: true}
+	if IsPlanar(n, edges) {
+		return res
+	}
+	block, nb := Blocks(n, edges)
+	// Group edge indices by block, keeping input order within a block.
+	start := make([]int32, nb+1)
+	for _, b := range block {
+		start[b+1]++
+	}
+	for b := 1; b <= nb; b++ {
+		start[b] += start[b-1]
+	}
+	byBlock := make([]int32, len(edges))
+	fill := append([]int32(nil), start[:nb]...)
+	for i, b := range block {
+		byBlock[fill[b]] = int32(i)
+		fill[b]++
+	}
+	local := make([]int32, n)
+	for v := range local {
+		local[v] = -1
+	}
+	var vs []int32
+	var sub [][2]int32
+	for b := range nb {
+		ids := byBlock[start[b]:start[b+1]]
+		if len(ids) < 9 {
+			continue // fewer edges than K3,3 has: planar
+		}
+		vs, sub = vs[:0], sub[:0]
+		for _, i := range ids {
+			e := edges[i]
+			for _, v := range e {
+				if local[v] < 0 {
+					local[v] = int32(len(vs))
+					vs = append(vs, v)
+				}
+			}
+			sub = append(sub, [2]int32{local[e[0]], local[e[1]]})
+		}
+		for _, v := range vs {
+			local[v] = -1
+		}
+		if IsPlanar(len(vs), sub) {
+			continue
+		}
+		r, lb, optimal := planarizeBlock(len(vs), sub, opt)
+		for _, i := range r {
+			res.Removed = append(res.Removed, ids[i])
+		}
+		res.LowerBound += lb
+		res.Optimal = res.Optimal && optimal
+	}
+	slices.Sort(res.Removed)
+	return res
+}
+
+// planarizeBlock returns the removed local edge indices for one
+// non-planar block, a lower bound, and whether the removal is proved
+// minimum.
+func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int32, lower int, optimal bool) {
+	limit := edgeLimit(n, edges)
+	lower = max(1, len(edges)-limit)
+	support := triangleSupport(n, edges)
+	order := bySupport(support, identity(len(edges)))
+	best := greedyPlanar(n, edges, order, support, limit)
+	for r := 1; r <= opt.Effort && len(best) > lower; r++ {
+		// Odd restarts shuffle edges of equal support only, even ones
+		// shuffle everything, to explore beyond the heuristic order.
+		rng := rand.New(rand.NewPCG(uint64(r), 0x9e3779b97f4a7c15))
+		perm := identity(len(edges))
+		rng.Shuffle(len(perm), func(i, j int) { perm[i], perm[j] = perm[j], perm[i] })
+		sup := support
+		if r%2 == 1 {
+			perm = bySupport(support, perm)
+		} else {
+			sup = nil
+		}
+		if cand := greedyPlanar(n, edges, perm, sup, limit); len(cand) < len(best) {
+			best = cand
+		}
+	}
+	if len(best) == lower {
+		return best, lower, true
+	}
+	if len(edges) <= exactEdgeLimit {
+		budget := &Budget{Left: int64(exactTests) * int64(1+opt.Effort) * int64(len(edges)+1)}
+		for k := lower; k < len(best); k++ {
+			found, done := exactRemoval(n, edges, k, budget)
+			if !done {
+				return best, lower, false
+			}
+			if found != nil {
+				return found, k, true
+			}
+			lower = k + 1 // no removal of k edges exists
+		}
+		return best, len(best), true
+	}
+	return best, lower, false
+}
+
+// edgeLimit is the most edges a planar simple graph on these vertices can
+// have given its girth: 3n-6 in general, 2n-4 without triangles, and
+// g(n-2)/(g-2) for girth g (from Euler's formula, every face having at
+// least g sides). The girth is only computed for small blocks.
+func edgeLimit(n int, edges [][2]int32) int {
+	limit := 3*n - 6
+	g := 3
+	if int64(n)*int64(len(edges)) <= 20_000_000 {
+		g = girth(n, edges)
+	} else if bipartite(n, edges) {
+		g = 4
+	}
+	if g > 3 {
+		limit = g * (n - 2) / (g - 2)
+	}
+	return limit
+}
+
+// girth returns the length of a shortest cycle (0 if none), by a
+// breadth-first search from every vertex: O(nm).
+func girth(n int, edges [][2]int32) int {
+	g := newCSR(n, edges)
+	dist := make([]int32, n)
+	from := make([]int32, n)
+	best := int32(0)
+	queue := make([]int32, 0, n)
+	for s := range n {
+		for v := range dist {
+			dist[v] = -1
+		}
+		dist[s] = 0
+		from[s] = -1
+		queue = append(queue[:0], int32(s))
+		for qi := 0; qi < len(queue); qi++ {
+			v := queue[qi]
+			if best > 0 && 2*dist[v]+1 >= best {
+				break
+			}
+			for _, d := range g.adj[g.start[v]:g.start[v+1]] {
+				e := d >> 1
+				if e == from[v] {
+					continue
+				}
+				w := edges[e][1-d&1]
+				if dist[w] < 0 {
+					dist[w] = dist[v] + 1
+					from[w] = e
+					queue = append(queue, w)
+				} else if c := dist[v] + dist[w] + 1; best == 0 || c < best {
+					best = c
+				}
+			}
+		}
+	}
+	return int(best)
+}
+
+func bipartite(n int, edges [][2]int32) bool {
+	g := newCSR(n, edges)
+	color := make([]int8, n)
+	var stack []int32
+	for s := range n {
+		if color[s] != 0 {
+			continue
+		}
+		color[s] = 1
+		stack = append(stack[:0], int32(s))
+		for len(stack) > 0 {
+			v := stack[len(stack)-1]
+			stack = stack[:len(stack)-1]
+			for _, d := range g.adj[g.start[v]:g.start[v+1]] {
+				w := edges[d>>1][1-d&1]
+				if color[w] == 0 {
+					color[w] = -color[v]
+					stack = append(stack, w)
+				} else if color[w] == color[v] {
+					return false
+				}
+			}
+		}
+	}
+	return true
+}
+
+func identity(m int) []int32 {
+	p := make([]int32, m)
+	for i := range p {
+		p[i] = int32(i)
+	}
+	return p
+}
+
+// maxSupportLevel caps the triangle counts used for ordering.
+const maxSupportLevel = 15
+
+// triangleSupport counts, for every edge, the triangles it lies on, by
+// the edge-orientation method of Chiba and Nishizeki ("Arboricity and
+// subgraph listing algorithms", SIAM J. Comput. 14, 1985): each edge points
+// from its end of lower degree, and each triangle is found once from its
+// lowest corner, in O(m a(G)) time, linear for planar-like graphs.
+func triangleSupport(n int, edges [][2]int32) []int32 {
+	deg := make([]int32, n)
+	for _, e := range edges {
+		deg[e[0]]++
+		deg[e[1]]++
+	}
+	lower := func(u, v int32) bool { return deg[u] < deg[v] || deg[u] == deg[v] && u < v }
+	start := make([]int32, n+1)
+	for _, e := range edges {
+		u, v := e[0], e[1]
+		if !lower(u, v) {
+			u = v
+		}
+		start[u+1]++
+	}
+	for v := 1; v <= n; v++ {
+		start[v] += start[v-1]
+	}
+	out := make([]int32, len(edges)) // edge ids, grouped by lower end
+	pos := append([]int32(nil), start[:n]...)
+	for i, e := range edges {
+		u := e[0]
+		if !lower(e[0], e[1]) {
+			u = e[1]
+		}
+		out[pos[u]] = int32(i)
+		pos[u]++
+	}
+	other := func(e, u int32) int32 { return edges[e][0] ^ edges[e][1] ^ u }
+	mark := make([]int32, n) // edge u-w + 1 while u is processed
+	support := make([]int32, len(edges))
+	for u := int32(0); int(u) < n; u++ {
+		for _, e := range out[start[u]:start[u+1]] {
+			mark[other(e, u)] = e + 1
+		}
+		for _, e1 := range out[start[u]:start[u+1]] {
+			v := other(e1, u)
+			for _, e2 := range out[start[v]:start[v+1]] {
+				if e3 := mark[other(e2, v)]; e3 > 0 {
+					support[e1]++
+					support[e2]++
+					support[e3-1]++
+				}
+			}
+		}
+		for _, e := range out[start[u]:start[u+1]] {
+			mark[other(e, u)] = 0
+		}
+	}
+	return support
+}
+
+// bySupport sorts order stably by decreasing triangle support.
+func bySupport(support, order []int32) []int32 {
+	var count [maxSupportLevel + 2]int32
+	level := func(e int32) int32 { return maxSupportLevel - min(support[e], maxSupportLevel) }
+	for _, e := range order {
+		count[level(e)+1]++
+	}
+	for k := 1; k < len(count); k++ {
+		count[k] += count[k-1]
+	}
+	out := make([]int32, len(order))
+	for _, e := range order {
+		l := level(e)
+		out[count[l]] = e
+		count[l]++
+	}
+	return out
+}
+
+// greedyPlanar grows a planar subgraph from a triangular cactus seed,
+// adding edges in the given order, and returns the rejected edges. When
+// support is given, the order runs through levels of equal triangle
+// support and each level is first tried as one group: on a mesh with a
+// few stray long edges the well-supported edges then go in with a handful
+// of tests, after which the Euler bound rejects the rest untested.
+func greedyPlanar(n int, edges [][2]int32, order, support []int32, limit int) []int32 {
+	kept := cactusSeed(n, edges, order)
+	inSeed := make([]bool, len(edges))
+	for _, e := range kept {
+		inSeed[e] = true
+	}
+	cand := make([]int32, 0, len(edges)-len(kept))
+	for _, e := range order {
+		if !inSeed[e] {
+			cand = append(cand, e)
+		}
+	}
+	var rejected []int32
+	t := &tester{n: n, edges: edges}
+	// Adaptive group testing: the group doubles after it was added and
+	// halves after it failed, so runs of good edges cost few tests and a
+	// bad edge is isolated in O(log group) tests.
+	levelEnd := func(i int) int {
+		if support == nil {
+			return len(cand)
+		}
+		l := min(support[cand[i]], maxSupportLevel)
+		j := i
+		for j < len(cand) && min(support[cand[j]], maxSupportLevel) == l {
+			j++
+		}
+		return j
+	}
+	end := 0
+	chunk := 1
+	for i := 0; i < len(cand); {
+		if len(kept) >= limit {
+			rejected = append(rejected, cand[i:]...)
+			break
+		}
+		if i == end { // a new level: try it whole first
+			end = levelEnd(i)
+			chunk = end - i
+		}
+		k := min(chunk, end-i, limit-len(kept))
+		group := cand[i : i+k]
+		if p, _ := t.planar(kept, group); p {
+			kept = append(kept, group...)
+			i += k
+			chunk = 2 * k
+			continue
+		}
+		if k == 1 {
+			rejected = append(rejected, group[0])
+			i++
+			continue
+		}
+		chunk = k / 2
+	}
+	slices.Sort(rejected)
+	return rejected
+}
+
+// cactusSeed picks, in edge order, triangles whose three corners lie in
+// three different components of the structure built so far (the greedy
+// triangular cactus), then joins the components with a spanning forest.
+// The result is planar: every block is a triangle or a single edge.
+func cactusSeed(n int, edges [][2]int32, order []int32) []int32 {
+	g := newCSR(n, edges)
+	uf := newUnionFind(n)
+	mark := make([]int32, n) // edge index to the marked vertex, + 1
+	var seed []int32
+	for _, e := range order {
+		u, v := edges[e][0], edges[e][1]
+		if uf.find(u) == uf.find(v) {
+			continue
+		}
+		if g.start[u+1]-g.start[u] > g.start[v+1]-g.start[v] {
+			u, v = v, u
+		}
+		for _, d := range g.adj[g.start[u]:g.start[u+1]] {
+			mark[edges[d>>1][1-d&1]] = d>>1 + 1
+		}
+		for _, d := range g.adj[g.start[v]:g.start[v+1]] {
+			w := edges[d>>1][1-d&1]
+			if w == u || mark[w] == 0 {
+				continue
+			}
+			ru, rv, rw := uf.find(u), uf.find(v), uf.find(w)
+			if ru != rv && rv != rw && ru != rw {
+				seed = append(seed, e, mark[w]-1, d>>1)
+				uf.union(ru, rv)
+				uf.union(ru, rw)
+				break
+			}
+		}
+		for _, d := range g.adj[g.start[u]:g.start[u+1]] {
+			mark[edges[d>>1][1-d&1]] = 0
+		}
+	}
+	for _, e := range order {
+		u, v := edges[e][0], edges[e][1]
+		if ru, rv := uf.find(u), uf.find(v); ru != rv {
+			seed = append(seed, e)
+			uf.union(ru, rv)
+		}
+	}
+	return seed
+}
+
+// exactRemoval looks for k edges whose removal makes the graph planar,
+// branching on the edges of a Kuratowski subgraph: some edge of every
+// Kuratowski subgraph must go. In the branch for its i-th edge, the first
+// i-1 edges are kept for good, so no removal set is visited twice. done is
+// false when the budget ran out.
+func exactRemoval(n int, edges [][2]int32, k int, budget *Budget) (found []int32, done bool) {
+	removed := make([]bool, len(edges))
+	fixed := make([]bool, len(edges))
+	var chosen []int32
+	var rest []int32
+	var search func(k int) (bool, bool)
+	search = func(k int) (bool, bool) { // recursion depth is at most k
+		rest = rest[:0]
+		for i := range edges {
+			if !removed[i] {
+				rest = append(rest, int32(i))
+			}
+		}
+		if !budget.spend(len(rest)) {
+			return false, false
+		}
+		var buf [][2]int32
+		for _, i := range rest {
+			buf = append(buf, edges[i])
+		}
+		if IsPlanar(n, buf) {
+			return true, true
+		}
+		if k == 0 {
+			return false, true
+		}
+		ks, ok := FindKuratowski(n, edges, append([]int32(nil), rest...), nil, budget)
+		if !ok {
+			return false, budget.Left >= 0
+		}
+		var undo []int32
+		defer func() {
+			for _, e := range undo {
+				fixed[e] = false
+			}
+		}()
+		for _, e := range ks.Edges {
+			if fixed[e] {
+				continue
+			}
+			removed[e] = true
+			chosen = append(chosen, e)
+			f, d := search(k - 1)
+			if !d || f {
+				return f, d
+			}
+			chosen = chosen[:len(chosen)-1]
+			removed[e] = false
+			fixed[e] = true
+			undo = append(undo, e)
+		}
+		return false, true
+	}
+	f, d := search(k)
+	if !d || !f {
+		return nil, d
+	}
+	out := append([]int32(nil), chosen...)
+	slices.Sort(out)
+	return out, true
+}
