@@ -16,13 +16,13 @@ type augmentation struct {
 // and since u, w in different blocks are never adjacent, no parallel edge
 // can arise (the classical argument for this augmentation; common practice,
 // see e.g. Kant and Bodlaender 1997 for refined variants).
-func biconnect(emb *planarize.Embedding) {
+func biconnect(emb *planarize.Embedding, skip func(int32) bool) {
 	n := emb.N()
-	block := blocks(emb)
+	block := blocks(emb, skip)
 	uf := newUnionFind(len(block))
 	for v := int32(0); int(v) < n; v++ {
 		h := emb.First(v)
-		if h < 0 || emb.Degree(v) < 2 {
+		if h < 0 || emb.Degree(v) < 2 || skip(v) {
 			continue
 		}
 		for range emb.Degree(v) {
@@ -39,7 +39,8 @@ func biconnect(emb *planarize.Embedding) {
 
 // blocks labels every edge with its biconnected component, by the
 // lowpoint method of Hopcroft and Tarjan (1973) with an explicit stack.
-func blocks(emb *planarize.Embedding) []int32 {
+// Components whose vertices skip reports are left out (labelled 0).
+func blocks(emb *planarize.Embedding, skip func(int32) bool) []int32 {
 	n, m := emb.N(), emb.M()
 	block := make([]int32, m)
 	disc := make([]int32, n)
@@ -52,7 +53,7 @@ func blocks(emb *planarize.Embedding) []int32 {
 	var vstack, estack []int32
 	clock, nb := int32(0), int32(0)
 	for s := int32(0); int(s) < n; s++ {
-		if disc[s] >= 0 || emb.First(s) < 0 {
+		if disc[s] >= 0 || emb.First(s) < 0 || skip(s) {
 			continue
 		}
 		disc[s], low[s] = clock, clock
@@ -152,9 +153,12 @@ func (u *unionFind) union(a, b int32) int32 {
 // v2..v(i-1), all new and non-crossing. It returns, for each face it split,
 // the face size and one dart of a triangle made from it, so the caller can
 // pick an outer face inside a large face of the input.
-func triangulateFaces(emb *planarize.Embedding, onSplit func(size int, tri int32)) {
+func triangulateFaces(emb *planarize.Embedding, skip func(int32) bool, onSplit func(size int, tri int32)) {
 	n := emb.N()
 	seen := make([]bool, 2*emb.M())
+	for d := range seen {
+		seen[d] = skip(emb.Tail(int32(d)))
+	}
 	mark := make([]int32, n)
 	for v := range mark {
 		mark[v] = -1

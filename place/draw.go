@@ -48,23 +48,42 @@ type Result struct {
 // is not planar, an inclusion-minimal set of vertex pairs is set aside first
 // (see planarize.MaximalPlanar) and reported in Result.Removed.
 func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
-	simple, index := planarize.Simplify(n, edges)
+	// Renumber first, so that even removing repeats runs on local data.
+	newID, renamed, rawOf := localOrder(n, edges)
+	local, localIndex := planarize.Simplify(n, renamed)
+	oldID := make([]int32, n)
+	for v, w := range newID {
+		oldID[w] = int32(v)
+	}
+	simple := make([][2]int32, len(local))
+	for i, e := range local {
+		simple[i] = [2]int32{oldID[e[0]], oldID[e[1]]}
+	}
+	index := make([]int32, len(edges))
+	for k, i := range rawOf {
+		index[i] = localIndex[k]
+	}
+	edgeOf := identity32(len(local)) // local pair i is simple pair i
 	res := &Result{DistinctPairs: len(simple), Optimal: true, simple: simple, simpleOf: index}
-	kept := simple
-	emb, ok := planarize.Embed(n, simple)
+	kept := local
+	emb, ok := planarize.Embed(n, local)
 	if !ok {
-		sub := planarize.MaximalPlanar(n, simple, opt.Subgraph)
+		sub := planarize.MaximalPlanar(n, local, opt.Subgraph)
 		res.Optimal, res.LowerBound = sub.Optimal, sub.LowerBound
 		res.RemovedPairs = len(sub.Removed)
-		res.removedSP = sub.Removed
-		gone := make([]bool, len(simple))
+		gone := make([]bool, len(simple)) // by original pair index
 		for _, e := range sub.Removed {
-			gone[e] = true
+			gone[edgeOf[e]] = true
 		}
-		kept = make([][2]int32, 0, len(simple)-len(sub.Removed))
-		for i, e := range simple {
-			if !gone[i] {
+		kept = make([][2]int32, 0, len(local)-len(sub.Removed))
+		for i, e := range local {
+			if !gone[edgeOf[i]] {
 				kept = append(kept, e)
+			}
+		}
+		for e, g := range gone {
+			if g {
+				res.removedSP = append(res.removedSP, int32(e))
 			}
 		}
 		for i, s := range index {
@@ -76,11 +95,16 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 			return nil, errNotPlanar
 		}
 	}
-	d, err := Layout(emb, opt.Layout)
+	d, err := layout(emb, opt.Layout) // emb is ours to augment
 	if err != nil {
 		return nil, err
 	}
+	// Back to the caller's numbering.
 	res.Drawing = *d
+	res.X, res.Y, res.bary = make([]int64, n), make([]int64, n), make([][3]int32, n)
+	for v, w := range newID {
+		res.X[v], res.Y[v], res.bary[v] = d.X[w], d.Y[w], d.bary[w]
+	}
 	return res, nil
 }
 
@@ -121,3 +145,11 @@ func (r *Result) Explain(i int, budget *planarize.Budget) (*planarize.Kuratowski
 // PairList returns the distinct vertex pairs of the input, in order of
 // first occurrence; Explain's edge indices refer to it.
 func (r *Result) PairList() [][2]int32 { return r.simple }
+
+func identity32(m int) []int32 {
+	p := make([]int32, m)
+	for i := range p {
+		p[i] = int32(i)
+	}
+	return p
+}

@@ -125,6 +125,14 @@ func (e *Embedding) Faces() int {
 	return faces
 }
 
+// IsPlane reports whether the rotation system describes a drawing in the
+// plane: in every connected component V - E + F = 2 (Euler), which holds
+// exactly for genus zero. Embeddings from Embed always are; hand-built ones
+// may not be.
+func (e *Embedding) IsPlane() bool {
+	return e.Faces() == 2*e.Components()-e.N()+e.M()
+}
+
 // Components returns the number of connected components, isolated vertices
 // included.
 func (e *Embedding) Components() int {
@@ -158,6 +166,17 @@ func (e *Embedding) Components() int {
 		}
 	}
 	return c
+}
+
+// Reserve makes room for m more edges, so that adding them later does not
+// copy the arrays again.
+func (e *Embedding) Reserve(m int) {
+	if m <= 0 {
+		return
+	}
+	e.edges = append(make([][2]int32, 0, len(e.edges)+m), e.edges...)
+	e.next = append(make([]int32, 0, len(e.next)+2*m), e.next...)
+	e.prev = append(make([]int32, 0, len(e.prev)+2*m), e.prev...)
 }
 
 // Clone returns an independent copy, so that augmentation can add edges

@@ -481,7 +481,7 @@ func (t *lr) embed() *Embedding {
 	t.sortOut(func(e int32) int32 { return t.nesting[e] + offset }, 4*t.n+1)
 
 	emb := &Embedding{
-		edges: t.edges,
+		edges: append([][2]int32(nil), t.edges...), // the caller keeps its slice
 		next:  make([]int32, 2*m),
 		prev:  make([]int32, 2*m),
 		first: make([]int32, t.n),

@@ -1,0 +1,67 @@
+package place
+
+// localOrder renumbers the vertices of a simple graph in breadth-first
+// order, component by component in order of their smallest vertex, and
+// lists the edges renamed and sorted by their smaller new end. On inputs
+// whose numbering is scattered (a file written in random order), every
+// later pass then reads memory almost sequentially: the stages after it
+// run several times faster on a million vertices. newID maps an old vertex
+// to its new number and edgeOf maps a new edge index to the old one.
+func localOrder(n int, edges [][2]int32) (newID []int32, renamed [][2]int32, edgeOf []int32) {
+	start := make([]int32, n+1)
+	for _, e := range edges {
+		start[e[0]+1]++
+		start[e[1]+1]++
+	}
+	for v := 1; v <= n; v++ {
+		start[v] += start[v-1]
+	}
+	adj := make([]int32, 2*len(edges))
+	pos := make([]int32, n)
+	copy(pos, start[:n])
+	for _, e := range edges {
+		adj[pos[e[0]]] = e[1]
+		pos[e[0]]++
+		adj[pos[e[1]]] = e[0]
+		pos[e[1]]++
+	}
+	newID = make([]int32, n)
+	for v := range newID {
+		newID[v] = -1
+	}
+	queue := pos[:0] // reuse: the queue never outgrows n
+	for s := range n {
+		if newID[s] >= 0 {
+			continue
+		}
+		newID[s] = int32(len(queue))
+		queue = append(queue, int32(s))
+		for qi := len(queue) - 1; qi < len(queue); qi++ {
+			v := queue[qi]
+			for _, w := range adj[start[v]:start[v+1]] {
+				if newID[w] < 0 {
+					newID[w] = int32(len(queue))
+					queue = append(queue, w)
+				}
+			}
+		}
+	}
+	count := start // reuse for the counting sort by smaller new end
+	clear(count)
+	for _, e := range edges {
+		count[min(newID[e[0]], newID[e[1]])+1]++
+	}
+	for v := 1; v <= n; v++ {
+		count[v] += count[v-1]
+	}
+	renamed = make([][2]int32, len(edges))
+	edgeOf = make([]int32, len(edges))
+	for i, e := range edges {
+		a, b := newID[e[0]], newID[e[1]]
+		k := min(a, b)
+		renamed[count[k]] = [2]int32{a, b}
+		edgeOf[count[k]] = int32(i)
+		count[k]++
+	}
+	return newID, renamed, edgeOf
+}
