@@ -2,6 +2,8 @@ package place
 
 import (
 	"errors"
+	"fmt"
+	"math"
 
 	"github.com/gridwood/gridwood/planarize"
 )
@@ -48,22 +50,36 @@ type Result struct {
 // is not planar, an inclusion-minimal set of vertex pairs is set aside first
 // (see planarize.MaximalPlanar) and reported in Result.Removed.
 func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
+	if err := checkInput(n, edges); err != nil {
+		return nil, err
+	}
 	// Renumber first, so that even removing repeats runs on local data.
 	newID, renamed, rawOf := localOrder(n, edges)
 	local, localIndex := planarize.Simplify(n, renamed)
-	oldID := make([]int32, n)
-	for v, w := range newID {
-		oldID[w] = int32(v)
+	// Number the pairs in order of first occurrence in the input, as
+	// PairList promises: edgeOf maps a local pair to that number.
+	edgeOf := make([]int32, len(local))
+	for i := range edgeOf {
+		edgeOf[i] = -1
 	}
-	simple := make([][2]int32, len(local))
-	for i, e := range local {
-		simple[i] = [2]int32{oldID[e[0]], oldID[e[1]]}
-	}
-	index := make([]int32, len(edges))
+	posOf := make([]int32, len(edges)) // raw edge -> its place in renamed
 	for k, i := range rawOf {
-		index[i] = localIndex[k]
+		posOf[i] = int32(k)
 	}
-	edgeOf := identity32(len(local)) // local pair i is simple pair i
+	simple := make([][2]int32, 0, len(local))
+	index := make([]int32, len(edges))
+	for i, e := range edges {
+		p := localIndex[posOf[i]]
+		if p < 0 {
+			index[i] = -1
+			continue
+		}
+		if edgeOf[p] < 0 {
+			edgeOf[p] = int32(len(simple))
+			simple = append(simple, e)
+		}
+		index[i] = edgeOf[p]
+	}
 	res := &Result{DistinctPairs: len(simple), Optimal: true, simple: simple, simpleOf: index}
 	kept := local
 	emb, ok := planarize.Embed(n, local)
@@ -128,6 +144,9 @@ func (r *Result) Kept() [][2]int32 {
 // of that edge's pair and kept pairs, as indices into PairList(). ok is
 // false when the budget ran out.
 func (r *Result) Explain(i int, budget *planarize.Budget) (*planarize.Kuratowski, bool) {
+	if i < 0 || i >= len(r.simpleOf) || r.simpleOf[i] < 0 {
+		return nil, false // no such edge, or a loop
+	}
 	target := r.simpleOf[i]
 	gone := make([]bool, len(r.simple))
 	for _, e := range r.removedSP {
@@ -152,4 +171,17 @@ func identity32(m int) []int32 {
 		p[i] = int32(i)
 	}
 	return p
+}
+
+// checkInput rejects what would otherwise index out of range.
+func checkInput(n int, edges [][2]int32) error {
+	if n < 0 || n > math.MaxInt32/2 {
+		return fmt.Errorf("place: %d vertices", n)
+	}
+	for i, e := range edges {
+		if e[0] < 0 || int(e[0]) >= n || e[1] < 0 || int(e[1]) >= n {
+			return fmt.Errorf("place: edge %d joins %d and %d, outside 0..%d", i, e[0], e[1], n-1)
+		}
+	}
+	return nil
 }

@@ -67,9 +67,11 @@ func (t *tester) planar(sets ...[]int32) (planar, ok bool) {
 
 // FindKuratowski returns a Kuratowski subgraph of the non-planar simple
 // graph formed by the edges with indices in subset (all edges when subset
-// is nil). Edges listed in must are kept in it whenever possible: if
-// subset minus each edge of must is planar, the result contains them all,
-// which is how a removed edge is explained against the kept planar graph.
+// is nil). The search stays in the block of the first edge of must and
+// prefers the edges of must: when every non-planar subgraph of subset
+// contains them (as for an edge set aside from a planar graph: subset is
+// the kept graph plus that edge) the result contains them all; otherwise
+// an edge of must may be left out.
 // It deletes edges in adaptively sized groups while the rest stays
 // non-planar (the group-testing scheme of delta debugging, Zeller and
 // Hildebrandt 2002); an edge-minimal non-planar graph is a subdivision of K5
@@ -114,6 +116,21 @@ func FindKuratowski(n int, edges [][2]int32, subset, must []int32, budget *Budge
 			continue
 		}
 		chunk = k / 2
+	}
+	// An edge of must can be superfluous (the rest stays non-planar
+	// without it) when no Kuratowski subgraph holds all of must; drop such
+	// edges so that the result is edge-minimal.
+	for i := 0; i < len(fixed); {
+		others := append(append([]int32(nil), fixed[:i]...), fixed[i+1:]...)
+		p, ok := t.planar(others, need)
+		if !ok {
+			return nil, false
+		}
+		if p {
+			i++
+			continue
+		}
+		fixed = others
 	}
 	sub := append(fixed, need...)
 	return classify(edges, sub)
@@ -259,6 +276,9 @@ func classify(edges [][2]int32, sub []int32) (*Kuratowski, bool) {
 				if isBranch[w] {
 					break
 				}
+				if len(adj[w]) != 2 || len(path) > len(sub)+1 {
+					return nil, false // not a subdivision
+				}
 				next := adj[w][0]
 				if next == e {
 					next = adj[w][1]
@@ -267,6 +287,18 @@ func classify(edges [][2]int32, sub []int32) (*Kuratowski, bool) {
 			}
 			paths = append(paths, path)
 		}
+	}
+	wantDeg, wantPaths := 3, 9
+	if kind == K5 {
+		wantDeg, wantPaths = 4, 10
+	}
+	for _, b := range branch {
+		if len(adj[b]) != wantDeg {
+			return nil, false
+		}
+	}
+	if len(paths) != wantPaths || len(used) != len(sub) {
+		return nil, false
 	}
 	k := &Kuratowski{Kind: kind, Edges: append([]int32(nil), sub...), Branch: branch, Paths: paths}
 	slices.Sort(k.Edges)

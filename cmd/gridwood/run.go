@@ -46,6 +46,8 @@ type config struct {
 	explainFile  string
 	effort       int
 	maxExpansion int
+	svgFile      string
+	check        bool
 	inputs       []string
 }
 
@@ -103,6 +105,8 @@ func parseFlags(args []string, stderr io.Writer) (*config, error) {
 	fs.StringVar(&cfg.explainFile, "explain", "", "write to `FILE`, for each set-aside edge, a Kuratowski subgraph (a subdivision\nof K5 or K3,3 made of it and kept edges) proving it could not stay, as DOT\nexample: --explain why.dot")
 	fs.IntVar(&cfg.effort, "effort", 0, "extra search for fewer set-aside edges: N seeded restarts and a larger exact\nsearch on small blocks; the result for a given N is always the same\nexample: --effort 8")
 	fs.IntVar(&cfg.maxExpansion, "max-expansion", dotio.DefaultMaxExpansion, "refuse input whose edge statements with subgraph operands ({a b} -- {c d})\nexpand to more than `N` edges; negative means no limit")
+	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE` (set-aside\nedges dashed, underneath); open it in any browser\nexample: --svg preview.svg")
+	fs.BoolVar(&cfg.check, "check", false, "do not lay out: check the pos of every node already in the input and report,\none per line on standard output, crossing edges, nodes on edges they do not\nend at, and overlapping node boxes; exit status 1 if anything was found\nexample: gridwood --check drawn.dot")
 	version := fs.Bool("version", false, "print the version and exit")
 	help := fs.BoolP("help", "h", false, "show this help and exit")
 	fs.Usage = func() {}
@@ -185,7 +189,11 @@ func versionString() string {
 // process runs the whole filter; nothing is written until every input was
 // read and laid out, so a failure leaves no partial output.
 func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
-	var out, removedOut, explainOut bytes.Buffer
+	if cfg.check {
+		return checkInputs(cfg, stdin, stdout)
+	}
+	var out, removedOut, explainOut, svgOut bytes.Buffer
+	var pictures []svgGraph
 	budget := &planarize.Budget{Left: explainBudgetTotal}
 	stdinUsed := false
 	for _, in := range cfg.inputs {
@@ -236,6 +244,19 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		if cfg.explainFile != "" {
 			writeExplain(&explainOut, f, results, budget)
 		}
+		if cfg.svgFile != "" {
+			for gi, g := range f.Graphs {
+				pictures = append(pictures, svgGraph{g, layouts[gi]})
+			}
+		}
+	}
+	if cfg.svgFile != "" {
+		if err := writeSVG(&svgOut, pictures); err != nil {
+			return err
+		}
+		if err := writeFileAtomic(cfg.svgFile, svgOut.Bytes()); err != nil {
+			return err
+		}
 	}
 	// All inputs succeeded: write the side files first, the main output last.
 	if cfg.removedFile != "" {
@@ -253,6 +274,36 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	}
 	_, err := stdout.Write(out.Bytes())
 	return err
+}
+
+// checkInputs runs --check: every input's drawing is checked as given and
+// the problems are listed on stdout.
+func checkInputs(cfg *config, stdin io.Reader, stdout io.Writer) error {
+	stdinUsed := false
+	problems := 0
+	var report bytes.Buffer
+	for _, in := range cfg.inputs {
+		src, name, err := readInput(in, stdin, &stdinUsed)
+		if err != nil {
+			return err
+		}
+		f, err := dotio.Read(src, dotio.ReadOptions{Name: name, MaxExpansion: cfg.maxExpansion})
+		if err != nil {
+			return err
+		}
+		k, err := checkFile(&report, f)
+		if err != nil {
+			return err
+		}
+		problems += k
+	}
+	if _, err := stdout.Write(report.Bytes()); err != nil {
+		return err
+	}
+	if problems > 0 {
+		return &exitError{exitProblems, fmt.Sprintf("%d problems found", problems)}
+	}
+	return nil
 }
 
 func readInput(in string, stdin io.Reader, stdinUsed *bool) ([]byte, string, error) {

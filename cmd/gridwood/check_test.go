@@ -1,0 +1,184 @@
+package main
+
+import (
+	"bytes"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"github.com/gridwood/gridwood/dotio"
+)
+
+// The expected lines below were worked out by hand from the coordinates
+// in testdata/check (plane geometry of segments and axis-parallel boxes),
+// and the positions by counting columns (a tab counts 1, as dotio
+// documents).
+func TestCheckFile(t *testing.T) {
+	for _, tc := range []struct {
+		file string
+		want []string
+	}{
+		{"clean.dot", nil},
+		{"cross.dot", []string{
+			// a-b and c-d are the diagonals of a square: they meet at
+			// (72,72), inside both.
+			`cross.dot:4:4: edges "a" -- "b" and "c" -- "d" cross`,
+		}},
+		{"onedge.dot", []string{
+			// x = (144,0) is the midpoint of a-b; x-a is half of a-b.
+			`onedge.dot:6:4: edges "a" -- "b" and "x" -- "a" overlap`,
+			`onedge.dot:5:2: node "x" lies on edge "a" -- "b"`,
+		}},
+		{"samepoint.dot", []string{
+			// p and q coincide; their boxes overlap too, but that pair is
+			// reported once. q is p-r's end point, not inside it.
+			`samepoint.dot:3:2: nodes "p" and "q" are at the same point (10,20)`,
+		}},
+		{"boxes.dot", []string{
+			// a, b: half-widths 36 + 36 > 60 apart. c, d: 72 apart, they
+			// only touch. e, f: half-widths 9 + 9 > 15, half-heights
+			// 18 + 9 > 10. g has no area. i, j: half-heights 18 + 18 < 40.
+			`boxes.dot:4:2: boxes of nodes "a" and "b" overlap`,
+			`boxes.dot:8:2: boxes of nodes "e" and "f" overlap`,
+		}},
+		{"decimals.dot", []string{
+			// Scaled by 10^6. c-d and e-f cross at (-11.5, 0). m = (1, 0.5)
+			// is the midpoint of a-b = (0,0)-(2,1), while n = (1.5,
+			// 0.750001) lies 10^-6 above it; rounding to whole points would
+			// get both wrong. Boxes have half-sizes 0.036 points: p, q are
+			// 0.07 apart (overlap), r, s 0.072 (touch only).
+			`decimals.dot:13:4: edges "c" -- "d" and "e" -- "f" cross`,
+			`decimals.dot:6:2: node "m" lies on edge "a" -- "b"`,
+			`decimals.dot:15:2: boxes of nodes "p" and "q" overlap`,
+		}},
+		{"pinned.dot", []string{
+			`pinned.dot:7:5: edges "up" -> "down" and "right" -> "left" cross`,
+		}},
+		{"missing.dot", []string{
+			`missing.dot:5:12: graph "one": node "c" has no pos`,
+			`missing.dot:8:2: graph "two": node "d" has no pos (nor have 2 more of its 3 nodes)`,
+		}},
+		{"malformed.dot", []string{
+			`malformed.dot:3:2: node "a": pos "1e2,3" is not "X,Y" or "X,Y!" with decimal numbers`,
+			`malformed.dot:4:2: node "b": pos "12" is not "X,Y" or "X,Y!" with decimal numbers`,
+			`malformed.dot:5:2: node "c": pos "x,y" is not "X,Y" or "X,Y!" with decimal numbers`,
+			`malformed.dot:9:2: node "g": pos "-,5" is not "X,Y" or "X,Y!" with decimal numbers`,
+			`malformed.dot:7:2: node "e": width "wide" is not a non-negative number of inches`,
+			`malformed.dot:10:2: node "h": height "-1" is not a non-negative number of inches`,
+			`malformed.dot:6:2: node "d": pos "1.12345678,0" has 8 decimals; at most 6 can be checked exactly`,
+			// 2^40 = 1099511627776 (geomcheck.MaxCoord).
+			`malformed.dot:8:2: node "f": pos "2000000000000,0" is too far out to be checked exactly (want |x|, |y| <= 1099511627776)`,
+		}},
+		{"range.dot", []string{
+			`range.dot:5:2: node "b": pos "2000000,0" is too far out to be checked exactly (want |x|, |y| <= 1099511.627776)`,
+		}},
+	} {
+		t.Run(tc.file, func(t *testing.T) {
+			src, err := os.ReadFile(filepath.Join("testdata", "check", tc.file))
+			if err != nil {
+				t.Fatal(err)
+			}
+			f, err := dotio.Read(src, dotio.ReadOptions{Name: tc.file})
+			if err != nil {
+				t.Fatal(err)
+			}
+			var out bytes.Buffer
+			n, err := checkFile(&out, f)
+			if err != nil {
+				t.Fatal(err)
+			}
+			got := splitLines(out.String())
+			if strings.Join(got, "\n") != strings.Join(tc.want, "\n") {
+				t.Errorf("got:\n%s\nwant:\n%s", strings.Join(got, "\n"), strings.Join(tc.want, "\n"))
+			}
+			if n != len(tc.want) {
+				t.Errorf("count %d, want %d", n, len(tc.want))
+			}
+			// Same bytes on every run.
+			var again bytes.Buffer
+			checkFile(&again, f)
+			if again.String() != out.String() {
+				t.Error("output differs between runs")
+			}
+		})
+	}
+}
+
+func splitLines(s string) []string {
+	s = strings.TrimSuffix(s, "\n")
+	if s == "" {
+		return nil
+	}
+	return strings.Split(s, "\n")
+}
+
+// Every example laid out by the command and checked: the kept edges form a
+// plane straight-line drawing, so there is no crossing, overlap, node on
+// an edge or shared point. With the set-aside edges put back, a graph that
+// had to lose edges must show a problem: a straight-line drawing with none
+// would be a plane drawing of a non-planar graph, which Kuratowski's
+// theorem (1930) rules out.
+func TestCheckLaidOutExamples(t *testing.T) {
+	paths, err := filepath.Glob("../../examples/*.dot")
+	if err != nil || len(paths) == 0 {
+		t.Fatalf("no examples: %v", err)
+	}
+	geometric := func(p checkProblem) bool {
+		return p.kind == checkCrossing || p.kind == checkOverlap || p.kind == checkOnEdge || p.kind == checkSamePoint
+	}
+	for _, path := range paths {
+		t.Run(filepath.Base(path), func(t *testing.T) {
+			// How many edges each graph sets aside, from --removed.
+			rmPath := filepath.Join(t.TempDir(), "removed.dot")
+			if code, _, errs := runCmd(t, "", "-q", "--removed", rmPath, path); code != exitOK {
+				t.Fatalf("exit %d: %s", code, errs)
+			}
+			rmSrc, err := os.ReadFile(rmPath)
+			if err != nil {
+				t.Fatal(err)
+			}
+			rm, err := dotio.Read(rmSrc, dotio.ReadOptions{Name: "removed"})
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, drop := range []bool{true, false} {
+				args := []string{"-q", path}
+				if drop {
+					args = append(args, "--drop-removed")
+				}
+				code, out, errs := runCmd(t, "", args...)
+				if code != exitOK {
+					t.Fatalf("exit %d: %s", code, errs)
+				}
+				f, err := dotio.Read([]byte(out), dotio.ReadOptions{Name: "out"})
+				if err != nil {
+					t.Fatal(err)
+				}
+				if len(rm.Graphs) != len(f.Graphs) {
+					t.Fatalf("%d graphs in --removed, %d in the output", len(rm.Graphs), len(f.Graphs))
+				}
+				for gi, g := range f.Graphs {
+					var geo, other []string
+					for _, p := range checkGraph(g, gi) {
+						if geometric(p) {
+							geo = append(geo, p.msg)
+						} else if p.kind != checkBoxOverlap {
+							other = append(other, p.msg)
+						}
+					}
+					if len(other) > 0 {
+						t.Errorf("drop=%v graph %d: input problems in the command's own output: %v", drop, gi, other)
+					}
+					setAside := len(rm.Graphs[gi].Edges) > 0
+					switch {
+					case (drop || !setAside) && len(geo) > 0:
+						t.Errorf("drop=%v graph %d: kept edges drawn with problems: %v", drop, gi, geo)
+					case !drop && setAside && len(geo) == 0:
+						t.Errorf("graph %d: %d edges were set aside, yet with them the drawing has no problem", gi, len(rm.Graphs[gi].Edges))
+					}
+				}
+			}
+		})
+	}
+}
