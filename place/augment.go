@@ -150,10 +150,11 @@ func (u *unionFind) union(a, b int32) int32 {
 // Otherwise such an edge v0 vi runs outside the face and separates
 // v1..v(i-1) from v(i+1)..v(k-1), so no edge joins those two sides: the face
 // is cut by v1 v(k-1), ..., v1 v(i+1) and then fanned from v(i+1) to
-// v2..v(i-1), all new and non-crossing. It returns, for each face it split,
-// the face size and one dart of a triangle made from it, so the caller can
-// pick an outer face inside a large face of the input.
-func triangulateFaces(emb *planarize.Embedding, skip func(int32) bool, onSplit func(size int, tri int32)) {
+// v2..v(i-1), all new and non-crossing. For each face it splits it calls onSplit with
+// the face and one dart of a triangle made from it, so the caller can
+// pick an outer face inside a chosen face of the input. The face's darts
+// are passed as they were before the split.
+func triangulateFaces(emb *planarize.Embedding, skip func(int32) bool, onSplit func(face []int32, tri int32)) {
 	n := emb.N()
 	seen := make([]bool, 2*emb.M())
 	for d := range seen {
@@ -226,7 +227,7 @@ func triangulateFaces(emb *planarize.Embedding, skip func(int32) bool, onSplit f
 			tri = face[k-1] // triangle v(k-1) v0 v1
 		}
 		if onSplit != nil {
-			onSplit(k, tri)
+			onSplit(face, tri)
 		}
 	}
 }

@@ -220,7 +220,8 @@ func augment(t *testing.T, name string, emb *planarize.Embedding) *planarize.Emb
 	}
 	before := work.M()
 	splits, sizes := 0, 0
-	triangulateFaces(work, noSkip, func(size int, tri int32) {
+	triangulateFaces(work, noSkip, func(face []int32, tri int32) {
+		size := len(face)
 		splits++
 		sizes += size - 3
 		if size < 4 || tri < 0 || int(tri) >= 2*work.M() {

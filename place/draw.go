@@ -41,6 +41,9 @@ type Result struct {
 	simple    [][2]int32
 	simpleOf  []int32
 	removedSP []int32
+	local     *Drawing   // the drawing in Draw's own numbering
+	newID     []int32    // caller's vertex -> Draw's numbering
+	keptLocal [][2]int32 // kept pairs in Draw's numbering
 }
 
 // Draw lays out the graph with n vertices and the given edges (ordered
@@ -115,6 +118,7 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
+	res.local, res.newID, res.keptLocal = d, newID, kept
 	// Back to the caller's numbering.
 	res.Drawing = *d
 	res.X, res.Y, res.bary = make([]int64, n), make([]int64, n), make([][3]int32, n)

@@ -3,6 +3,7 @@ package place
 import (
 	"errors"
 	"math"
+	"slices"
 
 	"github.com/gridwood/gridwood/planarize"
 )
@@ -20,6 +21,16 @@ type Drawing struct {
 	// component (zero for components of one or two vertices); tests check
 	// them against Schnyder's invariants.
 	bary [][3]int32
+
+	// Each component's vertices; with Options.Smooth also the augmented
+	// triangulation, each component's outer face (nil where no barycentric
+	// drawing was made) and the barycentric coordinates in a frame of side
+	// fineSpan (nil if none was made).
+	aug          *planarize.Embedding
+	members      [][]int32
+	triOuter     []int32 // the outer triangle of each Schnyder drawing, -1 if none
+	outer        []*outerRegion
+	fineX, fineY []int64
 }
 
 // Component describes one connected component of a drawing.
@@ -31,7 +42,23 @@ type Component struct {
 }
 
 // Options tune Layout. The zero value is the default.
-type Options struct{}
+type Options struct {
+	// Outer lists vertices that must lie on the outer face of their
+	// component. The outer face is otherwise a largest face of the input.
+	Outer []int32
+	// Compact removes grid columns and rows that can go without changing
+	// any crossing or touching (see compact); the grid bound still holds.
+	Compact bool
+	// Smooth, if positive, also computes for every component of 4 to
+	// tutteLimit vertices Tutte's barycentric drawing with its outer face
+	// on a convex polygon, solving for at most that many conjugate-gradient
+	// steps (see tutteDrawing); Space uses it where the grid crowds.
+	Smooth int
+}
+
+// ErrOuter reports that no face of the embedding holds all of
+// Options.Outer.
+var ErrOuter = errors.New("place: no face holds all the vertices asked for on the outer face")
 
 // Layout draws the embedded planar graph on the integer grid with straight,
 // non-crossing edges. Each connected component with n >= 3 vertices is
@@ -71,7 +98,7 @@ func simpleEdges(emb *planarize.Embedding) bool {
 }
 
 // layout is Layout on an embedding it may change.
-func layout(work *planarize.Embedding, _ Options) (*Drawing, error) {
+func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	n := work.N()
 	comp, members := components(work)
 	// A component that already has 3n-6 edges is a triangulation: it needs
@@ -90,21 +117,50 @@ func layout(work *planarize.Embedding, _ Options) (*Drawing, error) {
 		}
 	}
 	skip := func(v int32) bool { return full[comp[v]] }
+	chosen, err := chooseOuterFaces(work, comp, len(members), opt.Outer)
+	if err != nil {
+		return nil, err
+	}
 	work.Reserve(extra)
 	biconnect(work, skip)
-	// Prefer an outer triangle cut from the largest face of each
-	// component, so the drawing's outline follows a big face of the input.
-	bestSize := make([]int, len(members))
-	bestDart := make([]int32, len(members))
-	for i := range bestDart {
-		bestDart[i] = -1
+	// A chosen face that gets triangulated hands over one of its
+	// triangles: as the unbounded triangle it makes the whole face the
+	// outer face of the final drawing, once the dummy edges are gone.
+	wanted := make([]bool, 2*work.M())
+	outerDart := make([]int32, len(members))
+	regions := make([]*outerRegion, len(members))
+	for c, d := range chosen {
+		outerDart[c] = d
+		if d >= 0 {
+			wanted[d] = true
+			if opt.Smooth > 0 {
+				r := &outerRegion{}
+				for x := d; ; {
+					r.face = append(r.face, x)
+					if x = work.FaceNext(x); x == d {
+						break
+					}
+				}
+				regions[c] = r
+			}
+		}
 	}
-	triangulateFaces(work, skip, func(size int, tri int32) {
-		c := comp[work.Tail(tri)]
-		if size > bestSize[c] {
-			bestSize[c], bestDart[c] = size, tri
+	triangulateFaces(work, skip, func(face []int32, tri int32) {
+		for _, d := range face {
+			if int(d) < len(wanted) && wanted[d] {
+				c := comp[work.Tail(tri)]
+				outerDart[c] = tri
+				if r := regions[c]; r != nil {
+					// This face's dummies were the last len(face)-3 edges.
+					r.lo, r.hi = work.M()-(len(face)-3), work.M()
+				}
+				return
+			}
 		}
 	})
+	// Compaction keeps the whole triangulation plane, dummy edges too, so
+	// that the grid drawing can still be refined under exact checks.
+	origEdges := edgesByComponent(work, comp, len(members), work.M())
 	d := &Drawing{X: make([]int64, n), Y: make([]int64, n), bary: make([][3]int32, n)}
 	ww := newWoodWork(n)
 	index := make([]int32, n) // position of a vertex within its component
@@ -124,9 +180,18 @@ func layout(work *planarize.Embedding, _ Options) (*Drawing, error) {
 			boxes[c] = Component{Vertices: 2, W: 1}
 			continue
 		}
-		outer := bestDart[c]
+		outer := outerDart[c]
 		if outer < 0 {
 			outer = work.First(vs[0])
+		}
+		if opt.Smooth > 0 {
+			if d.triOuter == nil {
+				d.triOuter = make([]int32, len(members))
+				for i := range d.triOuter {
+					d.triOuter[i] = -1
+				}
+			}
+			d.triOuter[c] = outer
 		}
 		order = append(order[:0], make([]int32, len(vs))...)
 		if err := ww.canonicalOrder(work, outer, order); err != nil {
@@ -134,11 +199,22 @@ func layout(work *planarize.Embedding, _ Options) (*Drawing, error) {
 		}
 		coord = append(coord[:0], make([][3]int32, len(vs))...)
 		ww.barycentric(order, coord, index)
+		if r := regions[c]; r != nil && len(vs) >= 4 && len(vs) <= tutteLimit {
+			if d.fineX == nil {
+				d.fineX, d.fineY = make([]int64, n), make([]int64, n)
+				d.outer = make([]*outerRegion, len(members))
+			}
+			tutteDrawing(work, vs, r, d.fineX, d.fineY, opt.Smooth)
+			d.outer[c] = r
+		}
 		var w, h int64
 		for i, v := range vs {
 			d.bary[v] = coord[i]
 			d.X[v], d.Y[v] = int64(coord[i][0]), int64(coord[i][1])
 			w, h = max(w, d.X[v]), max(h, d.Y[v])
+		}
+		if opt.Compact {
+			w, h = compactComponent(work, d, vs, index, origEdges[c])
 		}
 		boxes[c] = Component{Vertices: len(vs), W: w, H: h, Barycentre: true}
 	}
@@ -152,6 +228,10 @@ func layout(work *planarize.Embedding, _ Options) (*Drawing, error) {
 		d.Height = max(d.Height, boxes[c].Y0+boxes[c].H)
 	}
 	d.Components = boxes
+	d.members = members
+	if opt.Smooth > 0 {
+		d.aug = work
+	}
 	return d, nil
 }
 
@@ -248,4 +328,93 @@ func isqrt(a int64) int64 {
 		r++
 	}
 	return r
+}
+
+// chooseOuterFaces picks, per component, a dart of the face to be the
+// outer one: a largest face, the first found in dart order on ties, or
+// when outer is given, a largest face holding all of those vertices in
+// their component. -1 leaves a component's choice open.
+func chooseOuterFaces(emb *planarize.Embedding, comp []int32, ncomp int, outer []int32) ([]int32, error) {
+	chosen := make([]int32, ncomp)
+	size := make([]int, ncomp)
+	for c := range chosen {
+		chosen[c] = -1
+	}
+	need := -1
+	mark := make([]int32, emb.N())
+	if len(outer) > 0 {
+		need = int(comp[outer[0]])
+		for _, v := range outer {
+			if int(comp[v]) != need {
+				return nil, ErrOuter
+			}
+			mark[v] = -1 // -1: wanted, not yet seen in this face
+		}
+	}
+	seen := make([]bool, 2*emb.M())
+	faceID := int32(0)
+	distinct := countDistinct(outer)
+	for d0 := int32(0); int(d0) < len(seen); d0++ {
+		if seen[d0] {
+			continue
+		}
+		faceID++
+		k, hits := 0, 0
+		for d := d0; !seen[d]; d = emb.FaceNext(d) {
+			seen[d] = true
+			k++
+			if v := emb.Tail(d); need >= 0 && mark[v] != 0 && mark[v] != faceID {
+				mark[v] = faceID
+				hits++
+			}
+		}
+		c := comp[emb.Tail(d0)]
+		if int(c) == need && hits < distinct {
+			continue
+		}
+		if k > size[c] {
+			size[c], chosen[c] = k, d0
+		}
+	}
+	if need >= 0 && chosen[need] < 0 {
+		return nil, ErrOuter
+	}
+	return chosen, nil
+}
+
+func countDistinct(vs []int32) int {
+	s := append([]int32(nil), vs...)
+	slices.Sort(s)
+	return len(slices.Compact(s))
+}
+
+// edgesByComponent lists the first m edges of emb per component, as pairs of positions within the
+// component's vertex list (see layout's index).
+func edgesByComponent(emb *planarize.Embedding, comp []int32, ncomp, m int) [][]int32 {
+	out := make([][]int32, ncomp)
+	for e := range m {
+		c := comp[emb.Edge(e)[0]]
+		out[c] = append(out[c], int32(e))
+	}
+	return out
+}
+
+// compactComponent compacts one component in place (coordinates relative
+// to its box) and returns its new extent.
+func compactComponent(emb *planarize.Embedding, d *Drawing, vs []int32, index []int32, edgeIDs []int32) (int64, int64) {
+	x := make([]int64, len(vs))
+	y := make([]int64, len(vs))
+	for i, v := range vs {
+		x[i], y[i] = d.X[v], d.Y[v]
+	}
+	pairs := make([][2]int32, len(edgeIDs))
+	for i, e := range edgeIDs {
+		ends := emb.Edge(int(e))
+		pairs[i] = [2]int32{index[ends[0]], index[ends[1]]}
+	}
+	w, h := compact(x, y, pairs)
+	for i, v := range vs {
+		d.X[v], d.Y[v] = x[i], y[i]
+	}
+	return w, h
 }

@@ -85,6 +85,17 @@ func FindKuratowski(n int, edges [][2]int32, subset, must []int32, budget *Budge
 		}
 	}
 	t := &tester{n: n, edges: edges, budget: budget}
+	inSubset := make(map[int32]bool, len(subset))
+	for _, e := range subset {
+		inSubset[e] = true
+	}
+	var mustIn []int32 // must edges outside subset are not part of the graph
+	for _, e := range must {
+		if inSubset[e] {
+			mustIn = append(mustIn, e)
+		}
+	}
+	must = mustIn
 	if len(must) > 0 {
 		subset = blockOf(n, edges, subset, must[0])
 	}

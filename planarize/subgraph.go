@@ -29,6 +29,12 @@ type Subgraph struct {
 // exactEdgeLimit is the largest block (in edges) given to the exact search.
 const exactEdgeLimit = 120
 
+// exactGapLimit is the largest gap between the greedy result and the lower
+// bound that the exact search tries to close: each step of the search
+// branches on a whole Kuratowski subgraph, so wider gaps only burn the
+// budget.
+const exactGapLimit = 6
+
 // exactTests bounds the planarity tests of one exact search at Effort 0.
 const exactTests = 40000
 
@@ -138,7 +144,7 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 	if len(best) == lower {
 		return best, lower, true
 	}
-	if len(edges) <= exactEdgeLimit {
+	if len(edges) <= exactEdgeLimit && len(best)-lower <= exactGapLimit {
 		budget := &Budget{Left: int64(exactTests) * int64(1+opt.Effort) * int64(len(edges)+1)}
 		for k := lower; k < len(best); k++ {
 			found, done := exactRemoval(n, edges, k, budget)

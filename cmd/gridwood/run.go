@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"math"
 	"os"
 	"path/filepath"
 	"runtime/debug"
@@ -27,6 +26,10 @@ const (
 	exitNonPlanar = 3 // a graph is not planar under --planar-only
 )
 
+// smoothSweeps bounds the conjugate-gradient steps of the barycentric
+// drawing (see place.Options.Smooth); Space uses it where the grid crowds.
+const smoothSweeps = 400
+
 // Work bounds for --explain, in edge visits of planarity tests, so that the
 // output never depends on timing.
 const (
@@ -37,7 +40,8 @@ const (
 // config holds the parsed command line.
 type config struct {
 	output       string
-	unit         float64
+	unit         int
+	gridOnly     bool
 	quiet        bool
 	removedFile  string
 	dropRemoved  bool
@@ -96,7 +100,8 @@ func parseFlags(args []string, stderr io.Writer) (*config, error) {
 	fs.SetOutput(io.Discard)
 	fs.SortFlags = false
 	fs.StringVarP(&cfg.output, "output", "o", "", "write the laid-out DOT to `FILE` instead of standard output\n(written to a temporary file first, then renamed: a failed run leaves FILE as it was)\nexample: -o site.laid.dot")
-	fs.Float64VarP(&cfg.unit, "unit", "u", 72, "points per grid step; positions are integer multiples of it plus a margin\nexample: --unit 36")
+	fs.IntVarP(&cfg.unit, "unit", "u", 0, "points per grid step, keeping every node on the grid; 0 chooses the spacing\nfrom the node sizes and labels (see README, Spacing)\nexample: --unit 36")
+	fs.BoolVar(&cfg.gridOnly, "grid", false, "keep every node on its grid point even where the grid drawing is crowded\n(the spacing is still chosen from the node sizes)")
 	fs.BoolVarP(&cfg.quiet, "quiet", "q", false, "print nothing on standard error except errors")
 	fs.StringVar(&cfg.removedFile, "removed", "", "write the edges set aside to make a graph planar to `FILE`, as DOT:\none graph per input graph, one edge per line, with its attributes\nexample: --removed removed.dot")
 	fs.BoolVar(&cfg.dropRemoved, "drop-removed", false, "leave the set-aside edges out of the main output")
@@ -121,8 +126,8 @@ func parseFlags(args []string, stderr io.Writer) (*config, error) {
 		fmt.Fprintf(stderr, "gridwood %s\n", versionString())
 		return nil, errVersionShown
 	}
-	if !(cfg.unit > 0) || cfg.unit > 1e6 || math.IsInf(cfg.unit, 0) {
-		return nil, &usageError{fmt.Sprintf("--unit %v: want a number of points between 0 and 1000000", cfg.unit)}
+	if cfg.unit < 0 || cfg.unit > 100000 {
+		return nil, &usageError{fmt.Sprintf("--unit %d: want 0 (automatic) to 100000 points", cfg.unit)}
 	}
 	if cfg.effort < 0 || cfg.effort > 1000 {
 		return nil, &usageError{fmt.Sprintf("--effort %d: want 0 to 1000", cfg.effort)}
@@ -332,18 +337,17 @@ func layoutGraph(cfg *config, g *dotio.Graph) (*place.Result, dotio.Layout, erro
 		edges[i] = [2]int32{e.From, e.To}
 	}
 	res, err := place.Draw(len(g.Nodes), edges, place.DrawOptions{
+		Layout:   place.Options{Compact: true, Smooth: smoothSweeps},
 		Subgraph: planarize.SubgraphOptions{Effort: cfg.effort},
 	})
 	if err != nil {
 		return nil, dotio.Layout{}, err
 	}
-	mx, my := margins(g)
-	lay := dotio.Layout{X: make([]int64, len(g.Nodes)), Y: make([]int64, len(g.Nodes))}
-	for v := range g.Nodes {
-		lay.X[v] = mx + int64(math.Round(float64(res.X[v])*cfg.unit))
-		lay.Y[v] = my + int64(math.Round(float64(res.Y[v])*cfg.unit))
+	sp, err := res.Space(nodeBoxes(g), place.SpaceOptions{Unit: int64(cfg.unit), GridOnly: cfg.gridOnly})
+	if err != nil {
+		return nil, dotio.Layout{}, err
 	}
-	lay.BB = [4]int64{0, 0, 2*mx + int64(math.Round(float64(res.Width)*cfg.unit)), 2*my + int64(math.Round(float64(res.Height)*cfg.unit))}
+	lay := dotio.Layout{X: sp.X, Y: sp.Y, BB: [4]int64{0, 0, sp.Width, sp.Height}}
 	if len(res.Removed) > 0 {
 		lay.Removed = make([]bool, len(g.Edges))
 		for _, i := range res.Removed {
@@ -356,21 +360,6 @@ func layoutGraph(cfg *config, g *dotio.Graph) (*place.Result, dotio.Layout, erro
 // DOT's default node size in inches (from memory of its documentation, see
 // ../shared/REFERENCES.md).
 const defaultWidth, defaultHeight = 0.75, 0.5
-
-// margins returns half the largest node width and height in points, so
-// that the bounding box holds every node's box, not only its centre.
-func margins(g *dotio.Graph) (int64, int64) {
-	w, h := defaultWidth, defaultHeight
-	for _, n := range g.Nodes {
-		if x, err := strconv.ParseFloat(n.Attrs.Width, 64); err == nil && x > w && x < 1e4 {
-			w = x
-		}
-		if y, err := strconv.ParseFloat(n.Attrs.Height, 64); err == nil && y > h && y < 1e4 {
-			h = y
-		}
-	}
-	return int64(math.Ceil(w * 72 / 2)), int64(math.Ceil(h * 72 / 2))
-}
 
 func graphName(g *dotio.Graph, index int) string {
 	kind := "graph"

@@ -43,7 +43,7 @@ func layOut(t *testing.T, src string) []svgGraph {
 	}
 	var out []svgGraph
 	for _, g := range f.Graphs {
-		_, lay, err := layoutGraph(&config{unit: 72}, g)
+		_, lay, err := layoutGraph(&config{}, g)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -350,7 +350,7 @@ func TestSVGRendersInChromium(t *testing.T) {
 	}
 	root := parseSVG(t, buf.Bytes())
 	w, h := atof(t, root.attr("width")), atof(t, root.attr("height"))
-	if w > 800 || h > 600 {
+	if w > 1200 || h > 1000 {
 		t.Fatalf("test drawing is %v x %v, larger than the window", w, h)
 	}
 	nodeArea := 0.0
@@ -370,7 +370,7 @@ func TestSVGRendersInChromium(t *testing.T) {
 	defer cancel()
 	cmd := exec.CommandContext(ctx, bin, "--headless", "--no-sandbox", "--disable-gpu", "--disable-quic",
 		"--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync",
-		"--user-data-dir="+filepath.Join(dir, "profile"), "--screenshot="+pngPath, "--window-size=800,600",
+		"--user-data-dir="+filepath.Join(dir, "profile"), "--screenshot="+pngPath, "--window-size=1200,1000",
 		"file://"+svgPath)
 	cmd.Env = append(os.Environ(), "HOME="+dir)
 	if out, err := cmd.CombinedOutput(); err != nil {

@@ -1,0 +1,107 @@
+package main
+
+import (
+	"math"
+	"strconv"
+	"strings"
+	"unicode/utf8"
+
+	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/place"
+)
+
+// Node box rule (README, "Spacing"): a node's box is its width and height
+// attributes (inches; DOT's defaults 0.75 and 0.5, from memory of its
+// documentation), grown to hold its label unless fixedsize=true. A label
+// line is estimated at 0.6 em per character and 1.2 em per line (common
+// practice for proportional fonts), with 8 points of padding on each side
+// across and 4 above and below; fontsize defaults to 14 points. Circles
+// are as wide as they are tall. Boxes keep a quarter inch clear.
+const (
+	boxGap        = 18 // points
+	labelPadX     = 16 // points, both sides together
+	labelPadY     = 8
+	defaultFont   = 14.0
+	charWidthEm   = 0.6
+	lineHeightEm  = 1.2
+	pointsPerInch = 72
+)
+
+// nodeBoxes computes the half sizes, in points, of every node's box.
+func nodeBoxes(g *dotio.Graph) place.Boxes {
+	b := place.Boxes{HalfW: make([]int64, len(g.Nodes)), HalfH: make([]int64, len(g.Nodes)), Gap: boxGap}
+	for i, n := range g.Nodes {
+		w := attrInches(n.Attrs.Width, defaultWidth) * pointsPerInch
+		h := attrInches(n.Attrs.Height, defaultHeight) * pointsPerInch
+		shape := strings.ToLower(n.Attrs.Shape)
+		if shape == "point" {
+			w, h = min(w, 0.05*pointsPerInch), min(h, 0.05*pointsPerInch)
+		} else if !strings.EqualFold(n.Attrs.FixedSize, "true") {
+			tw, th := labelSize(n)
+			w, h = max(w, tw+labelPadX), max(h, th+labelPadY)
+		}
+		switch shape {
+		case "circle", "doublecircle", "point":
+			w = max(w, h)
+			h = w
+		}
+		b.HalfW[i] = int64(math.Ceil(w / 2))
+		b.HalfH[i] = int64(math.Ceil(h / 2))
+	}
+	return b
+}
+
+func attrInches(s string, def float64) float64 {
+	if v, err := strconv.ParseFloat(strings.TrimSpace(s), 64); err == nil && v >= 0 && v < 1000 {
+		return v
+	}
+	return def
+}
+
+// labelSize estimates the label's text extent in points.
+func labelSize(n dotio.Node) (float64, float64) {
+	font := defaultFont
+	if v, err := strconv.ParseFloat(strings.TrimSpace(n.Attrs.FontSize), 64); err == nil && v > 0 && v < 1000 {
+		font = v
+	}
+	text := n.Attrs.Label
+	if text == "" {
+		text = n.Name
+	}
+	if strings.HasPrefix(text, "<") && strings.HasSuffix(text, ">") {
+		text = stripTags(text[1 : len(text)-1])
+	}
+	text = strings.ReplaceAll(text, `\N`, n.Name)
+	for _, esc := range []string{`\l`, `\r`} {
+		text = strings.ReplaceAll(text, esc, `\n`)
+	}
+	lines := strings.Split(text, `\n`)
+	widest := 0
+	for _, l := range lines {
+		widest = max(widest, utf8.RuneCountInString(l))
+	}
+	return float64(widest) * charWidthEm * font, float64(len(lines)) * lineHeightEm * font
+}
+
+// stripTags drops <...> markup from an HTML-like label, turning <br/> into
+// line breaks.
+func stripTags(s string) string {
+	var out strings.Builder
+	for len(s) > 0 {
+		i := strings.IndexByte(s, '<')
+		if i < 0 {
+			out.WriteString(s)
+			break
+		}
+		out.WriteString(s[:i])
+		j := strings.IndexByte(s[i:], '>')
+		if j < 0 {
+			break
+		}
+		if tag := strings.ToLower(s[i+1 : i+j]); strings.HasPrefix(tag, "br") {
+			out.WriteString(`\n`)
+		}
+		s = s[i+j+1:]
+	}
+	return out.String()
+}

@@ -1,0 +1,174 @@
+package place
+
+import (
+	"math"
+
+	"github.com/gridwood/gridwood/planarize"
+)
+
+// refineRounds bounds the push rounds of refine.
+const refineRounds = 40
+
+// refine pushes vertices away from what crowds them, in the spirit of
+// F. Bertault's planarity-preserving force-directed refinement ("A
+// force-directed algorithm that preserves edge-crossing properties",
+// Inform. Process. Lett. 74, 2000), but with an exact guard instead of
+// movement zones: a vertex is pushed away from node boxes that overlap its
+// own and from edges that pass through its box, and the move is taken only
+// if every triangle of the augmented triangulation at that vertex keeps
+// the orientation of the inner faces (tested in integers), halving the
+// step until it does. The boundary of the drawing stays put. So the
+// drawing stays plane after every move (see planeDrawing), while the need
+// to stretch the whole drawing to clear its boxes shrinks.
+func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32) {
+	if len(vs) < 4 {
+		return
+	}
+	fixed := make(map[int32]bool, len(outer.face))
+	for _, d := range outer.face {
+		fixed[emb.Tail(d)] = true
+	}
+	innerSign := 0
+	for _, v := range vs {
+		if !fixed[v] {
+			innerSign = triangleSign(emb, emb.First(v), x, y)
+			break
+		}
+	}
+	if innerSign == 0 {
+		return
+	}
+	valid := func(v int32, px, py int64) bool {
+		h := emb.First(v)
+		for range emb.Degree(v) {
+			a, b := emb.Head(h), emb.Head(emb.Next(h))
+			if orient(px, py, x[a], y[a], x[b], y[b]) != innerSign {
+				return false
+			}
+			h = emb.Next(h)
+		}
+		return true
+	}
+	var reach int64
+	for _, v := range vs {
+		reach = max(reach, hw[v]+gap, hh[v]+gap)
+	}
+	cell := max(1, 2*reach)
+	pushX := make(map[int32]float64)
+	pushY := make(map[int32]float64)
+	for round := 0; round < refineRounds; round++ {
+		clear(pushX)
+		clear(pushY)
+		grid := newBucketGrid(vs, x, y, cell)
+		// Overlapping boxes push each other apart along the axis that
+		// needs the smaller move.
+		for _, u := range vs {
+			cx, cy := grid.cellOf(x[u], y[u])
+			for gx := cx - 1; gx <= cx+1; gx++ {
+				for gy := cy - 1; gy <= cy+1; gy++ {
+					for _, w := range grid.at(gx, gy) {
+						if w <= u {
+							continue
+						}
+						dx, dy := x[w]-x[u], y[w]-y[u]
+						ox := hw[u] + hw[w] + gap - abs64(dx)
+						oy := hh[u] + hh[w] + gap - abs64(dy)
+						if ox <= 0 || oy <= 0 {
+							continue
+						}
+						if ox <= oy {
+							s := sign64(dx, u < w)
+							pushX[u] -= float64(s * ox / 2)
+							pushX[w] += float64(s * ox / 2)
+						} else {
+							s := sign64(dy, u < w)
+							pushY[u] -= float64(s * oy / 2)
+							pushY[w] += float64(s * oy / 2)
+						}
+					}
+				}
+			}
+		}
+		// An edge through a box pushes that vertex off it, along the
+		// edge's normal, by the depth of the intrusion.
+		for _, v := range vs {
+			stamp[v] = -1
+		}
+		for ei, e := range edges {
+			u, v := e[0], e[1]
+			ex, ey := x[v]-x[u], y[v]-y[u]
+			length := math.Sqrt(float64(ex)*float64(ex) + float64(ey)*float64(ey))
+			if length == 0 {
+				continue
+			}
+			steps := int(length/float64(cell)) + 1
+			for k := 0; k <= steps; k++ {
+				t := float64(k) / float64(steps)
+				cx, cy := grid.cellOf(x[u]+int64(t*float64(ex)), y[u]+int64(t*float64(ey)))
+				for gx := cx - 1; gx <= cx+1; gx++ {
+					for gy := cy - 1; gy <= cy+1; gy++ {
+						for _, w := range grid.at(gx, gy) {
+							if w == u || w == v || stamp[w] == int32(ei) {
+								continue
+							}
+							stamp[w] = int32(ei)
+							wx, wy := x[w]-x[u], y[w]-y[u]
+							dot := wx*ex + wy*ey
+							if dot <= 0 || dot >= ex*ex+ey*ey {
+								continue
+							}
+							cross := float64(ex*wy - ey*wx) // signed, |cross| = dist * length
+							dist := math.Abs(cross) / length
+							reachN := (float64(hw[w]+edgeGap)*math.Abs(float64(ey)) + float64(hh[w]+edgeGap)*math.Abs(float64(ex))) / length
+							if dist >= reachN {
+								continue
+							}
+							// Unit normal towards w's side.
+							nx, ny := -float64(ey)/length, float64(ex)/length
+							if cross < 0 {
+								nx, ny = -nx, -ny
+							}
+							depth := reachN - dist + 1
+							pushX[w] += float64(nx * depth)
+							pushY[w] += float64(ny * depth)
+						}
+					}
+				}
+			}
+		}
+		moved := false
+		for _, v := range vs {
+			if fixed[v] {
+				continue
+			}
+			dx, dy := int64(math.Round(pushX[v])), int64(math.Round(pushY[v]))
+			for try := 0; try < 8 && (dx != 0 || dy != 0); try++ {
+				if valid(v, x[v]+dx, y[v]+dy) {
+					x[v] += dx
+					y[v] += dy
+					moved = true
+					break
+				}
+				dx /= 2
+				dy /= 2
+			}
+		}
+		if !moved {
+			return
+		}
+	}
+}
+
+// sign64 is the sign of d, or +1/-1 chosen by tie when d is 0 so that
+// coincident boxes still separate.
+func sign64(d int64, tie bool) int64 {
+	switch {
+	case d > 0:
+		return 1
+	case d < 0:
+		return -1
+	case tie:
+		return 1
+	}
+	return -1
+}

@@ -1,0 +1,408 @@
+package place
+
+import (
+	"errors"
+	"math"
+	"slices"
+
+	"github.com/gridwood/gridwood/planarize"
+)
+
+// Boxes gives each vertex's node box in points, as half width and half
+// height around its position, and the clear space wanted between two boxes
+// and between a box and an edge that does not end at it.
+type Boxes struct {
+	HalfW, HalfH []int64
+	Gap          int64
+}
+
+// SpaceOptions tune Space. The zero value is the default.
+type SpaceOptions struct {
+	// Unit fixes the points per grid step and keeps every component on its
+	// grid (no smoothing, no extra spacing). 0 chooses it from the boxes.
+	Unit int64
+	// GridOnly keeps every component on its grid, with the unit chosen
+	// from the boxes, however crowded.
+	GridOnly bool
+}
+
+// Placed is a drawing in points, ready for DOT: X, Y are node centres and
+// every node box lies inside [0, Width] x [0, Height].
+type Placed struct {
+	X, Y          []int64
+	Width, Height int64
+	// Unit is the base points per grid step, from the boxes or as given.
+	Unit int64
+	// Smoothed counts the components drawn from their smoothed drawing
+	// rather than the grid.
+	Smoothed int
+	// Unchecked counts components too big for the box-clearance check,
+	// spaced by Unit alone.
+	Unchecked int
+}
+
+// Limits of the spacing rule, as multiples of the base unit.
+const (
+	// maxStretch caps any stretching: beyond it the drawing stays crowded
+	// and the report says so (its smallest vertex-edge distance).
+	maxStretch = 8
+	// edgeGap is the clear space, in points, between a node box and an
+	// edge passing by: enough that the edge visibly misses the box.
+	edgeGap = 4
+	// spaceWork bounds the cell visits of one clearance check.
+	spaceWork = 20_000_000
+)
+
+var errBoxes = errors.New("place: box sizes do not match the vertices")
+
+// Space turns the grid drawing into positions in points that respect the
+// node boxes. The rule, per connected component:
+//
+//   - the base unit is the largest box side plus the gap, so two boxes on
+//     distinct grid points never overlap;
+//   - the grid drawing at the base unit is stretched by the least factor
+//     that keeps every edge off the boxes of the nodes it does not end at
+//     (computed per vertex-edge pair near each other);
+//   - if a barycentric drawing was computed (Options.Smooth), it is scaled
+//     so its median edge is one base unit, rounded to integer points,
+//     checked exactly to still be a plane drawing (doubling the scale until
+//     it is), and stretched by an integer factor to clear the boxes in the
+//     same way; it replaces the grid drawing when it then needs less area;
+//   - stretching never exceeds 8 times; integer stretching keeps every
+//     orientation, so no crossing can appear.
+//
+// Components are then packed in rows, one base unit apart.
+func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
+	n := len(r.X)
+	if len(b.HalfW) != n || len(b.HalfH) != n {
+		return nil, errBoxes
+	}
+	d := r.local
+	// Boxes in the local numbering.
+	hw, hh := make([]int64, n), make([]int64, n)
+	for v, w := range r.newID {
+		hw[w], hh[w] = max(0, b.HalfW[v]), max(0, b.HalfH[v])
+	}
+	gap := max(0, b.Gap)
+	unit := opt.Unit
+	if unit <= 0 {
+		for v := range n {
+			unit = max(unit, 2*max(hw[v], hh[v]))
+		}
+		unit = max(1, unit+gap)
+	}
+	out := &Placed{X: make([]int64, n), Y: make([]int64, n), Unit: unit}
+	members := d.members
+	compOf := make([]int32, n)
+	for c, vs := range members {
+		for _, v := range vs {
+			compOf[v] = int32(c)
+		}
+	}
+	edgesOf := make([][][2]int32, len(members))
+	for _, e := range r.keptLocal {
+		c := compOf[e[0]]
+		edgesOf[c] = append(edgesOf[c], e)
+	}
+	px, py := make([]int64, n), make([]int64, n) // local numbering
+	tx, ty := make([]int64, n), make([]int64, n) // a second candidate
+	stamp := make([]int32, n)
+	boxes := make([]Component, len(members))
+	var seen []bool
+	if d.aug != nil {
+		seen = make([]bool, 2*d.aug.M())
+	}
+	for c, vs := range members {
+		box := d.Components[c]
+		grid := func(scale int64) {
+			for _, v := range vs {
+				px[v], py[v] = (d.X[v]-box.X0)*scale, (d.Y[v]-box.Y0)*scale
+			}
+		}
+		grid(unit)
+		if opt.Unit <= 0 {
+			r.spaceComponent(c, vs, edgesOf[c], unit, hw, hh, gap, opt.GridOnly, px, py, tx, ty, seen, stamp, out)
+		}
+		// The component's box, node boxes included, moved to the origin.
+		minX, minY, maxX, maxY := int64(math.MaxInt64), int64(math.MaxInt64), int64(math.MinInt64), int64(math.MinInt64)
+		for _, v := range vs {
+			minX, minY = min(minX, px[v]-hw[v]), min(minY, py[v]-hh[v])
+			maxX, maxY = max(maxX, px[v]+hw[v]), max(maxY, py[v]+hh[v])
+		}
+		for _, v := range vs {
+			px[v] -= minX
+			py[v] -= minY
+		}
+		boxes[c] = Component{Vertices: len(vs), W: maxX - minX, H: maxY - minY}
+	}
+	packSpaced(boxes, unit)
+	for c, vs := range members {
+		for _, v := range vs {
+			px[v] += boxes[c].X0
+			py[v] += boxes[c].Y0
+		}
+		out.Width = max(out.Width, boxes[c].X0+boxes[c].W)
+		out.Height = max(out.Height, boxes[c].Y0+boxes[c].H)
+	}
+	// Back to the caller's numbering.
+	for v, w := range r.newID {
+		out.X[v], out.Y[v] = px[w], py[w]
+	}
+	return out, nil
+}
+
+// spaceComponent chooses and spaces one component's drawing. px, py hold
+// its grid drawing at the base unit on entry and the result on return; tx,
+// ty are scratch.
+func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, px, py, tx, ty []int64, seen []bool, stamp []int32, out *Placed) {
+	d := r.local
+	var gridRegion *outerRegion
+	if d.aug != nil && d.triOuter != nil && d.triOuter[c] >= 0 {
+		f0 := d.triOuter[c]
+		f1 := d.aug.FaceNext(f0)
+		gridRegion = &outerRegion{face: []int32{f0, f1, d.aug.FaceNext(f1)}}
+	}
+	if gridRegion != nil && !gridOnly {
+		refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp)
+	}
+	stretch, checked := neededStretch(vs, edges, px, py, hw, hh, gap, stamp)
+	if !checked {
+		out.Unchecked++
+	}
+	region := gridRegion
+	if !gridOnly && d.fineX != nil && d.outer[c] != nil && r.barycentricPoints(c, vs, edges, unit, tx, ty, seen) {
+		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp)
+		s2, _ := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp)
+		if clearedArea(vs, tx, ty, s2, hw, hh) < clearedArea(vs, px, py, stretch, hw, hh) {
+			for _, v := range vs {
+				px[v], py[v] = tx[v], ty[v]
+			}
+			stretch, region = s2, d.outer[c]
+			out.Smoothed++
+		}
+	}
+	stretchComponent(d.aug, vs, region, px, py, min(stretch, maxStretch), tx, ty, seen)
+}
+
+// barycentricPoints writes component c's barycentric drawing in points
+// into x, y, scaled so that its median edge is one unit, and reports
+// whether it rounds to a plane drawing (doubling the scale up to 7 times
+// until it does).
+func (r *Result) barycentricPoints(c int, vs []int32, edges [][2]int32, unit int64, x, y []int64, seen []bool) bool {
+	d := r.local
+	fx, fy := d.fineX, d.fineY
+	lengths := make([]float64, 0, len(edges))
+	for _, e := range edges {
+		dx, dy := float64(fx[e[0]]-fx[e[1]]), float64(fy[e[0]]-fy[e[1]])
+		lengths = append(lengths, math.Sqrt(float64(dx*dx)+float64(dy*dy)))
+	}
+	if len(lengths) == 0 {
+		return false
+	}
+	slices.Sort(lengths)
+	median := lengths[len(lengths)/2]
+	if median <= 0 {
+		return false
+	}
+	scale := float64(unit) / median
+	for attempt := 0; attempt < 8; attempt, scale = attempt+1, scale*2 {
+		for _, v := range vs {
+			x[v] = int64(math.Round(float64(fx[v]) * scale))
+			y[v] = int64(math.Round(float64(fy[v]) * scale))
+		}
+		if planeDrawing(d.aug, vs, d.outer[c], x, y, seen) {
+			return true
+		}
+	}
+	return false
+}
+
+// stretchComponent scales the component's positions by s >= 1. A scale
+// rounded to integers is checked exactly to stay a plane drawing (when the
+// triangulation is known); failing that, the positions are multiplied by
+// the integer ceil(s), which keeps every orientation.
+func stretchComponent(aug *planarize.Embedding, vs []int32, region *outerRegion, x, y []int64, s float64, tx, ty []int64, seen []bool) {
+	if s <= 1 {
+		return
+	}
+	if aug != nil && region != nil {
+		for _, v := range vs {
+			tx[v] = int64(math.Round(float64(float64(x[v]) * s)))
+			ty[v] = int64(math.Round(float64(float64(y[v]) * s)))
+		}
+		if planeDrawing(aug, vs, region, tx, ty, seen) {
+			for _, v := range vs {
+				x[v], y[v] = tx[v], ty[v]
+			}
+			return
+		}
+	}
+	k := int64(math.Ceil(s))
+	for _, v := range vs {
+		x[v] *= k
+		y[v] *= k
+	}
+}
+
+// neededStretch returns the least factor s >= 1 by which the component's
+// point positions must be scaled so that no two node boxes (grown by gap)
+// overlap and no edge passes through the grown box of a vertex it does not
+// end at, where that vertex lies alongside the edge (its projection falls
+// strictly inside the edge). checked is false when the work bound stopped
+// the search (s is then 1).
+func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32) (s float64, checked bool) {
+	s = 1
+	if len(vs) < 2 {
+		return s, true
+	}
+	var reach int64 // the largest grown half size
+	for _, v := range vs {
+		reach = max(reach, hw[v]+gap, hh[v]+gap)
+	}
+	cell := max(1, 2*reach)
+	grid := newBucketGrid(vs, x, y, cell)
+	work := 0
+	// Box pairs: only vertices in neighbouring cells can be that close.
+	for _, u := range vs {
+		cx, cy := grid.cellOf(x[u], y[u])
+		for gx := cx - 1; gx <= cx+1; gx++ {
+			for gy := cy - 1; gy <= cy+1; gy++ {
+				for _, w := range grid.at(gx, gy) {
+					work++
+					if w <= u {
+						continue
+					}
+					dx, dy := abs64(x[u]-x[w]), abs64(y[u]-y[w])
+					needX, needY := hw[u]+hw[w]+gap, hh[u]+hh[w]+gap
+					if dx >= needX || dy >= needY {
+						continue
+					}
+					// Separating along either axis is enough.
+					f := math.Inf(1)
+					if dx > 0 {
+						f = float64(needX) / float64(dx)
+					}
+					if dy > 0 {
+						f = min(f, float64(needY)/float64(dy))
+					}
+					s = max(s, f)
+				}
+			}
+		}
+	}
+	// Vertex-edge pairs: walk each edge's cells.
+	for _, v := range vs {
+		stamp[v] = -1
+	}
+	for ei, e := range edges {
+		u, v := e[0], e[1]
+		ex, ey := x[v]-x[u], y[v]-y[u]
+		length := math.Sqrt(float64(ex)*float64(ex) + float64(ey)*float64(ey))
+		steps := int(length/float64(cell)) + 1
+		work += 9 * steps
+		if work > spaceWork {
+			return 1, false
+		}
+		for k := 0; k <= steps; k++ {
+			t := float64(k) / float64(steps)
+			cx, cy := grid.cellOf(x[u]+int64(t*float64(ex)), y[u]+int64(t*float64(ey)))
+			for gx := cx - 1; gx <= cx+1; gx++ {
+				for gy := cy - 1; gy <= cy+1; gy++ {
+					for _, w := range grid.at(gx, gy) {
+						if w == u || w == v || stamp[w] == int32(ei) {
+							continue
+						}
+						stamp[w] = int32(ei)
+						wx, wy := x[w]-x[u], y[w]-y[u]
+						dot := wx*ex + wy*ey
+						if dot <= 0 || dot >= ex*ex+ey*ey {
+							continue // not alongside the edge
+						}
+						cross := abs64(ex*wy - ey*wx)
+						if cross == 0 {
+							continue // on the edge: a broken drawing, not a spacing matter
+						}
+						need := float64(hw[w]+edgeGap)*float64(abs64(ey)) + float64(hh[w]+edgeGap)*float64(abs64(ex))
+						s = max(s, need/float64(cross))
+					}
+				}
+			}
+		}
+	}
+	return s, true
+}
+
+// clearedArea is the area of the component's bounding box, node boxes
+// included, once its positions are scaled by s.
+func clearedArea(vs []int32, x, y []int64, s float64, hw, hh []int64) float64 {
+	minX, minY := math.Inf(1), math.Inf(1)
+	maxX, maxY := math.Inf(-1), math.Inf(-1)
+	for _, v := range vs {
+		fx, fy := float64(float64(x[v])*s), float64(float64(y[v])*s)
+		minX, minY = min(minX, fx-float64(hw[v])), min(minY, fy-float64(hh[v]))
+		maxX, maxY = max(maxX, fx+float64(hw[v])), max(maxY, fy+float64(hh[v]))
+	}
+	return (maxX - minX) * (maxY - minY)
+}
+
+func abs64(v int64) int64 {
+	if v < 0 {
+		return -v
+	}
+	return v
+}
+
+// bucketGrid files vertices by square cells.
+type bucketGrid struct {
+	cell  int64
+	cells map[[2]int64][]int32
+}
+
+func newBucketGrid(vs []int32, x, y []int64, cell int64) *bucketGrid {
+	g := &bucketGrid{cell: cell, cells: make(map[[2]int64][]int32, len(vs))}
+	for _, v := range vs {
+		cx, cy := g.cellOf(x[v], y[v])
+		k := [2]int64{cx, cy}
+		g.cells[k] = append(g.cells[k], v)
+	}
+	return g
+}
+
+func (g *bucketGrid) cellOf(x, y int64) (int64, int64) {
+	return floorDiv(x, g.cell), floorDiv(y, g.cell)
+}
+
+func (g *bucketGrid) at(cx, cy int64) []int32 { return g.cells[[2]int64{cx, cy}] }
+
+func floorDiv(a, b int64) int64 {
+	q := a / b
+	if a%b != 0 && (a < 0) != (b < 0) {
+		q--
+	}
+	return q
+}
+
+// packSpaced places component boxes (sizes in points) in rows, gap apart,
+// like pack does for grid boxes.
+func packSpaced(boxes []Component, gap int64) {
+	if len(boxes) == 0 {
+		return
+	}
+	var area, widest int64
+	for _, b := range boxes {
+		area += (b.W + gap) * (b.H + gap)
+		widest = max(widest, b.W)
+	}
+	limit := max(widest, isqrt(area))
+	var x, y, rowH int64
+	for i := range boxes {
+		b := &boxes[i]
+		if x > 0 && x+b.W > limit {
+			y += rowH + gap
+			x, rowH = 0, 0
+		}
+		b.X0, b.Y0 = x, y
+		x += b.W + gap
+		rowH = max(rowH, b.H)
+	}
+}

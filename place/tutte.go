@@ -1,0 +1,256 @@
+package place
+
+import "github.com/gridwood/gridwood/planarize"
+
+// fineSpan is the side of the integer frame the barycentric drawing is
+// rounded into: fine enough for detail, small enough that orientation
+// tests on its coordinates stay exact in int64.
+const fineSpan = 1 << 30
+
+// tutteLimit is the largest component given a barycentric drawing; bigger
+// ones keep their grid drawing.
+const tutteLimit = 20000
+
+// outerRegion describes a component's outer face F as the layout chose it:
+// its darts in face order (F on their left) and the dummy edges that
+// triangulated F, numbered lo..hi-1 (none when F was a triangle).
+type outerRegion struct {
+	face   []int32
+	lo, hi int
+}
+
+func (o *outerRegion) isDummy(e int32) bool { return int(e) >= o.lo && int(e) < o.hi }
+
+// tutteDrawing computes W. T. Tutte's barycentric drawing ("How to draw a
+// graph", Proc. London Math. Soc. 13, 1963) of one component of the
+// augmented triangulation, with the outer face F pinned to a convex polygon
+// and F's own dummy edges left out: every other vertex sits at the average
+// of its neighbours. The linear system is solved by conjugate gradients
+// (Hestenes and Stiefel 1952) for at most iters steps and the result
+// rounded into the frame [0, fineSpan]^2. A triangulated disk with a
+// convex boundary drawn this way is a plane drawing (Tutte's theorem, and
+// for triangulations Floater 2003), but rounding and an unfinished solve
+// could spoil it, so the caller checks it exactly with planeDrawing. x, y
+// receive the coordinates of the component's vertices.
+func tutteDrawing(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y []int64, iters int) {
+	k := len(outer.face)
+	onOuter := make(map[int32]bool, k)
+	// The polygon: F is walked with the outer face on its left, which is
+	// clockwise in the final picture, so place its vertices clockwise.
+	half := float64(fineSpan / 2)
+	for i, d := range outer.face {
+		v := emb.Tail(d)
+		onOuter[v] = true
+		c, s := circlePoint(i, k)
+		x[v] = int64(half + float64(half*c))
+		y[v] = int64(half - float64(half*s))
+	}
+	inner := make([]int32, 0, len(vs))
+	index := make(map[int32]int32, len(vs))
+	for _, v := range vs {
+		if !onOuter[v] {
+			index[v] = int32(len(inner))
+			inner = append(inner, v)
+		}
+	}
+	m := len(inner)
+	if m == 0 {
+		return
+	}
+	// A = D - (adjacency among inner vertices), b = sum of pinned
+	// neighbours. Each inner vertex's neighbours in rotation order.
+	deg := make([]float64, m)
+	var nbrStart = make([]int32, m+1)
+	var nbr []int32 // inner index, or -1 - outer vertex
+	for i, v := range inner {
+		h := emb.First(v)
+		for range emb.Degree(v) {
+			w := emb.Head(h)
+			if j, ok := index[w]; ok {
+				nbr = append(nbr, j)
+			} else {
+				nbr = append(nbr, -1-w)
+			}
+			deg[i]++
+			h = emb.Next(h)
+		}
+		nbrStart[i+1] = int32(len(nbr))
+	}
+	mul := func(p, out []float64) {
+		for i := range m {
+			s := float64(deg[i] * p[i])
+			for _, j := range nbr[nbrStart[i]:nbrStart[i+1]] {
+				if j >= 0 {
+					s -= p[j]
+				}
+			}
+			out[i] = s
+		}
+	}
+	solve := func(coord []int64) []float64 {
+		b := make([]float64, m)
+		for i := range m {
+			for _, j := range nbr[nbrStart[i]:nbrStart[i+1]] {
+				if j < 0 {
+					b[i] += float64(coord[-1-j])
+				}
+			}
+		}
+		sol := make([]float64, m)
+		for i := range sol {
+			sol[i] = half
+		}
+		r, p, ap := make([]float64, m), make([]float64, m), make([]float64, m)
+		mul(sol, ap)
+		rr := 0.0
+		for i := range m {
+			r[i] = b[i] - ap[i]
+			p[i] = r[i]
+			rr += float64(r[i] * r[i])
+		}
+		tol := float64(1e-6 * 1e-6 * float64(m))
+		for it := 0; it < iters && rr > tol; it++ {
+			mul(p, ap)
+			pap := 0.0
+			for i := range m {
+				pap += float64(p[i] * ap[i])
+			}
+			if pap <= 0 {
+				break
+			}
+			alpha := rr / pap
+			next := 0.0
+			for i := range m {
+				sol[i] += float64(alpha * p[i])
+				r[i] -= float64(alpha * ap[i])
+				next += float64(r[i] * r[i])
+			}
+			beta := next / rr
+			rr = next
+			for i := range m {
+				p[i] = r[i] + float64(beta*p[i])
+			}
+		}
+		return sol
+	}
+	sx, sy := solve(x), solve(y)
+	for i, v := range inner {
+		x[v] = roundClamp(sx[i])
+		y[v] = roundClamp(sy[i])
+	}
+}
+
+func roundClamp(f float64) int64 {
+	switch {
+	case !(f >= 0):
+		return 0
+	case f > fineSpan:
+		return fineSpan
+	}
+	return int64(f + 0.5)
+}
+
+// circlePoint returns cos and sin of -2*pi*i/k, computed with plain
+// arithmetic only (argument reduction and a Taylor polynomial, each
+// product rounded explicitly), so that the polygon is the same on every
+// machine: the standard library's trigonometry may be fused differently
+// on different architectures.
+func circlePoint(i, k int) (float64, float64) {
+	const pi = 3.14159265358979323846
+	// Angle in turns, reduced to an octant for accuracy.
+	t := -2 * pi * float64(i) / float64(k)
+	for t < -pi {
+		t += 2 * pi
+	}
+	for t > pi {
+		t -= 2 * pi
+	}
+	return taylorCos(t), taylorSin(t)
+}
+
+func taylorSin(t float64) float64 {
+	// sin t = t - t^3/3! + ... ; 12 terms are ample on [-pi, pi].
+	term, sum := t, t
+	t2 := float64(t * t)
+	for n := 1; n < 12; n++ {
+		term = float64(-term*t2) / float64((2*n)*(2*n+1))
+		sum += term
+	}
+	return sum
+}
+
+func taylorCos(t float64) float64 {
+	term, sum := 1.0, 1.0
+	t2 := float64(t * t)
+	for n := 1; n < 12; n++ {
+		term = float64(-term*t2) / float64((2*n-1)*(2*n))
+		sum += term
+	}
+	return sum
+}
+
+// triangleSign returns the orientation sign of the triangle on the left
+// of dart d, in the frame x, y.
+func triangleSign(emb *planarize.Embedding, d int32, x, y []int64) int {
+	a, b := emb.Tail(d), emb.Head(d)
+	c := emb.Head(emb.FaceNext(d))
+	return orient(x[a], y[a], x[b], y[b], x[c], y[c])
+}
+
+// planeDrawing reports, exactly, whether the component's drawing in the
+// frame x, y is a plane drawing of the triangulation minus the outer
+// region: the outer face F is a strictly convex polygon and every other
+// face is a triangle turning the opposite way. Then each point inside the
+// polygon is covered by exactly one triangle (the map from the disk has
+// degree one and preserves orientation everywhere), so the drawing has no
+// crossing or touching, and neither has any subgraph's. seen is scratch,
+// all false, of one entry per dart; it is left all false.
+func planeDrawing(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y []int64, seen []bool) bool {
+	k := len(outer.face)
+	if k < 3 {
+		return false
+	}
+	turn := 0
+	for i, d := range outer.face {
+		a, b := emb.Tail(d), emb.Head(d)
+		c := emb.Head(outer.face[(i+1)%k])
+		t := orient(x[a], y[a], x[b], y[b], x[c], y[c])
+		if t == 0 || turn != 0 && t != turn {
+			return false
+		}
+		turn = t
+	}
+	ok := true
+	var marked []int32
+	mark := func(d int32) {
+		seen[d] = true
+		marked = append(marked, d)
+	}
+	for _, d := range outer.face {
+		mark(d)
+	}
+	for _, v := range vs {
+		h := emb.First(v)
+		for range emb.Degree(v) {
+			if !seen[h] {
+				f1 := emb.FaceNext(h)
+				f2 := emb.FaceNext(f1)
+				mark(h)
+				mark(f1)
+				mark(f2)
+				if emb.FaceNext(f2) != h {
+					ok = false
+				} else if !(outer.isDummy(h>>1) || outer.isDummy(f1>>1) || outer.isDummy(f2>>1)) {
+					if triangleSign(emb, h, x, y) != -turn {
+						ok = false
+					}
+				}
+			}
+			h = emb.Next(h)
+		}
+	}
+	for _, d := range marked {
+		seen[d] = false
+	}
+	return ok
+}
