@@ -17,6 +17,9 @@ type genDOT struct {
 	nodes    []string
 	seen     map[string]bool
 	edges    []string
+	// sMembers are the nodes of the subgraph named s so far: a reopened
+	// subgraph stands for all its nodes, earlier occurrences first.
+	sMembers []string
 }
 
 // lexeme pools: each entry is a lexeme and its canonical name.
@@ -108,10 +111,12 @@ func (g *genDOT) vertex(depth int) []string {
 // subgraph writes a subgraph and returns the distinct nodes mentioned in
 // it in order of first mention.
 func (g *genDOT) subgraph(depth int) []string {
+	named := false
 	if g.rng.Intn(2) == 0 {
 		g.kw("subgraph")
 		if g.rng.Intn(2) == 0 {
 			g.b.WriteString(" s")
+			named = true
 		}
 		g.blank()
 	}
@@ -132,6 +137,21 @@ func (g *genDOT) subgraph(depth int) []string {
 	}
 	g.blank()
 	g.b.WriteString("}")
+	if named {
+		merged := append([]string(nil), g.sMembers...)
+		seen := map[string]bool{}
+		for _, v := range merged {
+			seen[v] = true
+		}
+		for _, v := range set {
+			if !seen[v] {
+				seen[v] = true
+				merged = append(merged, v)
+				g.sMembers = append(g.sMembers, v)
+			}
+		}
+		set = merged
+	}
 	return set
 }
 

@@ -30,6 +30,13 @@ type walker struct {
 	stampCur     uint32
 	operandDepth int
 
+	// named lists node mentions inside named subgraphs, so that a named
+	// subgraph used as an operand stands for every node of that subgraph,
+	// earlier occurrences included; occ gives each name's ranges in it.
+	named      []int32
+	namedDepth int
+	occ        map[string][][2]int32
+
 	nodeDefaults NodeAttrs
 	savedNode    []NodeAttrs
 	edgeDefaults *attrChain
@@ -65,6 +72,8 @@ type frame struct {
 	logStart  int32
 	subIndex  int32 // index into sc.subNodes
 	nodeTok0  int32 // walker.nodeTok when the list opened
+	subID     string
+	named0    int32 // len(walker.named) when the list opened
 
 	// edge statement
 	es      *ast.EdgeStmt
@@ -107,6 +116,9 @@ func (w *walker) run() error {
 		w.nodeDefaults = NodeAttrs{}
 		w.savedNode = w.savedNode[:0]
 		w.edgeDefaults = nil
+		w.named = w.named[:0]
+		w.namedDepth = 0
+		w.occ = make(map[string][][2]int32)
 		w.stack = append(w.stack[:0], frame{stmts: ag.Stmts, isGraph: true, savedNode: -1, subIndex: -1})
 		if err := w.walk(); err != nil {
 			return err
@@ -154,7 +166,7 @@ func (w *walker) walk() error {
 		case *ast.Attr:
 			// A graph attribute; nothing gridwood reads.
 		case *ast.Subgraph:
-			if err := w.openList(st.Stmts, false); err != nil {
+			if err := w.openList(st, false); err != nil {
 				return err
 			}
 		default:
@@ -164,14 +176,24 @@ func (w *walker) walk() error {
 	return nil
 }
 
-func (w *walker) openList(stmts []ast.Stmt, isOperand bool) error {
+func (w *walker) openList(sub *ast.Subgraph, isOperand bool) error {
 	if w.subCount >= len(w.sc.subNodes) {
 		return w.internal("more subgraphs parsed than scanned")
 	}
+	id := ""
+	if sub.ID != "" {
+		name, html := canonical(sub.ID)
+		id = name
+		if html {
+			id = "\x00" + name
+		}
+		w.namedDepth++
+	}
 	w.stack = append(w.stack, frame{
-		stmts: stmts, savedEdge: w.edgeDefaults, savedNode: -1,
+		stmts: sub.Stmts, savedEdge: w.edgeDefaults, savedNode: -1,
 		isOperand: isOperand, logStart: int32(len(w.log)),
 		subIndex: int32(w.subCount), nodeTok0: int32(w.nodeTok),
+		subID: id, named0: int32(len(w.named)),
 	})
 	w.subCount++
 	if isOperand {
@@ -193,6 +215,27 @@ func (w *walker) closeList() error {
 	}
 	if int32(w.nodeTok)-fr.nodeTok0 != w.sc.subNodes[fr.subIndex] {
 		return w.internal("subgraph %d: %d node mentions parsed, %d scanned", fr.subIndex, int32(w.nodeTok)-fr.nodeTok0, w.sc.subNodes[fr.subIndex])
+	}
+	var earlier [][2]int32
+	if fr.subID != "" {
+		w.namedDepth--
+		earlier = w.occ[fr.subID]
+		w.occ[fr.subID] = append(earlier, [2]int32{fr.named0, int32(len(w.named))})
+	}
+	if len(earlier) > 0 && w.operandDepth > 0 {
+		// A reopened subgraph inside an operand: its nodes from earlier
+		// occurrences come first, then the new ones. The work counts
+		// towards the expansion cap, so repeated reopening stays bounded.
+		cur := append([]int32(nil), w.log[fr.logStart:]...)
+		w.log = w.log[:fr.logStart]
+		for _, r := range earlier {
+			w.spent += int64(r[1] - r[0])
+			w.log = append(w.log, w.named[r[0]:r[1]]...)
+		}
+		w.log = append(w.log, cur...)
+		if w.limit >= 0 && w.spent > w.limit {
+			return &Error{File: w.f.Name, Msg: fmt.Sprintf("reopened subgraph operands expand to more than %d nodes (raise the limit with --max-expansion)", w.limit)}
+		}
 	}
 	if !fr.isOperand {
 		return nil
@@ -291,6 +334,9 @@ func (w *walker) mention(n *ast.Node) (int32, error) {
 	if w.operandDepth > 0 {
 		w.log = append(w.log, idx)
 	}
+	if w.namedDepth > 0 {
+		w.named = append(w.named, idx)
+	}
 	return idx, nil
 }
 
@@ -307,7 +353,7 @@ func (w *walker) startEdge(es *ast.EdgeStmt) error {
 		w.stack[len(w.stack)-1].left = operand{node: idx}
 		return w.advance()
 	case *ast.Subgraph:
-		return w.openList(v.Stmts, true)
+		return w.openList(v, true)
 	default:
 		return w.internal("unknown vertex type %T", v)
 	}
@@ -356,7 +402,7 @@ func (w *walker) advance() error {
 				return err
 			}
 		case *ast.Subgraph:
-			return w.openList(v.Stmts, true)
+			return w.openList(v, true)
 		default:
 			return w.internal("unknown vertex type %T", v)
 		}
