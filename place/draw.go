@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"time"
 
 	"github.com/gridwood/gridwood/planarize"
 )
@@ -37,6 +38,9 @@ type Result struct {
 	// LowerBound is a proved lower bound on the pairs any planar subgraph
 	// must drop.
 	LowerBound int
+	// Times says how long the stages took (for reports; never part of the
+	// drawing).
+	Times StageTimes
 
 	simple    [][2]int32
 	simpleOf  []int32
@@ -56,6 +60,7 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	if err := checkInput(n, edges); err != nil {
 		return nil, err
 	}
+	start := time.Now()
 	// Renumber first, so that even removing repeats runs on local data.
 	newID, renamed, rawOf := localOrder(n, edges)
 	local, localIndex := planarize.Simplify(n, renamed)
@@ -114,7 +119,31 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 			return nil, errNotPlanar
 		}
 	}
-	d, err := layout(emb, opt.Layout) // emb is ours to augment
+	lopt := opt.Layout
+	if len(lopt.Outer) > 0 {
+		// Find an embedding with all of Outer on one face: join them to a
+		// new vertex, embed, and take the vertex out again.
+		outer := make([]int32, len(lopt.Outer))
+		withHub := append([][2]int32(nil), kept...)
+		for i, v := range lopt.Outer {
+			if v < 0 || int(v) >= n {
+				return nil, fmt.Errorf("place: outer vertex %d outside 0..%d", v, n-1)
+			}
+			outer[i] = newID[v]
+			withHub = append(withHub, [2]int32{outer[i], int32(n)})
+		}
+		hubbed, _ := planarize.Simplify(n+1, withHub)
+		e2, ok := planarize.Embed(n+1, hubbed)
+		if !ok {
+			return nil, ErrOuter
+		}
+		emb = e2.WithoutLastVertex()
+		lopt.Outer = outer
+	}
+	res.Times.Planarize = time.Since(start)
+	start = time.Now()
+	d, err := layout(emb, lopt) // emb is ours to augment
+	res.Times.Layout = time.Since(start)
 	if err != nil {
 		return nil, err
 	}
@@ -126,6 +155,12 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 		res.X[v], res.Y[v], res.bary[v] = d.X[w], d.Y[w], d.bary[w]
 	}
 	return res, nil
+}
+
+// StageTimes are the durations of Draw's stages.
+type StageTimes struct {
+	Planarize time.Duration // simple graph, planarity test, planar subgraph, embedding
+	Layout    time.Duration // augmentation, ordering, coordinates, compaction, barycentric drawing
 }
 
 // Kept returns the distinct vertex pairs of the drawing, without the

@@ -39,6 +39,9 @@ type Component struct {
 	X0, Y0     int64 // lower-left corner of its box
 	W, H       int64 // box extent in grid steps
 	Barycentre bool  // placed by Schnyder's barycentric method (3+ vertices)
+	// FullW, FullH is the extent before compaction (equal to W, H without
+	// Options.Compact).
+	FullW, FullH int64
 }
 
 // Options tune Layout. The zero value is the default.
@@ -177,7 +180,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			continue
 		case 2:
 			d.X[vs[1]] = 1
-			boxes[c] = Component{Vertices: 2, W: 1}
+			boxes[c] = Component{Vertices: 2, W: 1, FullW: 1}
 			continue
 		}
 		outer := outerDart[c]
@@ -213,10 +216,11 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			d.X[v], d.Y[v] = int64(coord[i][0]), int64(coord[i][1])
 			w, h = max(w, d.X[v]), max(h, d.Y[v])
 		}
+		fw, fh := w, h
 		if opt.Compact {
 			w, h = compactComponent(work, d, vs, index, origEdges[c])
 		}
-		boxes[c] = Component{Vertices: len(vs), W: w, H: h, Barycentre: true}
+		boxes[c] = Component{Vertices: len(vs), W: w, H: h, Barycentre: true, FullW: fw, FullH: fh}
 	}
 	pack(boxes)
 	for c, vs := range members {

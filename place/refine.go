@@ -24,26 +24,62 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 	if len(vs) < 4 {
 		return
 	}
-	fixed := make(map[int32]bool, len(outer.face))
-	for _, d := range outer.face {
-		fixed[emb.Tail(d)] = true
+	// Boundary vertices may move too, as long as the boundary stays a
+	// strictly convex polygon turning the same way.
+	k := len(outer.face)
+	pos := make(map[int32]int, k) // boundary vertex -> its place on F
+	outerDart := make(map[int32]bool, k)
+	for i, d := range outer.face {
+		pos[emb.Tail(d)] = i
+		outerDart[d] = true
+	}
+	at := func(i int) int32 { return emb.Tail(outer.face[((i%k)+k)%k]) }
+	turnAt := func(i int, v int32, px, py int64) int {
+		a, b, c := at(i-1), at(i), at(i+1)
+		ax, ay, bx, by, cx, cy := x[a], y[a], x[b], y[b], x[c], y[c]
+		switch v {
+		case a:
+			ax, ay = px, py
+		case b:
+			bx, by = px, py
+		case c:
+			cx, cy = px, py
+		}
+		return orient(ax, ay, bx, by, cx, cy)
+	}
+	boundaryTurn := turnAt(0, -1, 0, 0)
+	regionCorner := func(h int32) bool {
+		if outerDart[h] {
+			return true
+		}
+		f1 := emb.FaceNext(h)
+		return outer.isDummy(h>>1) || outer.isDummy(f1>>1) || outer.isDummy(emb.FaceNext(f1)>>1)
 	}
 	innerSign := 0
 	for _, v := range vs {
-		if !fixed[v] {
+		if _, on := pos[v]; !on {
 			innerSign = triangleSign(emb, emb.First(v), x, y)
 			break
 		}
 	}
-	if innerSign == 0 {
+	if innerSign == 0 || boundaryTurn == 0 {
 		return
 	}
 	valid := func(v int32, px, py int64) bool {
+		if i, on := pos[v]; on {
+			for j := i - 1; j <= i+1; j++ {
+				if turnAt(j, v, px, py) != boundaryTurn {
+					return false
+				}
+			}
+		}
 		h := emb.First(v)
 		for range emb.Degree(v) {
-			a, b := emb.Head(h), emb.Head(emb.Next(h))
-			if orient(px, py, x[a], y[a], x[b], y[b]) != innerSign {
-				return false
+			if !regionCorner(h) {
+				a, b := emb.Head(h), emb.Head(emb.Next(h))
+				if orient(px, py, x[a], y[a], x[b], y[b]) != innerSign {
+					return false
+				}
 			}
 			h = emb.Next(h)
 		}
@@ -138,9 +174,6 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		}
 		moved := false
 		for _, v := range vs {
-			if fixed[v] {
-				continue
-			}
 			dx, dy := int64(math.Round(pushX[v])), int64(math.Round(pushY[v]))
 			for try := 0; try < 8 && (dx != 0 || dy != 0); try++ {
 				if valid(v, x[v]+dx, y[v]+dy) {

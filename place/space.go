@@ -39,6 +39,8 @@ type Placed struct {
 	// Unchecked counts components too big for the box-clearance check,
 	// spaced by Unit alone.
 	Unchecked int
+	// Convex counts the components drawn with every face convex.
+	Convex int
 }
 
 // Limits of the spacing rule, as multiples of the base unit.
@@ -46,6 +48,10 @@ const (
 	// maxStretch caps any stretching: beyond it the drawing stays crowded
 	// and the report says so (its smallest vertex-edge distance).
 	maxStretch = 8
+	// barycentricAreaAllowance: the barycentric drawing is preferred to
+	// the grid one unless it needs more than this times the area; its
+	// even spread reads better (see README, Spacing).
+	barycentricAreaAllowance = 2.0
 	// edgeGap is the clear space, in points, between a node box and an
 	// edge passing by: enough that the edge visibly misses the box.
 	edgeGap = 4
@@ -67,7 +73,8 @@ var errBoxes = errors.New("place: box sizes do not match the vertices")
 //     so its median edge is one base unit, rounded to integer points,
 //     checked exactly to still be a plane drawing (doubling the scale until
 //     it is), and stretched by an integer factor to clear the boxes in the
-//     same way; it replaces the grid drawing when it then needs less area;
+//     same way; it replaces the grid drawing unless it then needs more
+//     than twice the area;
 //   - stretching never exceeds 8 times; integer stretching keeps every
 //     orientation, so no crossing can appear.
 //
@@ -173,7 +180,7 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 	if !gridOnly && d.fineX != nil && d.outer[c] != nil && r.barycentricPoints(c, vs, edges, unit, tx, ty, seen) {
 		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp)
 		s2, _ := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp)
-		if clearedArea(vs, tx, ty, s2, hw, hh) < clearedArea(vs, px, py, stretch, hw, hh) {
+		if clearedArea(vs, tx, ty, s2, hw, hh) <= barycentricAreaAllowance*clearedArea(vs, px, py, stretch, hw, hh) {
 			for _, v := range vs {
 				px[v], py[v] = tx[v], ty[v]
 			}

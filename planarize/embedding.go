@@ -191,3 +191,51 @@ func (e *Embedding) Clone() *Embedding {
 	}
 	return c
 }
+
+// WithoutLastVertex returns a copy of the embedding with its last vertex
+// and every edge at it removed, the other edges keeping their order (and
+// so their numbers, when the removed edges come last) and their rotation.
+// Adding a vertex joined to a set of vertices, embedding, and removing it
+// again is how an embedding with all of those vertices on one face is
+// found.
+func (e *Embedding) WithoutLastVertex() *Embedding {
+	last := int32(e.N() - 1)
+	newEdge := make([]int32, len(e.edges))
+	out := &Embedding{first: make([]int32, last), deg: make([]int32, last)}
+	for i, ed := range e.edges {
+		if ed[0] == last || ed[1] == last {
+			newEdge[i] = -1
+			continue
+		}
+		newEdge[i] = int32(len(out.edges))
+		out.edges = append(out.edges, ed)
+	}
+	dart := func(d int32) int32 { return 2*newEdge[d>>1] + d&1 }
+	out.next = make([]int32, 2*len(out.edges))
+	out.prev = make([]int32, 2*len(out.edges))
+	for v := int32(0); v < last; v++ {
+		out.first[v] = -1
+		f := e.first[v]
+		if f < 0 {
+			continue
+		}
+		var kept []int32
+		for d := f; ; {
+			if newEdge[d>>1] >= 0 {
+				kept = append(kept, dart(d))
+			}
+			if d = e.next[d]; d == f {
+				break
+			}
+		}
+		for i, d := range kept {
+			n := kept[(i+1)%len(kept)]
+			out.next[d], out.prev[n] = n, d
+		}
+		if len(kept) > 0 {
+			out.first[v] = kept[0]
+		}
+		out.deg[v] = int32(len(kept))
+	}
+	return out
+}

@@ -10,6 +10,7 @@ import (
 	"runtime/debug"
 	"strconv"
 	"strings"
+	"time"
 
 	"github.com/spf13/pflag"
 
@@ -52,6 +53,8 @@ type config struct {
 	maxExpansion int
 	svgFile      string
 	check        bool
+	outer        []string
+	reportFile   string
 	inputs       []string
 }
 
@@ -112,6 +115,8 @@ func parseFlags(args []string, stderr io.Writer) (*config, error) {
 	fs.IntVar(&cfg.maxExpansion, "max-expansion", dotio.DefaultMaxExpansion, "refuse input whose edge statements with subgraph operands ({a b} -- {c d})\nexpand to more than `N` edges; negative means no limit")
 	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE` (set-aside\nedges dashed, underneath); open it in any browser\nexample: --svg preview.svg")
 	fs.BoolVar(&cfg.check, "check", false, "do not lay out: check the pos of every node already in the input and report,\none per line on standard output, crossing edges, nodes on edges they do not\nend at, and overlapping node boxes; exit status 1 if anything was found\nexample: gridwood --check drawn.dot")
+	outer := fs.String("outer", "", "node names that must lie on the outer boundary of the drawing, comma\nseparated (as the names are written, without quotes); applies to every graph\nthat has all of them. Default: a largest face of the graph is the outside\nexample: --outer Library,Gym,Lodge")
+	fs.StringVar(&cfg.reportFile, "report", "", "write a JSON quality report to `FILE`: per graph its size, set-aside edges,\ngrid size, area, smallest angle, edge length ratio, node clearance and the\ntime of each stage (README, Quality report, explains the fields)\nexample: --report quality.json")
 	version := fs.Bool("version", false, "print the version and exit")
 	help := fs.BoolP("help", "h", false, "show this help and exit")
 	fs.Usage = func() {}
@@ -138,6 +143,14 @@ func parseFlags(args []string, stderr io.Writer) (*config, error) {
 			return nil, &usageError{"--mark-removed: " + err.Error()}
 		}
 		cfg.markRemoved = attrs
+	}
+	if *outer != "" {
+		for _, name := range strings.Split(*outer, ",") {
+			if name = strings.TrimSpace(name); name == "" {
+				return nil, &usageError{"--outer: empty node name in " + strconv.Quote(*outer)}
+			}
+			cfg.outer = append(cfg.outer, name)
+		}
 	}
 	cfg.inputs = fs.Args()
 	if len(cfg.inputs) == 0 {
@@ -199,26 +212,32 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	}
 	var out, removedOut, explainOut, svgOut bytes.Buffer
 	var pictures []svgGraph
+	var reports []fileReport
 	budget := &planarize.Budget{Left: explainBudgetTotal}
 	stdinUsed := false
+	outerUsed := false
 	for _, in := range cfg.inputs {
 		src, name, err := readInput(in, stdin, &stdinUsed)
 		if err != nil {
 			return err
 		}
+		readStart := time.Now()
 		f, err := dotio.Read(src, dotio.ReadOptions{Name: name, MaxExpansion: cfg.maxExpansion})
 		if err != nil {
 			return err
 		}
+		rep := fileReport{File: name, ReadSeconds: time.Since(readStart).Seconds()}
 		layouts := make([]dotio.Layout, len(f.Graphs))
 		removed := make([][]int, len(f.Graphs))
 		results := make([]*place.Result, len(f.Graphs))
 		for gi, g := range f.Graphs {
-			res, lay, err := layoutGraph(cfg, g)
+			res, lay, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)))
 			if err != nil {
 				return err
 			}
+			rep.Graphs = append(rep.Graphs, gr)
 			results[gi], layouts[gi], removed[gi] = res, lay, res.Removed
+			outerUsed = outerUsed || hasAll(g, cfg.outer)
 			if len(res.Removed) == 0 {
 				continue
 			}
@@ -238,9 +257,12 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			warnPinned(stderr, name, f)
 		}
 		opt := dotio.WriteOptions{DropRemoved: cfg.dropRemoved, MarkRemoved: cfg.markRemoved}
+		writeStart := time.Now()
 		if err := dotio.Write(&out, f, layouts, opt); err != nil {
 			return err
 		}
+		rep.WriteSeconds = time.Since(writeStart).Seconds()
+		reports = append(reports, rep)
 		if cfg.removedFile != "" {
 			if err := dotio.WriteRemoved(&removedOut, f, removed); err != nil {
 				return err
@@ -255,6 +277,15 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			}
 		}
 	}
+	if cfg.reportFile != "" {
+		var buf bytes.Buffer
+		if err := writeReport(&buf, reports); err != nil {
+			return err
+		}
+		if err := writeFileAtomic(cfg.reportFile, buf.Bytes()); err != nil {
+			return err
+		}
+	}
 	if cfg.svgFile != "" {
 		if err := writeSVG(&svgOut, pictures); err != nil {
 			return err
@@ -262,6 +293,9 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		if err := writeFileAtomic(cfg.svgFile, svgOut.Bytes()); err != nil {
 			return err
 		}
+	}
+	if len(cfg.outer) > 0 && !outerUsed {
+		return &exitError{exitBadInput, fmt.Sprintf("--outer %s: no graph has all of these nodes", strings.Join(cfg.outer, ","))}
 	}
 	// All inputs succeeded: write the side files first, the main output last.
 	if cfg.removedFile != "" {
@@ -331,22 +365,37 @@ func readInput(in string, stdin io.Reader, stdinUsed *bool) ([]byte, string, err
 }
 
 // layoutGraph draws one graph and converts grid points to DOT positions.
-func layoutGraph(cfg *config, g *dotio.Graph) (*place.Result, dotio.Layout, error) {
+func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Result, dotio.Layout, graphReport, error) {
 	edges := make([][2]int32, len(g.Edges))
 	for i, e := range g.Edges {
 		edges[i] = [2]int32{e.From, e.To}
 	}
+	var outer []int32
+	for _, name := range cfg.outer {
+		i, ok := g.Lookup(name)
+		if !ok {
+			outer = nil
+			break
+		}
+		outer = append(outer, int32(i))
+	}
 	res, err := place.Draw(len(g.Nodes), edges, place.DrawOptions{
-		Layout:   place.Options{Compact: true, Smooth: smoothSweeps},
+		Layout:   place.Options{Compact: true, Smooth: smoothSweeps, Outer: outer},
 		Subgraph: planarize.SubgraphOptions{Effort: cfg.effort},
 	})
-	if err != nil {
-		return nil, dotio.Layout{}, err
+	if errors.Is(err, place.ErrOuter) {
+		return nil, dotio.Layout{}, graphReport{}, &exitError{exitBadInput, fmt.Sprintf("%s: --outer %s: no drawing has all of these nodes on its outer boundary (they may lie in different components, or the planar part keeps them apart)", where, strings.Join(cfg.outer, ","))}
 	}
-	sp, err := res.Space(nodeBoxes(g), place.SpaceOptions{Unit: int64(cfg.unit), GridOnly: cfg.gridOnly})
 	if err != nil {
-		return nil, dotio.Layout{}, err
+		return nil, dotio.Layout{}, graphReport{}, err
 	}
+	boxes := nodeBoxes(g)
+	spaceStart := time.Now()
+	sp, err := res.Space(boxes, place.SpaceOptions{Unit: int64(cfg.unit), GridOnly: cfg.gridOnly})
+	if err != nil {
+		return nil, dotio.Layout{}, graphReport{}, err
+	}
+	spaceTime := time.Since(spaceStart)
 	lay := dotio.Layout{X: sp.X, Y: sp.Y, BB: [4]int64{0, 0, sp.Width, sp.Height}}
 	if len(res.Removed) > 0 {
 		lay.Removed = make([]bool, len(g.Edges))
@@ -354,12 +403,29 @@ func layoutGraph(cfg *config, g *dotio.Graph) (*place.Result, dotio.Layout, erro
 			lay.Removed[i] = true
 		}
 	}
-	return res, lay, nil
+	var gr graphReport
+	if cfg.reportFile != "" {
+		gr = graphMeasures(g, gi, "schnyder", res, sp, boxes, spaceTime)
+	}
+	return res, lay, gr, nil
 }
 
 // DOT's default node size in inches (from memory of its documentation, see
 // ../shared/REFERENCES.md).
 const defaultWidth, defaultHeight = 0.75, 0.5
+
+// hasAll reports whether g has a node of every name.
+func hasAll(g *dotio.Graph, names []string) bool {
+	if len(names) == 0 {
+		return false
+	}
+	for _, name := range names {
+		if _, ok := g.Lookup(name); !ok {
+			return false
+		}
+	}
+	return true
+}
 
 func graphName(g *dotio.Graph, index int) string {
 	kind := "graph"

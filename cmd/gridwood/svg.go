@@ -148,6 +148,7 @@ func newSVGPanel(sg svgGraph, index int) (svgPanel, error) {
 		return svgPanel{}, fmt.Errorf("svg: graph %d: %d set-aside flags for %d edges", index+1, len(lay.Removed), len(g.Edges))
 	}
 	p := svgPanel{title: svgTitle(g, index), directed: g.Directed, nodes: make([]svgNode, len(g.Nodes))}
+	boxes := nodeBoxes(g) // the same boxes the layout spaced for
 	p.minX, p.minY = float64(min(lay.BB[0], lay.BB[2])), float64(min(lay.BB[1], lay.BB[3]))
 	p.maxX, p.maxY = float64(max(lay.BB[0], lay.BB[2])), float64(max(lay.BB[1], lay.BB[3]))
 	if len(g.Nodes) > 0 && lay.BB == [4]int64{} {
@@ -158,8 +159,8 @@ func newSVGPanel(sg svgGraph, index int) (svgPanel, error) {
 		sn := svgNode{
 			x:     float64(lay.X[v]),
 			y:     float64(lay.Y[v]),
-			hw:    inches(n.Attrs.Width, defaultWidth) * 36,
-			hh:    inches(n.Attrs.Height, defaultHeight) * 36,
+			hw:    float64(boxes.HalfW[v]),
+			hh:    float64(boxes.HalfH[v]),
 			round: roundShape(n.Attrs.Shape),
 			label: nodeLabel(n, g),
 			name:  plainName(n.Name),
@@ -436,16 +437,6 @@ func (p *svgPanel) writeLabel(w *bufio.Writer, n svgNode) {
 // textWidth estimates the advance of s at the given size.
 func textWidth(s string, size float64) float64 {
 	return float64(utf8.RuneCountInString(s)) * svgCharWidth * size
-}
-
-// inches parses a size attribute; anything but a number from 0 to 10,000
-// gives def.
-func inches(s string, def float64) float64 {
-	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-	if err != nil || !(v >= 0) || v > 1e4 {
-		return def
-	}
-	return v
 }
 
 func roundShape(shape string) bool {

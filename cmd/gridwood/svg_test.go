@@ -43,7 +43,7 @@ func layOut(t *testing.T, src string) []svgGraph {
 	}
 	var out []svgGraph
 	for _, g := range f.Graphs {
-		_, lay, err := layoutGraph(&config{}, g)
+		_, lay, _, err := layoutGraph(&config{}, g, 0, "test")
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -219,8 +219,9 @@ func TestWriteSVG(t *testing.T) {
 				cx[v] = atof(t, s.attr("x")) + atof(t, s.attr("width"))/2
 				cy[v] = atof(t, s.attr("y")) + atof(t, s.attr("height"))/2
 			}
-			// Sizes from width/height, 72 points per inch.
-			wantW := 72 * inches(g.Nodes[v].Attrs.Width, 0.75)
+			// Sizes: the boxes the layout spaced for (width and height,
+			// grown to fit the label; see nodeBoxes).
+			wantW := float64(2 * nodeBoxes(g).HalfW[v])
 			gotW := 2 * atof(t, s.attr("rx"))
 			if s.XMLName.Local == "rect" {
 				gotW = atof(t, s.attr("width"))

@@ -1,0 +1,103 @@
+package main
+
+import (
+	"encoding/json"
+	"io"
+	"time"
+
+	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/internal/geomcheck"
+	"github.com/gridwood/gridwood/place"
+)
+
+// The --report file: JSON, one record per input file with one per graph.
+// README.md ("Quality report") documents every field.
+type fileReport struct {
+	File         string        `json:"file"`
+	ReadSeconds  float64       `json:"read_seconds"`
+	WriteSeconds float64       `json:"write_seconds"`
+	Graphs       []graphReport `json:"graphs"`
+}
+
+type graphReport struct {
+	Graph                 string   `json:"graph"`
+	Directed              bool     `json:"directed"`
+	Nodes                 int      `json:"nodes"`
+	Edges                 int      `json:"edges"`
+	RemovedEdges          int      `json:"removed_edges"`
+	RemovedPairs          int      `json:"removed_pairs"`
+	RemovalOptimal        bool     `json:"removal_optimal"`
+	Method                string   `json:"method"`
+	Components            int      `json:"components"`
+	BarycentricComponents int      `json:"barycentric_components"`
+	ConvexComponents      int      `json:"convex_components"`
+	GridWidth             int64    `json:"grid_width"`
+	GridHeight            int64    `json:"grid_height"`
+	AreaRatio             float64  `json:"area_ratio"`
+	CompactionSaved       float64  `json:"compaction_saved"`
+	Unit                  int64    `json:"unit"`
+	WidthPoints           int64    `json:"width_pt"`
+	HeightPoints          int64    `json:"height_pt"`
+	MinAngle              float64  `json:"min_angle_deg"`
+	EdgeLengthRatio       float64  `json:"edge_length_ratio"`
+	MinVertexEdge         *float64 `json:"min_vertex_edge_distance"`
+	BoxOverlaps           int      `json:"box_overlaps"`
+	EdgesThroughBoxes     int      `json:"edges_through_boxes"`
+	Seconds               struct {
+		Planarize float64 `json:"planarize"`
+		Layout    float64 `json:"layout"`
+		Space     float64 `json:"space"`
+	} `json:"seconds"`
+}
+
+// graphMeasures fills a report record from one laid-out graph.
+func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp *place.Placed, boxes place.Boxes, spaceTime time.Duration) graphReport {
+	r := graphReport{
+		Graph: graphName(g, gi), Directed: g.Directed, Nodes: len(g.Nodes), Edges: len(g.Edges),
+		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
+		Method: method, Components: len(res.Components), BarycentricComponents: sp.Smoothed,
+		ConvexComponents: sp.Convex,
+		GridWidth: res.Width, GridHeight: res.Height, Unit: sp.Unit,
+		WidthPoints: sp.Width, HeightPoints: sp.Height,
+	}
+	if n := int64(len(g.Nodes)); n >= 3 {
+		r.AreaRatio = float64(res.Width*res.Height) / float64((n-2)*(n-2))
+	}
+	var full, compacted int64
+	for _, c := range res.Components {
+		full += (c.FullW + 1) * (c.FullH + 1)
+		compacted += (c.W + 1) * (c.H + 1)
+	}
+	if full > 0 {
+		r.CompactionSaved = 1 - float64(compacted)/float64(full)
+	}
+	kept := res.Kept()
+	q := place.Measure(sp.X, sp.Y, kept)
+	r.MinAngle, r.EdgeLengthRatio = q.MinAngle, q.EdgeRatio
+	if q.MinVertexEdge >= 0 {
+		d := q.MinVertexEdge / float64(sp.Unit)
+		r.MinVertexEdge = &d
+	}
+	pts := make([]geomcheck.Point, len(sp.X))
+	for i := range pts {
+		pts[i] = geomcheck.Point{X: sp.X[i], Y: sp.Y[i]}
+	}
+	if o, err := geomcheck.BoxOverlaps(pts, boxes.HalfW, boxes.HalfH); err == nil {
+		r.BoxOverlaps = len(o)
+	}
+	if t, err := geomcheck.EdgeThroughBox(pts, boxes.HalfW, boxes.HalfH, kept); err == nil {
+		r.EdgesThroughBoxes = len(t)
+	}
+	r.Seconds.Planarize = res.Times.Planarize.Seconds()
+	r.Seconds.Layout = res.Times.Layout.Seconds()
+	r.Seconds.Space = spaceTime.Seconds()
+	return r
+}
+
+func writeReport(w io.Writer, files []fileReport) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(struct {
+		Files []fileReport `json:"files"`
+	}{files})
+}
