@@ -57,7 +57,7 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
 		Method: method, Components: len(res.Components), BarycentricComponents: sp.Smoothed,
 		ConvexComponents: sp.Convex,
-		GridWidth: res.Width, GridHeight: res.Height, Unit: sp.Unit,
+		GridWidth:        res.Width, GridHeight: res.Height, Unit: sp.Unit,
 		WidthPoints: sp.Width, HeightPoints: sp.Height,
 	}
 	if n := int64(len(g.Nodes)); n >= 3 {
