@@ -2,9 +2,17 @@ package place
 
 import "slices"
 
+// compactLimit is the largest component compacted: on bigger ones the
+// checks would cost more than the layout itself.
+const compactLimit = 20000
+
 // compactPairLimit bounds the vertex-edge pairs one compaction check may
-// look at; larger drawings are left as they are.
-const compactPairLimit = 20_000_000
+// look at, and compactWork all checks of one axis together; beyond them
+// a drawing keeps the gaps not yet closed.
+const (
+	compactPairLimit = 2_000_000
+	compactWork      = 20_000_000
+)
 
 // compact removes empty grid columns and rows of one component's drawing
 // where that provably changes nothing about crossings or touching: the
@@ -15,7 +23,7 @@ const compactPairLimit = 20_000_000
 // orientation tests. The gaps to close are chosen greedily with adaptive
 // group tests (all at once first). It returns the new extent.
 func compact(x, y []int64, edges [][2]int32) (w, h int64) {
-	for round := 0; round < 2; round++ {
+	for round := 0; round < 2 && len(x) <= compactLimit; round++ {
 		cx := compactAxis(x, y, edges)
 		cy := compactAxis(y, x, edges)
 		if !cx && !cy {
@@ -105,7 +113,8 @@ func compactAxis(a, b []int64, edges [][2]int32) bool {
 	}
 	changed := false
 	chunk := len(gapAt)
-	for i := 0; i < len(gapAt); {
+	spent := int64(0)
+	for i := 0; i < len(gapAt) && spent+total <= compactWork; spent += total {
 		k := min(chunk, len(gapAt)-i)
 		for g := i; g < i+k; g++ {
 			closed[g] = true

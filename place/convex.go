@@ -10,7 +10,7 @@ import (
 
 // This file draws 3-connected plane graphs with convex faces by face
 // counting in a Schnyder wood: S. Felsner, "Convex drawings of planar graphs
-// and the order dimension of 3-polytopes", Order 18 (2001) 19-37. The
+// and the order dimension of 3-polytopes", Order 18 (2001). The
 // Schnyder wood comes from a canonical ordering of the 3-connected graph
 // (G. Kant, "Drawing planar graphs using the canonical ordering",
 // Algorithmica 16 (1996) 4-32), found by peeling the graph from the top.
@@ -39,33 +39,36 @@ const convexHalfEdge = -2
 // be the outer face. It returns grid coordinates per vertex and the grid
 // extent (all points in [0,w]x[0,h]). errNotTriconnected if the graph is
 // not 3-connected (detected, not assumed); errConvexInput if emb is not a
-// plane embedding of a simple graph or outer is not one of its darts;
-// another error for internal failures -- never panics.
+// plane embedding of a simple graph or outer is not one of its darts (so a
+// graph without edges gets errConvexInput); another error, wrapping
+// errConvexInternal, for internal failures -- it never panics.
 //
-// Method: face counting in a Schnyder wood (S. Felsner, "Convex drawings of
-// planar graphs and the order dimension of 3-polytopes", Order 18 (2001)).
-// With a1 = Head(outer), a2 = Tail(outer) and a3 a vertex of the outer face
-// half-way round it, a canonical ordering of the 3-connected graph (G.
-// Kant, Algorithmica 16 (1996)) yields a Schnyder wood: three trees T1, T2,
-// T3 rooted at a1, a2, a3, edges possibly bi-directed in two colours. The
-// paths P1(v), P2(v), P3(v) from v to the roots split the f-1 inner faces
-// into regions R1(v), R2(v), R3(v), and v is placed at
+// Method: face counting in a Schnyder wood, S. Felsner, "Convex drawings
+// of planar graphs and the order dimension of 3-polytopes", Order 18
+// (2001). With a1 = Head(outer), a2 = Tail(outer) and a3 the vertex
+// half-way round the outer face, a canonical ordering of the 3-connected
+// graph (G. Kant, "Drawing planar graphs using the canonical ordering",
+// Algorithmica 16 (1996) 4-32) yields a Schnyder wood: three trees T1, T2,
+// T3 rooted at a1, a2, a3, some edges directed both ways in two colours.
+// The paths P1(v), P2(v), P3(v) from v to the roots split the f-1 inner
+// faces into the regions R1(v), R2(v), R3(v), and v is placed at
 // (|R1(v)|, |R2(v)|), counting faces.
 //
-// Guarantee (Felsner 2001, Theorem 2): the drawing is plane, every inner
-// face is a convex polygon walked counter-clockwise, and the outer face is
-// the triangle a1 = (f-1, 0), a2 = (0, f-1), a3 = (0, 0), walked
-// clockwise, with every other outer vertex on its sides x = 0 or y = 0.
-// Angles of exactly 180 degrees occur (weak convexity, as in the paper);
-// no angle exceeds 180 degrees and no face has zero area. w = h = f-1,
-// where f is the number of faces including the outer one. The drawing is
-// checked for these properties before it is returned.
+// Guarantee (Felsner 2001): the drawing is plane; every inner face is a
+// convex polygon, walked counter-clockwise; the outer face is the triangle
+// a1 = (f-1, 0), a2 = (0, f-1), a3 = (0, 0), walked clockwise, the edge
+// of outer its long side and every other outer vertex on one of its legs
+// x = 0 or y = 0. Angles of exactly 180 degrees occur (weak convexity, as
+// in the paper); no angle exceeds 180 degrees and no face has zero area.
+// w = h = f-1 with f the number of faces, outer face included; f <= 2n-4.
+// Convexity and orientation of every face, the three trees and the axioms
+// of the wood are checked before the drawing is returned.
 //
 // Time and memory are O(n): the 3-connectivity test lists 4-cycles of the
-// vertex-face incidence graph in the order of N. Chiba and T. Nishizeki
-// ("Arboricity and subgraph listing algorithms", SIAM J. Comput. 14
-// (1985)), the peeling keeps per-face counters as in Kant's algorithm, and
-// the face counts are sums of subtree weights along tree paths.
+// vertex-face incidence graph as in N. Chiba and T. Nishizeki, "Arboricity
+// and subgraph listing algorithms", SIAM J. Comput. 14 (1985), the peeling
+// keeps per-face counters in the manner of Kant's algorithm, and the face
+// counts are sums of subtree weights along tree paths. Nothing recurses.
 func convexDrawing(emb *planarize.Embedding, outer int32) (x, y []int64, w, h int64, err error) {
 	wood, coord, err := convexSolve(emb, outer)
 	if err != nil {
@@ -371,7 +374,11 @@ func (w *convexWood) trivialFourCycle(x, z, a1, b1, a2 int32) bool {
 // vertex has a later neighbour). outv and oute only grow while a face is
 // inner, so sc changes only when outv passes 2 and 3 (the first two
 // contour vertices of each face are remembered) or a face at z opens to
-// the outside; all updates are O(1) per dart.
+// the outside; all updates are O(1) per dart. The graph left after a
+// removal inherits internal 3-connectivity, so a choice never has to be
+// undone, and Kant (1996) shows that a removable vertex or chain always
+// exists until only the base face is left; should none be found, peel
+// reports an internal error rather than guessing.
 type convexPeel struct {
 	w            *convexWood
 	rnext, rprev []int32 // rotation of H: removed darts are unlinked
@@ -404,9 +411,11 @@ func (w *convexWood) internal(format string, args ...any) error {
 // (right contact) in colour 2; a chain z1..zl gets zi -> z(i-1) in colour
 // 1 and zi -> z(i+1) in colour 2, with z0, z(l+1) the contacts; and every
 // vertex gets colour 3 towards the first of its neighbours to be removed,
-// i.e. its latest neighbour in the ordering (Felsner 2001, and his book
-// "Geometric Graphs and Arrangements", 2004, Section 2.3, for the
-// correspondence). The half-edges a1, a2, a3 close the wood.
+// i.e. its latest neighbour in the ordering (the correspondence between
+// canonical orderings and Schnyder woods of 3-connected graphs is
+// described by Felsner 2001 and in his book "Geometric Graphs and
+// Arrangements", 2004). The half-edges at a1, a2, a3 close the wood; check
+// verifies the result against the axioms instead of trusting this.
 func (w *convexWood) peel(outer int32) error {
 	emb := w.emb
 	n := w.n

@@ -202,7 +202,10 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		}
 		coord = append(coord[:0], make([][3]int32, len(vs))...)
 		ww.barycentric(order, coord, index)
-		if r := regions[c]; r != nil && len(vs) >= 4 && len(vs) <= tutteLimit {
+		// Tutte's drawing inside a triangle squeezes a big triangulation's
+		// interior exponentially; it is worth computing for a larger
+		// outer face, or for small components.
+		if r := regions[c]; r != nil && len(vs) >= 4 && len(vs) <= tutteLimit && (len(r.face) > 3 || len(vs) <= tutteTriangleLimit) {
 			if d.fineX == nil {
 				d.fineX, d.fineY = make([]int64, n), make([]int64, n)
 				d.outer = make([]*outerRegion, len(members))

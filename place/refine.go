@@ -7,7 +7,7 @@ import (
 )
 
 // refineRounds bounds the push rounds of refine.
-const refineRounds = 40
+const refineRounds = 16
 
 // refine pushes vertices away from what crowds them, in the spirit of
 // F. Bertault's planarity-preserving force-directed refinement ("A
@@ -21,8 +21,8 @@ const refineRounds = 40
 // drawing stays plane after every move (see planeDrawing), while the need
 // to stretch the whole drawing to clear its boxes shrinks.
 func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32) {
-	if len(vs) < 4 {
-		return
+	if len(vs) < 4 || len(vs) > tutteLimit {
+		return // big components keep their drawing: many rounds would dominate the run
 	}
 	// Boundary vertices may move too, as long as the boundary stays a
 	// strictly convex polygon turning the same way.
@@ -92,6 +92,7 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 	cell := max(1, 2*reach)
 	pushX := make(map[int32]float64)
 	pushY := make(map[int32]float64)
+	work := 0
 	for round := 0; round < refineRounds; round++ {
 		clear(pushX)
 		clear(pushY)
@@ -138,6 +139,9 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 				continue
 			}
 			steps := int(length/float64(cell)) + 1
+			if work += 9 * steps; work > spaceWork {
+				return // crowded and huge: stop refining, the drawing stays plane
+			}
 			for k := 0; k <= steps; k++ {
 				t := float64(k) / float64(steps)
 				cx, cy := grid.cellOf(x[u]+int64(t*float64(ex)), y[u]+int64(t*float64(ey)))

@@ -36,8 +36,10 @@ type Placed struct {
 	// Smoothed counts the components drawn from their smoothed drawing
 	// rather than the grid.
 	Smoothed int
-	// Unchecked counts components too big for the box-clearance check,
-	// spaced by Unit alone.
+	// Unchecked counts components too big for the box-clearance check
+	// (more than 20000 vertices, or past its work bound), spaced by Unit
+	// alone: their node boxes never overlap, but an edge may pass through
+	// a box.
 	Unchecked int
 	// Convex counts the components drawn with every face convex.
 	Convex int
@@ -52,6 +54,9 @@ const (
 	// the grid one unless it needs more than this times the area; its
 	// even spread reads better (see README, Spacing).
 	barycentricAreaAllowance = 2.0
+	// gridCompareLimit is the largest component whose grid drawing is
+	// compared with its barycentric one.
+	gridCompareLimit = 2000
 	// edgeGap is the clear space, in points, between a node box and an
 	// edge passing by: enough that the edge visibly misses the box.
 	edgeGap = 4
@@ -76,7 +81,8 @@ var errBoxes = errors.New("place: box sizes do not match the vertices")
 //     same way; it replaces the grid drawing unless it then needs more
 //     than twice the area;
 //   - stretching never exceeds 8 times; integer stretching keeps every
-//     orientation, so no crossing can appear.
+//     orientation, so no crossing can appear;
+//   - components of more than 20000 vertices keep the base unit, unchecked.
 //
 // Components are then packed in rows, one base unit apart.
 func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
@@ -169,18 +175,36 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 		f1 := d.aug.FaceNext(f0)
 		gridRegion = &outerRegion{face: []int32{f0, f1, d.aug.FaceNext(f1)}}
 	}
-	if gridRegion != nil && !gridOnly {
-		refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp)
-	}
-	stretch, checked := neededStretch(vs, edges, px, py, hw, hh, gap, stamp)
-	if !checked {
+	if len(vs) > tutteLimit {
+		// Too big to read as a picture anyway: base unit only, which keeps
+		// boxes apart; the clearance of edges is not checked.
 		out.Unchecked++
+		return
 	}
-	region := gridRegion
-	if !gridOnly && d.fineX != nil && d.outer[c] != nil && r.barycentricPoints(c, vs, edges, unit, tx, ty, seen) {
+	bary := !gridOnly && d.fineX != nil && d.outer[c] != nil && r.barycentricPoints(c, vs, edges, unit, tx, ty, seen)
+	// Past a few thousand vertices a grid drawing's long edges make its
+	// clearance check and refinement costly and it hardly ever wins: take
+	// the barycentric drawing without comparing, or the grid unchecked.
+	compare := len(vs) <= gridCompareLimit
+	if !compare && !bary {
+		out.Unchecked++
+		return
+	}
+	stretch, region := math.Inf(1), gridRegion
+	if compare {
+		if gridRegion != nil && !gridOnly {
+			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp)
+		}
+		var checked bool
+		stretch, checked = neededStretch(vs, edges, px, py, hw, hh, gap, stamp)
+		if !checked {
+			out.Unchecked++
+		}
+	}
+	if bary {
 		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp)
 		s2, _ := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp)
-		if clearedArea(vs, tx, ty, s2, hw, hh) <= barycentricAreaAllowance*clearedArea(vs, px, py, stretch, hw, hh) {
+		if !compare || clearedArea(vs, tx, ty, s2, hw, hh) <= barycentricAreaAllowance*clearedArea(vs, px, py, stretch, hw, hh) {
 			for _, v := range vs {
 				px[v], py[v] = tx[v], ty[v]
 			}
@@ -359,27 +383,78 @@ func abs64(v int64) int64 {
 	return v
 }
 
-// bucketGrid files vertices by square cells.
+// bucketGrid files vertices by square cells: in a dense array of cells
+// over the vertices' bounding box when that is not much bigger than the
+// number of vertices (the usual case for spread-out drawings), else in a
+// map.
 type bucketGrid struct {
-	cell  int64
-	cells map[[2]int64][]int32
+	cell       int64
+	x0, y0     int64 // cell coordinates of the dense array's corner
+	cols, rows int64
+	start      []int32 // dense: cell -> first entry in items
+	items      []int32
+	cells      map[uint64][]int32
 }
 
 func newBucketGrid(vs []int32, x, y []int64, cell int64) *bucketGrid {
-	g := &bucketGrid{cell: cell, cells: make(map[[2]int64][]int32, len(vs))}
+	g := &bucketGrid{cell: cell}
+	if len(vs) == 0 {
+		g.cells = map[uint64][]int32{}
+		return g
+	}
+	minX, minY := int64(math.MaxInt64), int64(math.MaxInt64)
+	maxX, maxY := int64(math.MinInt64), int64(math.MinInt64)
 	for _, v := range vs {
 		cx, cy := g.cellOf(x[v], y[v])
-		k := [2]int64{cx, cy}
+		minX, minY, maxX, maxY = min(minX, cx), min(minY, cy), max(maxX, cx), max(maxY, cy)
+	}
+	cols, rows := maxX-minX+1, maxY-minY+1
+	if cols > 0 && rows > 0 && cols <= 1<<30/rows && cols*rows <= 64*int64(len(vs))+1024 {
+		g.x0, g.y0, g.cols, g.rows = minX, minY, cols, rows
+		g.start = make([]int32, cols*rows+1)
+		for _, v := range vs {
+			cx, cy := g.cellOf(x[v], y[v])
+			g.start[(cy-minY)*cols+(cx-minX)+1]++
+		}
+		for i := 1; i < len(g.start); i++ {
+			g.start[i] += g.start[i-1]
+		}
+		g.items = make([]int32, len(vs))
+		fill := append([]int32(nil), g.start[:len(g.start)-1]...)
+		for _, v := range vs {
+			cx, cy := g.cellOf(x[v], y[v])
+			k := (cy-minY)*cols + (cx - minX)
+			g.items[fill[k]] = v
+			fill[k]++
+		}
+		return g
+	}
+	g.cells = make(map[uint64][]int32, len(vs))
+	for _, v := range vs {
+		cx, cy := g.cellOf(x[v], y[v])
+		k := cellKey(cx, cy)
 		g.cells[k] = append(g.cells[k], v)
 	}
 	return g
 }
 
+func cellKey(cx, cy int64) uint64 { return uint64(cx)<<32 ^ uint64(cy)&0xffffffff }
+
 func (g *bucketGrid) cellOf(x, y int64) (int64, int64) {
 	return floorDiv(x, g.cell), floorDiv(y, g.cell)
 }
 
-func (g *bucketGrid) at(cx, cy int64) []int32 { return g.cells[[2]int64{cx, cy}] }
+func (g *bucketGrid) at(cx, cy int64) []int32 {
+	if g.cells != nil {
+		return g.cells[cellKey(cx, cy)]
+	}
+	cx, cy = cx-g.x0, cy-g.y0
+	if cx < 0 || cy < 0 || cx >= g.cols || cy >= g.rows {
+		return nil
+	}
+	k := cy*g.cols + cx
+	return g.items[g.start[k]:g.start[k+1]]
+}
 
 func floorDiv(a, b int64) int64 {
 	q := a / b

@@ -8,8 +8,12 @@ import "github.com/gridwood/gridwood/planarize"
 const fineSpan = 1 << 30
 
 // tutteLimit is the largest component given a barycentric drawing; bigger
-// ones keep their grid drawing.
-const tutteLimit = 20000
+// ones keep their grid drawing. tutteTriangleLimit is the largest given one
+// when its outer face is a triangle.
+const (
+	tutteLimit         = 20000
+	tutteTriangleLimit = 100
+)
 
 // outerRegion describes a component's outer face F as the layout chose it:
 // its darts in face order (F on their left) and the dummy edges that

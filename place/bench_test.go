@@ -1,0 +1,50 @@
+package place
+
+import (
+	"testing"
+
+	"github.com/gridwood/gridwood/internal/graphgen"
+)
+
+// BenchmarkCore measures the layout core as the command runs it, graph in
+// memory: Draw (simple graph, planarity and embedding, planar subgraph
+// when needed, augmentation, ordering, coordinates, compaction, barycentric
+// drawing) and Space (node boxes of 75 x 36 points). Targets (issue 5):
+// a 10^6-vertex triangulation under 1.5 s and 1 GB.
+func BenchmarkCore(b *testing.B) {
+	for _, tc := range []struct {
+		name string
+		g    func() graphgen.Graph
+	}{
+		{"tri-1e4", func() graphgen.Graph { return graphgen.RandomMaximalPlanar(10000, 1) }},
+		{"tri-1e5", func() graphgen.Graph { return graphgen.RandomMaximalPlanar(100000, 1) }},
+		{"tri-1e6", func() graphgen.Graph { return graphgen.RandomMaximalPlanar(1000000, 1) }},
+		{"grid-1e6", func() graphgen.Graph { return graphgen.Grid(1000, 1000) }},
+		{"star-1e6", func() graphgen.Graph { return graphgen.Star(999999) }},
+		{"path-1e6", func() graphgen.Graph { return graphgen.Path(1000000) }},
+		{"nested-1e6", func() graphgen.Graph { return graphgen.NestedTriangles(333333) }},
+		{"tree-1e6", func() graphgen.Graph { return graphgen.RandomTree(1000000, 1) }},
+		{"extra-1e5+10", func() graphgen.Graph { return graphgen.PlanarPlusExtra(100000, 10, 1) }},
+		{"gnm-2000-6000", func() graphgen.Graph { return graphgen.RandomGnm(2000, 6000, 1) }},
+		{"complete-60", func() graphgen.Graph { return graphgen.Complete(60) }},
+	} {
+		g := tc.g()
+		boxes := Boxes{HalfW: make([]int64, g.N), HalfH: make([]int64, g.N), Gap: 18}
+		for i := range boxes.HalfW {
+			boxes.HalfW[i], boxes.HalfH[i] = 38, 18
+		}
+		b.Run(tc.name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
+				if err != nil {
+					b.Fatal(err)
+				}
+				if _, err := res.Space(boxes, SpaceOptions{}); err != nil {
+					b.Fatal(err)
+				}
+			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(max(1, len(g.Edges))), "ns/edge")
+		})
+	}
+}
