@@ -3,6 +3,7 @@ package dotio
 import (
 	"fmt"
 	"math"
+	"slices"
 
 	"gonum.org/v1/gonum/graph/formats/dot/ast"
 )
@@ -98,7 +99,7 @@ func (w *walker) run() error {
 		g := &Graph{
 			ID: ag.ID, Directed: ag.Directed, Strict: ag.Strict,
 			Line: line, Col: col,
-			file: w.f, ast: ag, index: make(map[string]int32),
+			file: w.f, ast: ag, index: make(map[string]int32, nodeGuess(sc, gi)),
 		}
 		// Each node-to-node operator gives one edge: a good first capacity.
 		end := math.MaxInt32
@@ -509,4 +510,21 @@ func (w *walker) compactTwo(l, r *operand) error {
 	r.computed = true
 	w.log = w.log[:re]
 	return nil
+}
+
+// nodeGuess sizes a graph's name index up front, so it is not rehashed as
+// it grows: at most one node per node mention of this graph (the mentions
+// of a graph lie between its keyword and the next graph's), capped so that
+// a file of many mentions of few nodes does not reserve much.
+func nodeGuess(sc *scanned, gi int) int {
+	lo, hi := int32(0), int32(math.MaxInt32)
+	if gi < len(sc.graphKw) {
+		lo = sc.graphKw[gi]
+	}
+	if gi+1 < len(sc.graphKw) {
+		hi = sc.graphKw[gi+1]
+	}
+	i, _ := slices.BinarySearch(sc.nodeToks, lo)
+	j, _ := slices.BinarySearch(sc.nodeToks, hi)
+	return min(j-i, 1<<22) / 2
 }

@@ -2,8 +2,17 @@
 // DOT. See the package documentation (doc.go) and README.md.
 package main
 
-import "os"
+import (
+	"os"
+	"runtime/debug"
+)
 
 func main() {
+	// The syntax tree of a big file is many small objects that live until
+	// the end; collecting less often trades some memory for a fifth less
+	// time (measured on 300k-vertex inputs, see DEVELOPERS.md).
+	if os.Getenv("GOGC") == "" {
+		debug.SetGCPercent(300)
+	}
 	os.Exit(run(os.Args[1:], os.Stdin, os.Stdout, os.Stderr))
 }
