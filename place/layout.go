@@ -16,6 +16,10 @@ type Drawing struct {
 	// Components lists the connected components in order of their smallest
 	// vertex, with the box each occupies.
 	Components []Component
+	// NotConvex counts the components of three or more vertices that
+	// Method Convex could not draw convex (not 3-connected) and so drew
+	// with the Schnyder method.
+	NotConvex int
 
 	// bary holds each vertex's weak barycentric coordinates within its
 	// component (zero for components of one or two vertices); tests check
@@ -42,6 +46,8 @@ type Component struct {
 	// FullW, FullH is the extent before compaction (equal to W, H without
 	// Options.Compact).
 	FullW, FullH int64
+	// Convex reports a convex drawing (Method Convex).
+	Convex bool
 }
 
 // Options tune Layout. The zero value is the default.
@@ -52,12 +58,29 @@ type Options struct {
 	// Compact removes grid columns and rows that can go without changing
 	// any crossing or touching (see compact); the grid bound still holds.
 	Compact bool
+	// Method chooses how components are drawn; see Method.
+	Method Method
 	// Smooth, if positive, also computes for every component of 4 to
 	// tutteLimit vertices Tutte's barycentric drawing with its outer face
 	// on a convex polygon, solving for at most that many conjugate-gradient
 	// steps (see tutteDrawing); Space uses it where the grid crowds.
 	Smooth int
 }
+
+// Method is a drawing method.
+type Method int
+
+const (
+	// Schnyder draws each component at the weak barycentric coordinates
+	// of a Schnyder wood of a triangulation of it.
+	Schnyder Method = iota
+	// Convex draws each 3-connected component with every face a convex
+	// polygon, on the (f-1) x (f-1) grid (S. Felsner, "Convex drawings of
+	// planar graphs and the order dimension of 3-polytopes", Order 18,
+	// 2001; see convexDrawing); other components get the Schnyder method
+	// and are counted in Drawing.NotConvex.
+	Convex
+)
 
 // ErrOuter reports that no face of the embedding holds all of
 // Options.Outer.
@@ -119,11 +142,43 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			extra += 3*k - 6 - edgesIn[c]/2
 		}
 	}
-	skip := func(v int32) bool { return full[comp[v]] }
 	chosen, err := chooseOuterFaces(work, comp, len(members), opt.Outer)
 	if err != nil {
 		return nil, err
 	}
+	// Convex drawings work on the input's own embedding: draw them first
+	// and leave those components out of the augmentation.
+	var convexXY [][2][]int64
+	var convexWH [][2]int64
+	notConvex := 0
+	if opt.Method == Convex {
+		convexXY = make([][2][]int64, len(members))
+		convexWH = make([][2]int64, len(members))
+		for c, vs := range members {
+			if len(vs) < 3 || chosen[c] < 0 {
+				continue
+			}
+			sub, oldDart := work.Restrict(vs)
+			outer := int32(-1)
+			for nd, od := range oldDart {
+				if od == chosen[c] {
+					outer = int32(nd)
+					break
+				}
+			}
+			x, y, w, h, err := convexDrawing(sub, outer)
+			if err != nil {
+				notConvex++
+				continue
+			}
+			convexXY[c], convexWH[c] = [2][]int64{x, y}, [2]int64{w, h}
+			if !full[c] {
+				extra -= 3*len(vs) - 6 - edgesIn[c]/2
+			}
+			full[c] = true // no augmentation
+		}
+	}
+	skip := func(v int32) bool { return full[comp[v]] }
 	work.Reserve(extra)
 	biconnect(work, skip)
 	// A chosen face that gets triangulated hands over one of its
@@ -183,6 +238,14 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			boxes[c] = Component{Vertices: 2, W: 1, FullW: 1}
 			continue
 		}
+		if convexXY != nil && convexXY[c][0] != nil {
+			for i, v := range vs {
+				d.X[v], d.Y[v] = convexXY[c][0][i], convexXY[c][1][i]
+			}
+			w, h := convexWH[c][0], convexWH[c][1]
+			boxes[c] = Component{Vertices: len(vs), W: w, H: h, FullW: w, FullH: h, Convex: true}
+			continue
+		}
 		outer := outerDart[c]
 		if outer < 0 {
 			outer = work.First(vs[0])
@@ -235,6 +298,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		d.Height = max(d.Height, boxes[c].Y0+boxes[c].H)
 	}
 	d.Components = boxes
+	d.NotConvex = notConvex
 	d.members = members
 	if opt.Smooth > 0 {
 		d.aug = work

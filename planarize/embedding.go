@@ -239,3 +239,49 @@ func (e *Embedding) WithoutLastVertex() *Embedding {
 	}
 	return out
 }
+
+// Restrict returns the embedding induced on the vertices vs (which must be
+// closed under adjacency, such as a connected component), with vertex vs[i]
+// renumbered i and the rotations kept, and for each new dart the old dart
+// it came from.
+func (e *Embedding) Restrict(vs []int32) (*Embedding, []int32) {
+	local := make(map[int32]int32, len(vs))
+	for i, v := range vs {
+		local[v] = int32(i)
+	}
+	out := NewEmbedding(len(vs))
+	var oldDart []int32
+	newDart := make(map[int32]int32)
+	for _, v := range vs {
+		f := e.first[v]
+		if f < 0 {
+			continue
+		}
+		for d := f; ; {
+			if _, ok := newDart[d]; !ok {
+				id := int32(len(out.edges))
+				a, b := e.Tail(d), e.Head(d)
+				out.edges = append(out.edges, [2]int32{local[a], local[b]})
+				newDart[d], newDart[d^1] = 2*id, 2*id+1
+				oldDart = append(oldDart, d, d^1)
+			}
+			if d = e.next[d]; d == f {
+				break
+			}
+		}
+	}
+	out.next = make([]int32, len(oldDart))
+	out.prev = make([]int32, len(oldDart))
+	for nd, od := range oldDart {
+		n := newDart[e.next[od]]
+		out.next[nd] = n
+		out.prev[n] = int32(nd)
+	}
+	for i, v := range vs {
+		if f := e.first[v]; f >= 0 {
+			out.first[i] = newDart[f]
+		}
+		out.deg[i] = e.deg[v]
+	}
+	return out, oldDart
+}

@@ -56,7 +56,7 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 		Graph: graphName(g, gi), Directed: g.Directed, Nodes: len(g.Nodes), Edges: len(g.Edges),
 		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
 		Method: method, Components: len(res.Components), BarycentricComponents: sp.Smoothed,
-		ConvexComponents: sp.Convex,
+		ConvexComponents: convexCount(res),
 		GridWidth:        res.Width, GridHeight: res.Height, Unit: sp.Unit,
 		WidthPoints: sp.Width, HeightPoints: sp.Height,
 	}
@@ -100,4 +100,14 @@ func writeReport(w io.Writer, files []fileReport) error {
 	return enc.Encode(struct {
 		Files []fileReport `json:"files"`
 	}{files})
+}
+
+func convexCount(res *place.Result) int {
+	n := 0
+	for _, c := range res.Components {
+		if c.Convex {
+			n++
+		}
+	}
+	return n
 }

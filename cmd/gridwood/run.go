@@ -55,6 +55,8 @@ type config struct {
 	check        bool
 	outer        []string
 	reportFile   string
+	method       place.Method
+	stderr       io.Writer
 	inputs       []string
 }
 
@@ -83,6 +85,7 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "gridwood: %v\nRun 'gridwood --help' for usage.\n", err)
 		return exitBadInput
 	}
+	cfg.stderr = stderr
 	if err := process(cfg, stdin, stdout, stderr); err != nil {
 		var ee *exitError
 		if errors.As(err, &ee) {
@@ -115,6 +118,7 @@ func parseFlags(args []string, stderr io.Writer) (*config, error) {
 	fs.IntVar(&cfg.maxExpansion, "max-expansion", dotio.DefaultMaxExpansion, "refuse input whose edge statements with subgraph operands ({a b} -- {c d})\nexpand to more than `N` edges; negative means no limit")
 	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE` (set-aside\nedges dashed, underneath); open it in any browser\nexample: --svg preview.svg")
 	fs.BoolVar(&cfg.check, "check", false, "do not lay out: check the pos of every node already in the input and report,\none per line on standard output, crossing edges, nodes on edges they do not\nend at, and overlapping node boxes; exit status 1 if anything was found\nexample: gridwood --check drawn.dot")
+	method := fs.String("method", "schnyder", "drawing method: schnyder (every planar graph, (n-2) x (n-2) grid per component,\nthen spaced and smoothed for reading) or convex (every face a convex polygon,\non the (f-1) x (f-1) grid, for 3-connected components; the others fall back\nto schnyder and standard error says how many)\nexample: --method convex")
 	outer := fs.String("outer", "", "node names that must lie on the outer boundary of the drawing, comma\nseparated (as the names are written, without quotes); applies to every graph\nthat has all of them. Default: a largest face of the graph is the outside\nexample: --outer Library,Gym,Lodge")
 	fs.StringVar(&cfg.reportFile, "report", "", "write a JSON quality report to `FILE`: per graph its size, set-aside edges,\ngrid size, area, smallest angle, edge length ratio, node clearance and the\ntime of each stage (README, Quality report, explains the fields)\nexample: --report quality.json")
 	version := fs.Bool("version", false, "print the version and exit")
@@ -143,6 +147,14 @@ func parseFlags(args []string, stderr io.Writer) (*config, error) {
 			return nil, &usageError{"--mark-removed: " + err.Error()}
 		}
 		cfg.markRemoved = attrs
+	}
+	switch *method {
+	case "schnyder":
+		cfg.method = place.Schnyder
+	case "convex":
+		cfg.method = place.Convex
+	default:
+		return nil, &usageError{fmt.Sprintf("--method %q: want schnyder or convex", *method)}
 	}
 	if *outer != "" {
 		for _, name := range strings.Split(*outer, ",") {
@@ -380,7 +392,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Resu
 		outer = append(outer, int32(i))
 	}
 	res, err := place.Draw(len(g.Nodes), edges, place.DrawOptions{
-		Layout:   place.Options{Compact: true, Smooth: smoothSweeps, Outer: outer},
+		Layout:   place.Options{Compact: true, Smooth: smoothSweeps, Outer: outer, Method: cfg.method},
 		Subgraph: planarize.SubgraphOptions{Effort: cfg.effort},
 	})
 	if errors.Is(err, place.ErrOuter) {
@@ -403,9 +415,16 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Resu
 			lay.Removed[i] = true
 		}
 	}
+	if res.NotConvex > 0 && !cfg.quiet {
+		fmt.Fprintf(cfg.stderr, "gridwood: %s: %d of %d components are not 3-connected and were drawn with the schnyder method\n", where, res.NotConvex, len(res.Components))
+	}
 	var gr graphReport
 	if cfg.reportFile != "" {
-		gr = graphMeasures(g, gi, "schnyder", res, sp, boxes, spaceTime)
+		name := "schnyder"
+		if cfg.method == place.Convex {
+			name = "convex"
+		}
+		gr = graphMeasures(g, gi, name, res, sp, boxes, spaceTime)
 	}
 	return res, lay, gr, nil
 }
