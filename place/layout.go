@@ -179,8 +179,41 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		}
 	}
 	skip := func(v int32) bool { return full[comp[v]] }
+	// Remember the chosen faces' darts: biconnection may cut a face that
+	// passes a cut vertex twice, and then the largest piece is used.
+	chosenDarts := make([][]int32, len(members))
+	if opt.Smooth > 0 {
+		for c, d := range chosen {
+			if d < 0 || full[c] {
+				continue
+			}
+			for x := d; ; {
+				chosenDarts[c] = append(chosenDarts[c], x)
+				if x = work.FaceNext(x); x == d {
+					break
+				}
+			}
+		}
+	}
 	work.Reserve(extra)
 	biconnect(work, skip)
+	for c, ds := range chosenDarts {
+		best := 0
+		for _, d := range ds {
+			k := 0
+			for x := d; ; k++ {
+				if x = work.FaceNext(x); x == d {
+					break
+				}
+			}
+			if k > best {
+				best, chosen[c] = k, d
+			}
+			if k+1 == len(ds) {
+				break // not cut at all
+			}
+		}
+	}
 	// A chosen face that gets triangulated hands over one of its
 	// triangles: as the unbounded triangle it makes the whole face the
 	// outer face of the final drawing, once the dummy edges are gone.
@@ -192,6 +225,9 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		if d >= 0 {
 			wanted[d] = true
 			if opt.Smooth > 0 {
+				// The face after biconnection: a simple cycle (the input's
+				// face may pass a cut vertex twice), cut from the chosen
+				// one by the biconnecting edges only.
 				r := &outerRegion{}
 				for x := d; ; {
 					r.face = append(r.face, x)

@@ -93,7 +93,21 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 	pushX := make(map[int32]float64)
 	pushY := make(map[int32]float64)
 	work := 0
-	for round := 0; round < refineRounds; round++ {
+	// The drawing that needs the least stretch to clear its boxes wins:
+	// pushing one vertex off an edge can push it onto another, so a round
+	// may make things worse, and the best state seen is restored at the end.
+	bestStretch, _ := neededStretch(vs, edges, x, y, hw, hh, gap, stamp)
+	bestX := make([]int64, len(vs))
+	bestY := make([]int64, len(vs))
+	for i, v := range vs {
+		bestX[i], bestY[i] = x[v], y[v]
+	}
+	defer func() {
+		for i, v := range vs {
+			x[v], y[v] = bestX[i], bestY[i]
+		}
+	}()
+	for round := 0; round < refineRounds && bestStretch > 1; round++ {
 		clear(pushX)
 		clear(pushY)
 		grid := newBucketGrid(vs, x, y, cell)
@@ -192,6 +206,12 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		}
 		if !moved {
 			return
+		}
+		if s, _ := neededStretch(vs, edges, x, y, hw, hh, gap, stamp); s < bestStretch {
+			bestStretch = s
+			for i, v := range vs {
+				bestX[i], bestY[i] = x[v], y[v]
+			}
 		}
 	}
 }
