@@ -106,20 +106,20 @@ func parseFlags(args []string, stderr io.Writer) (*config, error) {
 	fs.SetOutput(io.Discard)
 	fs.SortFlags = false
 	fs.StringVarP(&cfg.output, "output", "o", "", "write the laid-out DOT to `FILE` instead of standard output\n(written to a temporary file first, then renamed: a failed run leaves FILE as it was)\nexample: -o site.laid.dot")
-	fs.IntVarP(&cfg.unit, "unit", "u", 0, "points per grid step, keeping every node on the grid; 0 chooses the spacing\nfrom the node sizes and labels (see README, Spacing)\nexample: --unit 36")
+	fs.IntVarP(&cfg.unit, "unit", "u", 0, "`N` points per grid step, keeping every node on the grid; 0 chooses the spacing\nfrom the node sizes and labels (see README, Spacing)\nexample: --unit 36")
 	fs.BoolVar(&cfg.gridOnly, "grid", false, "keep every node on its grid point even where the grid drawing is crowded\n(the spacing is still chosen from the node sizes)")
 	fs.BoolVarP(&cfg.quiet, "quiet", "q", false, "print nothing on standard error except errors")
 	fs.StringVar(&cfg.removedFile, "removed", "", "write the edges set aside to make a graph planar to `FILE`, as DOT:\none graph per input graph, one edge per line, with its attributes\nexample: --removed removed.dot")
 	fs.BoolVar(&cfg.dropRemoved, "drop-removed", false, "leave the set-aside edges out of the main output")
-	mark := fs.String("mark-removed", "", "add these attributes to the set-aside edges in the main output\nexample: --mark-removed 'style=dashed,color=gray'")
+	mark := fs.String("mark-removed", "", "add these `ATTRS` to the set-aside edges in the main output\nexample: --mark-removed 'style=dashed,color=gray'")
 	fs.BoolVar(&cfg.planarOnly, "planar-only", false, "treat a non-planar graph as an error (exit status 3, nothing written)")
 	fs.StringVar(&cfg.explainFile, "explain", "", "write to `FILE`, for each set-aside edge, a Kuratowski subgraph (a subdivision\nof K5 or K3,3 made of it and kept edges) proving it could not stay, as DOT\nexample: --explain why.dot")
-	fs.IntVar(&cfg.effort, "effort", 0, "extra search for fewer set-aside edges: N seeded restarts and a larger exact\nsearch on small blocks; the result for a given N is always the same\nexample: --effort 8")
+	fs.IntVar(&cfg.effort, "effort", 0, "extra search for fewer set-aside edges: `N` seeded restarts and a larger exact\nsearch on small blocks; the result for a given N is always the same\nexample: --effort 8")
 	fs.IntVar(&cfg.maxExpansion, "max-expansion", dotio.DefaultMaxExpansion, "refuse input whose edge statements with subgraph operands ({a b} -- {c d})\nexpand to more than `N` edges; negative means no limit")
 	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE` (set-aside\nedges dashed, underneath); open it in any browser\nexample: --svg preview.svg")
 	fs.BoolVar(&cfg.check, "check", false, "do not lay out: check the pos of every node already in the input and report,\none per line on standard output, crossing edges, nodes on edges they do not\nend at, and overlapping node boxes; exit status 1 if anything was found\nexample: gridwood --check drawn.dot")
-	method := fs.String("method", "schnyder", "drawing method: schnyder (every planar graph, (n-2) x (n-2) grid per component,\nthen spaced and smoothed for reading) or convex (every face a convex polygon,\non the (f-1) x (f-1) grid, for 3-connected components; the others fall back\nto schnyder and standard error says how many)\nexample: --method convex")
-	outer := fs.String("outer", "", "node names that must lie on the outer boundary of the drawing, comma\nseparated (as the names are written, without quotes); applies to every graph\nthat has all of them. Default: a largest face of the graph is the outside\nexample: --outer Library,Gym,Lodge")
+	method := fs.String("method", "schnyder", "drawing `METHOD`: schnyder (every planar graph, (n-2) x (n-2) grid per component,\nthen spaced and smoothed for reading) or convex (every face a convex polygon,\non the (f-1) x (f-1) grid, for 3-connected components; the others fall back\nto schnyder and standard error says how many)\nexample: --method convex")
+	outer := fs.String("outer", "", "`NAMES` of nodes that must lie on the outer boundary of the drawing, comma\nseparated (as the names are written, without quotes); applies to every graph\nthat has all of them. Default: a largest face of the graph is the outside\nexample: --outer Library,Gym,Lodge")
 	fs.StringVar(&cfg.reportFile, "report", "", "write a JSON quality report to `FILE`: per graph its size, set-aside edges,\ngrid size, area, smallest angle, edge length ratio, node clearance and the\ntime of each stage (README, Quality report, explains the fields)\nexample: --report quality.json")
 	version := fs.Bool("version", false, "print the version and exit")
 	help := fs.BoolP("help", "h", false, "show this help and exit")
@@ -185,7 +185,28 @@ kept in the output unless --drop-removed is given.
 
 Flags:
 `)
-	fmt.Fprint(w, fs.FlagUsagesWrapped(0))
+	fs.VisitAll(func(f *pflag.Flag) {
+		name, usage := pflag.UnquoteUsage(f)
+		head := "      --" + f.Name
+		if f.Shorthand != "" {
+			head = "  -" + f.Shorthand + ", --" + f.Name
+		}
+		if name != "" && f.Value.Type() != "bool" {
+			head += " " + name
+		}
+		fmt.Fprintln(w, head)
+		for _, line := range strings.Split(usage, "\n") {
+			fmt.Fprintf(w, "        %s\n", line)
+		}
+		def := f.DefValue
+		switch {
+		case flagDefaults[f.Name] != "":
+			def = flagDefaults[f.Name]
+		case def == "" || def == "false":
+			def = "off"
+		}
+		fmt.Fprintf(w, "        default: %s\n", def)
+	})
 	fmt.Fprint(w, `
 Exit status:
   0  done
@@ -197,6 +218,16 @@ Examples:
   gridwood examples/campus-fibre.dot > laid.dot
   gridwood --removed removed.dot --mark-removed style=dashed net.dot -o net.laid.dot
 `)
+}
+
+// flagDefaults words the defaults that the bare value would not explain.
+var flagDefaults = map[string]string{
+	"output":        "standard output",
+	"unit":          "0, chosen from the node sizes",
+	"effort":        "0",
+	"max-expansion": "1000000",
+	"method":        "schnyder",
+	"outer":         "a largest face of each graph",
 }
 
 func versionString() string {

@@ -210,7 +210,7 @@ func TestHelpAndVersion(t *testing.T) {
 	if code != exitOK {
 		t.Fatalf("--help exit %d", code)
 	}
-	for _, flag := range []string{"--output", "--unit", "--quiet", "--removed", "--drop-removed", "--mark-removed", "--planar-only", "--explain", "--effort", "--max-expansion", "--version", "--svg", "--check", "--grid", "Exit status", "(default 1000000)"} {
+	for _, flag := range []string{"--output", "--unit", "--quiet", "--removed", "--drop-removed", "--mark-removed", "--planar-only", "--explain", "--effort", "--max-expansion", "--version", "--svg", "--check", "--grid", "Exit status", "default: 1000000", "default: schnyder"} {
 		if !strings.Contains(errs, flag) {
 			t.Errorf("help lacks %q", flag)
 		}
