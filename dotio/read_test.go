@@ -265,7 +265,7 @@ func TestReadErrors(t *testing.T) {
 		{"undirected op in digraph", "digraph {\n\ta -- b\n}", "t.gv:2:4: '--' in a digraph; use '->'"},
 		{"directed op in graph", "graph { a -> b }", "t.gv:1:11: '->' in an undirected graph; use '--'"},
 		{"second graph kind", "digraph { a -> b }\ngraph { a -> b }", "t.gv:2:11: '->' in an undirected graph; use '--'"},
-		{"bad compass", "graph { a:p:up }", "t.gv:1:13: invalid compass point up; want one of n, ne, e, se, s, sw, w, nw, c, _"},
+		{"bad compass", "graph { a:p:up }", "t.gv:1:13: invalid compass point \"up\"; want one of n, ne, e, se, s, sw, w, nw, c, _"},
 		{"escaped backslash before newline", "graph { \"a\\\\\n\" }", `t.gv:1:11: line break right after an escaped backslash (\\) in a quoted string is not supported`},
 		// Syntax errors come from gonum's parser, positioned in our metric.
 		{"missing operand", "graph {\n\ta -- b -- }", `t.gv:2:12: syntax error: unexpected "}"; expected one of "{", subgraph or ID`},

@@ -710,5 +710,7 @@ func (s *scanner) compass(kind tokKind, off int) error {
 	if kind == tID && isCompass(lit) {
 		return nil
 	}
-	return s.errorf(off, "invalid compass point %s; want one of n, ne, e, se, s, sw, w, nw, c, _", lit)
+	// %q keeps a line break or control character in the lexeme from
+	// splitting the one-line message.
+	return s.errorf(off, "invalid compass point %q; want one of n, ne, e, se, s, sw, w, nw, c, _", lit)
 }

@@ -1,0 +1,150 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"math/rand/v2"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// randomNonPlanarDOT writes G(n, m) (m distinct pairs drawn uniformly) as
+// DOT with attributes, a subgraph and a repeated edge; for m > 3n - 6 it
+// is not planar (Euler's bound, REFERENCES.md).
+func randomNonPlanarDOT(seed uint64, n, m int) string {
+	rng := rand.New(rand.NewPCG(seed, 42))
+	var b strings.Builder
+	fmt.Fprintf(&b, "graph \"mesh %d\" {\n\tnode [shape=circle, width=0.4]\n\tsubgraph cluster_core { label=\"core\"; v0; v1; v2 }\n", seed)
+	seen := map[[2]int]bool{}
+	for len(seen) < m {
+		u, v := rng.IntN(n), rng.IntN(n)
+		k := [2]int{min(u, v), max(u, v)}
+		if u == v || seen[k] {
+			continue
+		}
+		seen[k] = true
+		fmt.Fprintf(&b, "\tv%d -- v%d", u, v)
+		if rng.IntN(4) == 0 {
+			b.WriteString(" [color=red]")
+		}
+		b.WriteString("\n")
+	}
+	b.WriteString("\tv0 -- v1\n}\n")
+	return b.String()
+}
+
+// outputs are the bytes of one run: standard output and the two files.
+type outputs struct{ stdout, removed, explain []byte }
+
+// TestDeterministicAcrossProcesses runs the command as a subprocess with
+// GOMAXPROCS=1 and 2, reading a file and standard input, and wants the
+// same bytes every time, also in --removed and --explain files, and the
+// same as an in-process run (README.md, "Determinism").
+func TestDeterministicAcrossProcesses(t *testing.T) {
+	type input struct {
+		name  string
+		src   []byte
+		flags []string
+	}
+	var inputs []input
+	for _, pattern := range []string{"../../examples/*.dot", "testdata/*.dot", "../../dotio/testdata/*.gv"} {
+		files, _ := filepath.Glob(pattern)
+		for _, f := range files {
+			b, err := os.ReadFile(f)
+			if err != nil {
+				t.Fatal(err)
+			}
+			inputs = append(inputs, input{name: filepath.Base(f), src: b})
+		}
+	}
+	if len(inputs) < 8 {
+		t.Fatalf("found %d inputs", len(inputs))
+	}
+	for seed := range uint64(3) {
+		inputs = append(inputs, input{name: fmt.Sprintf("gnm%d", seed), src: []byte(randomNonPlanarDOT(seed, 16, 52))})
+	}
+	inputs = append(inputs,
+		input{name: "gnm-effort", src: []byte(randomNonPlanarDOT(9, 14, 44)), flags: []string{"--effort", "3"}},
+		input{name: "generated", src: []byte(genDOT(77, false) + genDOT(78, false))},
+		input{name: "k33-unit", src: []byte("digraph { {a b c} -> {x y z} }"), flags: []string{"--unit", "36"}},
+	)
+	nonPlanar := 0
+	for _, in := range inputs {
+		t.Run(in.name, func(t *testing.T) {
+			dir := t.TempDir()
+			path := filepath.Join(dir, "in.dot")
+			if err := os.WriteFile(path, in.src, 0o644); err != nil {
+				t.Fatal(err)
+			}
+			var first *outputs
+			var firstHow string
+			compare := func(how string, got outputs) {
+				if first == nil {
+					first, firstHow = &got, how
+					return
+				}
+				for _, c := range []struct {
+					what string
+					a, b []byte
+				}{{"stdout", first.stdout, got.stdout}, {"--removed", first.removed, got.removed}, {"--explain", first.explain, got.explain}} {
+					if !bytes.Equal(c.a, c.b) {
+						t.Errorf("%s differs between %s and %s:\n%s\nvs\n%s", c.what, firstHow, how, c.a, c.b)
+					}
+				}
+			}
+			run := 0
+			for _, procs := range []string{"1", "2"} {
+				for _, fromFile := range []bool{true, false} {
+					run++
+					rm := filepath.Join(dir, fmt.Sprintf("removed%d.dot", run))
+					ex := filepath.Join(dir, fmt.Sprintf("explain%d.dot", run))
+					args := append([]string{"-q", "--removed", rm, "--explain", ex}, in.flags...)
+					var stdin []byte
+					if fromFile {
+						args = append(args, path)
+					} else {
+						stdin = in.src
+					}
+					res := runSubprocess(t, stdin, []string{"GOMAXPROCS=" + procs}, args...)
+					if res.code != exitOK || len(res.stderr) > 0 {
+						t.Fatalf("GOMAXPROCS=%s file=%v: %s: %s", procs, fromFile, res.state, res.stderr)
+					}
+					r, err1 := os.ReadFile(rm)
+					e, err2 := os.ReadFile(ex)
+					if err1 != nil || err2 != nil {
+						t.Fatalf("side files: %v %v", err1, err2)
+					}
+					if fromFile {
+						// --explain says where each set-aside edge was
+						// written, so it names its input.
+						e = bytes.ReplaceAll(e, []byte(path), []byte("<stdin>"))
+					}
+					compare(fmt.Sprintf("GOMAXPROCS=%s file=%v", procs, fromFile), outputs{res.stdout, r, e})
+				}
+			}
+			rm, ex := filepath.Join(dir, "r.dot"), filepath.Join(dir, "e.dot")
+			code, out, errs, err := runInProcess(in.src, append([]string{"-q", "--removed", rm, "--explain", ex}, in.flags...)...)
+			if err != nil || code != exitOK {
+				t.Fatalf("in-process: exit %d %v %s", code, err, errs)
+			}
+			r, _ := os.ReadFile(rm)
+			e, _ := os.ReadFile(ex)
+			compare("in-process", outputs{out, r, e})
+			if len(first.stdout) == 0 || !bytes.Contains(first.stdout, []byte("pos=")) {
+				t.Errorf("no layout in the output: %q", first.stdout)
+			}
+			if bytes.Contains(first.removed, []byte(" -- ")) || bytes.Contains(first.removed, []byte(" -> ")) {
+				nonPlanar++
+				if len(bytes.TrimSpace(first.explain)) == 0 {
+					t.Errorf("edges set aside but --explain is empty")
+				}
+			}
+		})
+	}
+	// The side files are only worth comparing when they hold something.
+	if nonPlanar < 5 {
+		t.Errorf("only %d inputs lost edges", nonPlanar)
+	}
+}
