@@ -197,20 +197,25 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	}
 	work.Reserve(extra)
 	biconnect(work, skip)
+	// Each dart of a chosen face now lies on one piece; walk every piece
+	// once (marking its darts) and keep the longest.
+	onPiece := make(map[int32]bool)
 	for c, ds := range chosenDarts {
 		best := 0
 		for _, d := range ds {
+			if onPiece[d] {
+				continue
+			}
 			k := 0
-			for x := d; ; k++ {
+			for x := d; ; {
+				onPiece[x] = true
+				k++
 				if x = work.FaceNext(x); x == d {
 					break
 				}
 			}
 			if k > best {
 				best, chosen[c] = k, d
-			}
-			if k+1 == len(ds) {
-				break // not cut at all
 			}
 		}
 	}
