@@ -142,7 +142,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			extra += 3*k - 6 - edgesIn[c]/2
 		}
 	}
-	chosen, err := chooseOuterFaces(work, comp, len(members), opt.Outer)
+	chosen, err := chooseOuterFaces(work, comp, members, full, opt.Outer)
 	if err != nil {
 		return nil, err
 	}
@@ -259,7 +259,10 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	})
 	// Compaction keeps the whole triangulation plane, dummy edges too, so
 	// that the grid drawing can still be refined under exact checks.
-	origEdges := edgesByComponent(work, comp, len(members), work.M())
+	var origEdges [][]int32
+	if opt.Compact {
+		origEdges = edgesByComponent(work, comp, members, work.M())
+	}
 	d := &Drawing{X: make([]int64, n), Y: make([]int64, n), bary: make([][3]int32, n)}
 	ww := newWoodWork(n)
 	index := make([]int32, n) // position of a vertex within its component
@@ -324,7 +327,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			w, h = max(w, d.X[v]), max(h, d.Y[v])
 		}
 		fw, fh := w, h
-		if opt.Compact {
+		if opt.Compact && len(vs) <= compactLimit {
 			w, h = compactComponent(work, d, vs, index, origEdges[c])
 		}
 		boxes[c] = Component{Vertices: len(vs), W: w, H: h, Barycentre: true, FullW: fw, FullH: fh}
@@ -446,7 +449,8 @@ func isqrt(a int64) int64 {
 // outer one: a largest face, the first found in dart order on ties, or
 // when outer is given, a largest face holding all of those vertices in
 // their component. -1 leaves a component's choice open.
-func chooseOuterFaces(emb *planarize.Embedding, comp []int32, ncomp int, outer []int32) ([]int32, error) {
+func chooseOuterFaces(emb *planarize.Embedding, comp []int32, members [][]int32, full []bool, outer []int32) ([]int32, error) {
+	ncomp := len(members)
 	chosen := make([]int32, ncomp)
 	size := make([]int, ncomp)
 	for c := range chosen {
@@ -463,7 +467,22 @@ func chooseOuterFaces(emb *planarize.Embedding, comp []int32, ncomp int, outer [
 			mark[v] = -1 // -1: wanted, not yet seen in this face
 		}
 	}
+	// A triangulation's faces are all triangles: any will do, unless the
+	// outer vertices must be found on one (its darts are marked seen).
 	seen := make([]bool, 2*emb.M())
+	for c, vs := range members {
+		if !full[c] || int(c) == need || len(vs) < 3 {
+			continue
+		}
+		chosen[c] = emb.First(vs[0])
+		for _, v := range vs {
+			d := emb.First(v)
+			for range emb.Degree(v) {
+				seen[d] = true
+				d = emb.Next(d)
+			}
+		}
+	}
 	faceID := int32(0)
 	distinct := countDistinct(outer)
 	for d0 := int32(0); int(d0) < len(seen); d0++ {
@@ -502,11 +521,14 @@ func countDistinct(vs []int32) int {
 
 // edgesByComponent lists the first m edges of emb per component, as pairs of positions within the
 // component's vertex list (see layout's index).
-func edgesByComponent(emb *planarize.Embedding, comp []int32, ncomp, m int) [][]int32 {
-	out := make([][]int32, ncomp)
+// Components too big to compact get no list.
+func edgesByComponent(emb *planarize.Embedding, comp []int32, members [][]int32, m int) [][]int32 {
+	out := make([][]int32, len(members))
 	for e := range m {
 		c := comp[emb.Edge(e)[0]]
-		out[c] = append(out[c], int32(e))
+		if len(members[c]) <= compactLimit {
+			out[c] = append(out[c], int32(e))
+		}
 	}
 	return out
 }

@@ -29,20 +29,31 @@ func localOrder(n int, edges [][2]int32) (newID []int32, renamed [][2]int32, edg
 	for v := range newID {
 		newID[v] = -1
 	}
-	queue := pos[:0] // reuse: the queue never outgrows n
+	// Depth-first preorder, iteratively: the planarity test's own
+	// depth-first passes then walk memory almost in order.
+	next := int32(0)
+	cursor := pos // reuse: per-vertex position in its adjacency
+	copy(cursor, start[:n])
+	var stack []int32
 	for s := range n {
 		if newID[s] >= 0 {
 			continue
 		}
-		newID[s] = int32(len(queue))
-		queue = append(queue, int32(s))
-		for qi := len(queue) - 1; qi < len(queue); qi++ {
-			v := queue[qi]
-			for _, w := range adj[start[v]:start[v+1]] {
-				if newID[w] < 0 {
-					newID[w] = int32(len(queue))
-					queue = append(queue, w)
-				}
+		newID[s] = next
+		next++
+		stack = append(stack[:0], int32(s))
+		for len(stack) > 0 {
+			v := stack[len(stack)-1]
+			if cursor[v] == start[v+1] {
+				stack = stack[:len(stack)-1]
+				continue
+			}
+			w := adj[cursor[v]]
+			cursor[v]++
+			if newID[w] < 0 {
+				newID[w] = next
+				next++
+				stack = append(stack, w)
 			}
 		}
 	}

@@ -1,0 +1,81 @@
+// Command core times the layout core on a generated graph already in
+// memory (place.Draw with the command's options, then Result.Space) and
+// reports the peak memory the core added, for the speed targets:
+//
+//	go run ./bench/core -family tri -n 1000000
+package main
+
+import (
+	"flag"
+	"fmt"
+	"os"
+	"runtime"
+	"runtime/debug"
+	"syscall"
+	"time"
+
+	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place"
+)
+
+func maxRSS() int64 {
+	var ru syscall.Rusage
+	syscall.Getrusage(syscall.RUSAGE_SELF, &ru)
+	return ru.Maxrss * 1024
+}
+
+func main() {
+	family := flag.String("family", "tri", "tri, grid, tree, star, path, nested, extra")
+	n := flag.Int("n", 1000000, "vertices")
+	runs := flag.Int("runs", 3, "timed runs (the best is reported)")
+	flag.Parse()
+	var g graphgen.Graph
+	switch *family {
+	case "tri":
+		g = graphgen.RandomMaximalPlanar(*n, 1)
+	case "grid":
+		k := 1
+		for (k+1)*(k+1) <= *n {
+			k++
+		}
+		g = graphgen.Grid(k, k)
+	case "tree":
+		g = graphgen.RandomTree(*n, 1)
+	case "star":
+		g = graphgen.Star(*n - 1)
+	case "path":
+		g = graphgen.Path(*n)
+	case "nested":
+		g = graphgen.NestedTriangles(*n / 3)
+	case "extra":
+		g = graphgen.PlanarPlusExtra(*n, 10, 1)
+	default:
+		fmt.Fprintln(os.Stderr, "core: unknown family")
+		os.Exit(2)
+	}
+	debug.SetGCPercent(300) // as the command runs
+	boxes := place.Boxes{HalfW: make([]int64, g.N), HalfH: make([]int64, g.N), Gap: 18}
+	for i := range boxes.HalfW {
+		boxes.HalfW[i], boxes.HalfH[i] = 38, 18
+	}
+	runtime.GC()
+	base := maxRSS()
+	best := time.Duration(1 << 62)
+	for range *runs {
+		runtime.GC()
+		start := time.Now()
+		res, err := place.Draw(g.N, g.Edges, place.DrawOptions{Layout: place.Options{Compact: true, Smooth: 400}})
+		if err != nil {
+			fmt.Fprintln(os.Stderr, err)
+			os.Exit(1)
+		}
+		if _, err := res.Space(boxes, place.SpaceOptions{}); err != nil {
+			fmt.Fprintln(os.Stderr, err)
+			os.Exit(1)
+		}
+		best = min(best, time.Since(start))
+	}
+	fmt.Printf("%s n=%d m=%d: best of %d %.3f s, %.0f ns/edge, peak memory added %.0f MB (RSS %.0f MB with the graph)\n",
+		*family, g.N, len(g.Edges), *runs, best.Seconds(), float64(best.Nanoseconds())/float64(len(g.Edges)),
+		float64(maxRSS()-base)/1e6, float64(maxRSS())/1e6)
+}
