@@ -7,11 +7,13 @@ import "slices"
 const compactLimit = 20000
 
 // compactPairLimit bounds the vertex-edge pairs one compaction check may
-// look at, and compactWork all checks of one axis together; beyond them
+// look at, and compactPerEdge (plus compactFloor) per edge all checks of
+// one axis together, so compaction stays linear in the graph; beyond them
 // a drawing keeps the gaps not yet closed.
 const (
 	compactPairLimit = 2_000_000
-	compactWork      = 20_000_000
+	compactPerEdge   = 200
+	compactFloor     = 200_000
 )
 
 // compact removes empty grid columns and rows of one component's drawing
@@ -114,7 +116,8 @@ func compactAxis(a, b []int64, edges [][2]int32) bool {
 	changed := false
 	chunk := len(gapAt)
 	spent := int64(0)
-	for i := 0; i < len(gapAt) && spent+total <= compactWork; spent += total {
+	budget := int64(compactFloor + compactPerEdge*len(edges))
+	for i := 0; i < len(gapAt) && spent+total <= budget; spent += total {
 		k := min(chunk, len(gapAt)-i)
 		for g := i; g < i+k; g++ {
 			closed[g] = true

@@ -20,7 +20,7 @@ const refineRounds = 16
 // step until it does. The boundary of the drawing stays put. So the
 // drawing stays plane after every move (see planeDrawing), while the need
 // to stretch the whole drawing to clear its boxes shrinks.
-func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32) {
+func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, meter *workMeter) {
 	if len(vs) < 4 || len(vs) > tutteLimit {
 		return // big components keep their drawing: many rounds would dominate the run
 	}
@@ -92,11 +92,13 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 	cell := max(1, 2*reach)
 	pushX := make(map[int32]float64)
 	pushY := make(map[int32]float64)
-	work := 0
 	// The drawing that needs the least stretch to clear its boxes wins:
 	// pushing one vertex off an edge can push it onto another, so a round
 	// may make things worse, and the best state seen is restored at the end.
-	bestStretch, _ := neededStretch(vs, edges, x, y, hw, hh, gap, stamp)
+	bestStretch, ok := neededStretch(vs, edges, x, y, hw, hh, gap, stamp, meter)
+	if !ok {
+		return
+	}
 	bestX := make([]int64, len(vs))
 	bestY := make([]int64, len(vs))
 	for i, v := range vs {
@@ -142,53 +144,35 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		}
 		// An edge through a box pushes that vertex off it, along the
 		// edge's normal, by the depth of the intrusion.
-		for _, v := range vs {
-			stamp[v] = -1
-		}
-		for ei, e := range edges {
+		ok := nearPairs(vs, edges, x, y, grid, stamp, meter, func(w int32, e [2]int32) {
 			u, v := e[0], e[1]
 			ex, ey := x[v]-x[u], y[v]-y[u]
 			length := math.Sqrt(float64(ex)*float64(ex) + float64(ey)*float64(ey))
 			if length == 0 {
-				continue
+				return
 			}
-			steps := int(length/float64(cell)) + 1
-			if work += 9 * steps; work > spaceWork {
-				return // crowded and huge: stop refining, the drawing stays plane
+			wx, wy := x[w]-x[u], y[w]-y[u]
+			dot := wx*ex + wy*ey
+			if dot <= 0 || dot >= ex*ex+ey*ey {
+				return
 			}
-			for k := 0; k <= steps; k++ {
-				t := float64(k) / float64(steps)
-				cx, cy := grid.cellOf(x[u]+int64(t*float64(ex)), y[u]+int64(t*float64(ey)))
-				for gx := cx - 1; gx <= cx+1; gx++ {
-					for gy := cy - 1; gy <= cy+1; gy++ {
-						for _, w := range grid.at(gx, gy) {
-							if w == u || w == v || stamp[w] == int32(ei) {
-								continue
-							}
-							stamp[w] = int32(ei)
-							wx, wy := x[w]-x[u], y[w]-y[u]
-							dot := wx*ex + wy*ey
-							if dot <= 0 || dot >= ex*ex+ey*ey {
-								continue
-							}
-							cross := float64(ex*wy - ey*wx) // signed, |cross| = dist * length
-							dist := math.Abs(cross) / length
-							reachN := (float64(hw[w]+edgeGap)*math.Abs(float64(ey)) + float64(hh[w]+edgeGap)*math.Abs(float64(ex))) / length
-							if dist >= reachN {
-								continue
-							}
-							// Unit normal towards w's side.
-							nx, ny := -float64(ey)/length, float64(ex)/length
-							if cross < 0 {
-								nx, ny = -nx, -ny
-							}
-							depth := reachN - dist + 1
-							pushX[w] += float64(nx * depth)
-							pushY[w] += float64(ny * depth)
-						}
-					}
-				}
+			cross := float64(ex*wy - ey*wx) // signed, |cross| = dist * length
+			dist := math.Abs(cross) / length
+			reachN := (float64(hw[w]+edgeGap)*math.Abs(float64(ey)) + float64(hh[w]+edgeGap)*math.Abs(float64(ex))) / length
+			if dist >= reachN {
+				return
 			}
+			// Unit normal towards w's side.
+			nx, ny := -float64(ey)/length, float64(ex)/length
+			if cross < 0 {
+				nx, ny = -nx, -ny
+			}
+			depth := reachN - dist + 1
+			pushX[w] += float64(nx * depth)
+			pushY[w] += float64(ny * depth)
+		})
+		if !ok {
+			return // out of work: the best state so far is restored
 		}
 		moved := false
 		for _, v := range vs {
@@ -207,7 +191,7 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		if !moved {
 			return
 		}
-		if s, _ := neededStretch(vs, edges, x, y, hw, hh, gap, stamp); s < bestStretch {
+		if s, ok := neededStretch(vs, edges, x, y, hw, hh, gap, stamp, meter); ok && s < bestStretch {
 			bestStretch = s
 			for i, v := range vs {
 				bestX[i], bestY[i] = x[v], y[v]

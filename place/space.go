@@ -60,8 +60,14 @@ const (
 	// edgeGap is the clear space, in points, between a node box and an
 	// edge passing by: enough that the edge visibly misses the box.
 	edgeGap = 4
-	// spaceWork bounds the cell visits of one clearance check.
-	spaceWork = 20_000_000
+	// A component's spacing may visit at most spacePerEdge cells per edge
+	// (plus spaceFloor, at most spaceWork) for each of its two candidate
+	// drawings, refinement and clearance checks together: the spacing stays
+	// linear in the size of the graph, and crowded drawings whose long
+	// edges would need more are checked or refined less.
+	spacePerEdge = 512
+	spaceFloor   = 100_000
+	spaceWork    = 20_000_000
 )
 
 var errBoxes = errors.New("place: box sizes do not match the vertices")
@@ -192,25 +198,34 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 	}
 	stretch, region := math.Inf(1), gridRegion
 	if compare {
+		meter := newWorkMeter(len(edges))
 		if gridRegion != nil && !gridOnly {
-			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp)
+			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp, meter)
 		}
 		var checked bool
-		stretch, checked = neededStretch(vs, edges, px, py, hw, hh, gap, stamp)
+		stretch, checked = neededStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 		if !checked {
 			out.Unchecked++
 		}
 	}
 	if bary {
-		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp)
-		s2, _ := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp)
-		if !compare || clearedArea(vs, tx, ty, s2, hw, hh) <= barycentricAreaAllowance*clearedArea(vs, px, py, stretch, hw, hh) {
+		meter := newWorkMeter(len(edges))
+		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp, meter)
+		s2, checked := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+		gridStretch := stretch
+		if !compare || math.IsInf(gridStretch, 1) {
+			gridStretch = maxStretch // unknown: assume the grid is crowded
+		}
+		if checked && (!compare || clearedArea(vs, tx, ty, s2, hw, hh) <= barycentricAreaAllowance*clearedArea(vs, px, py, gridStretch, hw, hh)) {
 			for _, v := range vs {
 				px[v], py[v] = tx[v], ty[v]
 			}
 			stretch, region = s2, d.outer[c]
 			out.Smoothed++
 		}
+	}
+	if math.IsInf(stretch, 1) {
+		stretch = 1
 	}
 	stretchComponent(d.aug, vs, region, px, py, min(stretch, maxStretch), tx, ty, seen)
 }
@@ -281,7 +296,7 @@ func stretchComponent(aug *planarize.Embedding, vs []int32, region *outerRegion,
 // end at, where that vertex lies alongside the edge (its projection falls
 // strictly inside the edge). checked is false when the work bound stopped
 // the search (s is then 1).
-func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32) (s float64, checked bool) {
+func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, meter *workMeter) (s float64, checked bool) {
 	s = 1
 	if len(vs) < 2 {
 		return s, true
@@ -292,14 +307,12 @@ func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64
 	}
 	cell := max(1, 2*reach)
 	grid := newBucketGrid(vs, x, y, cell)
-	work := 0
 	// Box pairs: only vertices in neighbouring cells can be that close.
 	for _, u := range vs {
 		cx, cy := grid.cellOf(x[u], y[u])
 		for gx := cx - 1; gx <= cx+1; gx++ {
 			for gy := cy - 1; gy <= cy+1; gy++ {
 				for _, w := range grid.at(gx, gy) {
-					work++
 					if w <= u {
 						continue
 					}
@@ -321,44 +334,24 @@ func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64
 			}
 		}
 	}
-	// Vertex-edge pairs: walk each edge's cells.
-	for _, v := range vs {
-		stamp[v] = -1
-	}
-	for ei, e := range edges {
+	// Vertex-edge pairs alongside each other.
+	ok := nearPairs(vs, edges, x, y, grid, stamp, meter, func(w int32, e [2]int32) {
 		u, v := e[0], e[1]
 		ex, ey := x[v]-x[u], y[v]-y[u]
-		length := math.Sqrt(float64(ex)*float64(ex) + float64(ey)*float64(ey))
-		steps := int(length/float64(cell)) + 1
-		work += 9 * steps
-		if work > spaceWork {
-			return 1, false
+		wx, wy := x[w]-x[u], y[w]-y[u]
+		dot := wx*ex + wy*ey
+		if dot <= 0 || dot >= ex*ex+ey*ey {
+			return // not alongside the edge
 		}
-		for k := 0; k <= steps; k++ {
-			t := float64(k) / float64(steps)
-			cx, cy := grid.cellOf(x[u]+int64(t*float64(ex)), y[u]+int64(t*float64(ey)))
-			for gx := cx - 1; gx <= cx+1; gx++ {
-				for gy := cy - 1; gy <= cy+1; gy++ {
-					for _, w := range grid.at(gx, gy) {
-						if w == u || w == v || stamp[w] == int32(ei) {
-							continue
-						}
-						stamp[w] = int32(ei)
-						wx, wy := x[w]-x[u], y[w]-y[u]
-						dot := wx*ex + wy*ey
-						if dot <= 0 || dot >= ex*ex+ey*ey {
-							continue // not alongside the edge
-						}
-						cross := abs64(ex*wy - ey*wx)
-						if cross == 0 {
-							continue // on the edge: a broken drawing, not a spacing matter
-						}
-						need := float64(hw[w]+edgeGap)*float64(abs64(ey)) + float64(hh[w]+edgeGap)*float64(abs64(ex))
-						s = max(s, need/float64(cross))
-					}
-				}
-			}
+		cross := abs64(ex*wy - ey*wx)
+		if cross == 0 {
+			return // on the edge: a broken drawing, not a spacing matter
 		}
+		need := float64(hw[w]+edgeGap)*float64(abs64(ey)) + float64(hh[w]+edgeGap)*float64(abs64(ex))
+		s = max(s, need/float64(cross))
+	})
+	if !ok {
+		return 1, false
 	}
 	return s, true
 }
@@ -374,6 +367,76 @@ func clearedArea(vs []int32, x, y []int64, s float64, hw, hh []int64) float64 {
 		maxX, maxY = max(maxX, fx+float64(hw[v])), max(maxY, fy+float64(hh[v]))
 	}
 	return (maxX - minX) * (maxY - minY)
+}
+
+// bruteForcePairs is the most vertex-edge pairs nearPairs tries all of:
+// below it that is cheaper than walking cells.
+const bruteForcePairs = 100_000
+
+// nearPairs calls fn for every pair of a vertex w and an edge e not ending
+// at w that lie within one cell of each other (the grid's cell is twice
+// the reach of any box): for a small component simply every pair, else
+// those met walking each edge's cells. It reports false when the meter ran
+// out first.
+func nearPairs(vs []int32, edges [][2]int32, x, y []int64, grid *bucketGrid, stamp []int32, meter *workMeter, fn func(w int32, e [2]int32)) bool {
+	if int64(len(vs))*int64(len(edges)) <= bruteForcePairs {
+		if !meter.spend(len(vs) * len(edges) / 8) {
+			return false
+		}
+		r := grid.cell // twice any reach: a safe margin around the edge
+		for _, e := range edges {
+			x0, x1 := min(x[e[0]], x[e[1]])-r, max(x[e[0]], x[e[1]])+r
+			y0, y1 := min(y[e[0]], y[e[1]])-r, max(y[e[0]], y[e[1]])+r
+			for _, w := range vs {
+				if x[w] < x0 || x[w] > x1 || y[w] < y0 || y[w] > y1 || w == e[0] || w == e[1] {
+					continue
+				}
+				fn(w, e)
+			}
+		}
+		return true
+	}
+	for _, v := range vs {
+		stamp[v] = -1
+	}
+	cell := grid.cell
+	for ei, e := range edges {
+		u, v := e[0], e[1]
+		ex, ey := x[v]-x[u], y[v]-y[u]
+		length := math.Sqrt(float64(ex)*float64(ex) + float64(ey)*float64(ey))
+		steps := int(length/float64(cell)) + 1
+		if !meter.spend(9 * steps) {
+			return false
+		}
+		for k := 0; k <= steps; k++ {
+			t := float64(k) / float64(steps)
+			cx, cy := grid.cellOf(x[u]+int64(t*float64(ex)), y[u]+int64(t*float64(ey)))
+			for gx := cx - 1; gx <= cx+1; gx++ {
+				for gy := cy - 1; gy <= cy+1; gy++ {
+					for _, w := range grid.at(gx, gy) {
+						if w == u || w == v || stamp[w] == int32(ei) {
+							continue
+						}
+						stamp[w] = int32(ei)
+						fn(w, e)
+					}
+				}
+			}
+		}
+	}
+	return true
+}
+
+// workMeter counts down the cell visits a component's spacing may make.
+type workMeter struct{ left int }
+
+func newWorkMeter(edges int) *workMeter {
+	return &workMeter{left: min(spaceWork, spaceFloor+spacePerEdge*edges)}
+}
+
+func (m *workMeter) spend(k int) bool {
+	m.left -= k
+	return m.left >= 0
 }
 
 func abs64(v int64) int64 {
