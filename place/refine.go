@@ -147,7 +147,7 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		ok := nearPairs(vs, edges, x, y, grid, stamp, meter, func(w int32, e [2]int32) {
 			u, v := e[0], e[1]
 			ex, ey := x[v]-x[u], y[v]-y[u]
-			length := math.Sqrt(float64(ex)*float64(ex) + float64(ey)*float64(ey))
+			length := math.Sqrt(float64(float64(ex)*float64(ex)) + float64(float64(ey)*float64(ey)))
 			if length == 0 {
 				return
 			}
@@ -158,7 +158,7 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 			}
 			cross := float64(ex*wy - ey*wx) // signed, |cross| = dist * length
 			dist := math.Abs(cross) / length
-			reachN := (float64(hw[w]+edgeGap)*math.Abs(float64(ey)) + float64(hh[w]+edgeGap)*math.Abs(float64(ex))) / length
+			reachN := (float64(float64(hw[w]+edgeGap)*math.Abs(float64(ey))) + float64(float64(hh[w]+edgeGap)*math.Abs(float64(ex)))) / length
 			if dist >= reachN {
 				return
 			}

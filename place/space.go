@@ -347,7 +347,7 @@ func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64
 		if cross == 0 {
 			return // on the edge: a broken drawing, not a spacing matter
 		}
-		need := float64(hw[w]+edgeGap)*float64(abs64(ey)) + float64(hh[w]+edgeGap)*float64(abs64(ex))
+		need := float64(float64(hw[w]+edgeGap)*float64(abs64(ey))) + float64(float64(hh[w]+edgeGap)*float64(abs64(ex)))
 		s = max(s, need/float64(cross))
 	})
 	if !ok {
@@ -403,7 +403,7 @@ func nearPairs(vs []int32, edges [][2]int32, x, y []int64, grid *bucketGrid, sta
 	for ei, e := range edges {
 		u, v := e[0], e[1]
 		ex, ey := x[v]-x[u], y[v]-y[u]
-		length := math.Sqrt(float64(ex)*float64(ex) + float64(ey)*float64(ey))
+		length := math.Sqrt(float64(float64(ex)*float64(ex)) + float64(float64(ey)*float64(ey)))
 		steps := int(length/float64(cell)) + 1
 		if !meter.spend(9 * steps) {
 			return false

@@ -102,8 +102,8 @@ func MaximalPlanar(n int, edges [][2]int32, opt SubgraphOptions) *Subgraph {
 		for _, v := range vs {
 			local[v] = -1
 		}
-		if IsPlanar(len(vs), sub) {
-			continue
+		if len(ids) < len(edges) && IsPlanar(len(vs), sub) {
+			continue // (a block holding every edge is the graph: known non-planar)
 		}
 		r, lb, optimal := planarizeBlock(len(vs), sub, opt)
 		for _, i := range r {
@@ -368,6 +368,14 @@ func greedyPlanar(n int, edges [][2]int32, order, support []int32, limit int) []
 	}
 	end := 0
 	chunk := 1
+	if support != nil {
+		// First try every edge on some triangle at once: on a mesh with a
+		// few stray edges that is the whole mesh, accepted in one test.
+		for end < len(cand) && support[cand[end]] > 0 {
+			end++
+		}
+		chunk = end
+	}
 	for i := 0; i < len(cand); {
 		if len(kept) >= limit {
 			rejected = append(rejected, cand[i:]...)

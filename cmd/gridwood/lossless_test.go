@@ -961,7 +961,8 @@ func (fc filterCheck) check(src []byte) (res filterResult) {
 // Edge operands at the top level sometimes reopen a top-level named
 // subgraph (TestReopenedSubgraphOperandMeansWholeSubgraph); deeper ones
 // never do, as a subgraph name is looked up among its parent's subgraphs
-// only (Graphviz, from memory), which the generator need not test.
+// only (common DOT practice, from memory), which the generator need not
+// test.
 type dotGen struct {
 	rng      *rand.Rand
 	b        strings.Builder
@@ -1365,7 +1366,7 @@ func TestInterpreterMeaning(t *testing.T) {
 // subgraph operand "makes an edge to every node of that subgraph"
 // (REFERENCES.md). When the operand reopens a named subgraph that already
 // has nodes, those nodes are nodes of that subgraph too (a named subgraph
-// is one subgraph however often it is opened; Graphviz behaves so, from
+// is one subgraph however often it is opened; common DOT practice, from
 // memory). Here a through e form K5 as DOT defines it. dotio used to take
 // only the nodes mentioned inside the operand: gridwood drew K5 minus
 // e -- a, reported nothing set aside, and the renderer's edge e -- a ran
