@@ -9,8 +9,8 @@ import (
 
 func main() {
 	// The syntax tree of a big file is many small objects that live until
-	// the end; collecting less often trades some memory for a fifth less
-	// time (measured on 300k-vertex inputs, see DEVELOPERS.md).
+	// the end; collecting less often saves about a tenth of the time on big
+	// inputs for little memory (see DEVELOPERS.md).
 	if os.Getenv("GOGC") == "" {
 		debug.SetGCPercent(300)
 	}
