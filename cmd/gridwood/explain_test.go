@@ -1,0 +1,121 @@
+package main
+
+import (
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/graph/formats/dot"
+	"gonum.org/v1/gonum/graph/formats/dot/ast"
+)
+
+// TestExplainFile checks the --explain output from the outside: it parses
+// as DOT (gonum's parser), holds one subgraph per set-aside edge, and each
+// subgraph is a subdivision of the obstruction it names (Kuratowski 1930):
+// its chains are paths between the named branch vertices (5 for K5, 6 for
+// K3,3), every branch vertex ends 4 (K5) or 3 (K3,3) chains, chains share
+// no inner vertex, every chain edge is an edge of the input, and the
+// set-aside edge is one of them.
+func TestExplainFile(t *testing.T) {
+	in := "graph G {\n a -- b -- c -- d -- e -- a -- c -- e -- b -- d -- a\n}\n" +
+		"graph H {\n {x y z} -- {p q r}\n s -- t\n}\n"
+	dir := t.TempDir()
+	why := filepath.Join(dir, "why.dot")
+	if code, _, errs := runCmd(t, in, "-q", "--explain", why); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	src, _ := os.ReadFile(why)
+	f, err := dot.ParseBytes(src)
+	if err != nil {
+		t.Fatalf("explain file does not parse: %v\n%s", err, src)
+	}
+	inputEdges := map[[2]string]bool{}
+	for _, pair := range [][2]string{{"a", "b"}, {"b", "c"}, {"c", "d"}, {"d", "e"}, {"e", "a"}, {"a", "c"}, {"c", "e"}, {"e", "b"}, {"b", "d"}, {"d", "a"}} {
+		inputEdges[pair], inputEdges[[2]string{pair[1], pair[0]}] = true, true
+	}
+	for _, u := range []string{"x", "y", "z"} {
+		for _, v := range []string{"p", "q", "r"} {
+			inputEdges[[2]string{u, v}], inputEdges[[2]string{v, u}] = true, true
+		}
+	}
+	if len(f.Graphs) != 2 {
+		t.Fatalf("want one graph per non-planar input graph, got %d", len(f.Graphs))
+	}
+	for _, g := range f.Graphs {
+		subs := 0
+		for _, st := range g.Stmts {
+			sub, ok := st.(*ast.Subgraph)
+			if !ok {
+				continue
+			}
+			subs++
+			attrs := map[string]string{}
+			var chains [][]string
+			for _, s := range sub.Stmts {
+				switch s := s.(type) {
+				case *ast.AttrStmt:
+					for _, a := range s.Attrs {
+						attrs[a.Key] = strings.Trim(a.Val, `"`)
+					}
+				case *ast.EdgeStmt:
+					chain := []string{s.From.(*ast.Node).ID}
+					for e := s.To; e != nil; e = e.To {
+						chain = append(chain, e.Vertex.(*ast.Node).ID)
+					}
+					chains = append(chains, chain)
+				}
+			}
+			branch := strings.Split(attrs["branch"], ", ")
+			wantBranch, wantChains, wantDeg := 6, 9, 3
+			if attrs["obstruction"] == "K5" {
+				wantBranch, wantChains, wantDeg = 5, 10, 4
+			} else if attrs["obstruction"] != "K3,3" {
+				t.Fatalf("%s: obstruction %q", g.ID, attrs["obstruction"])
+			}
+			if len(branch) != wantBranch || len(chains) != wantChains {
+				t.Fatalf("%s: %d branch vertices and %d chains for %s", g.ID, len(branch), len(chains), attrs["obstruction"])
+			}
+			isBranch := map[string]bool{}
+			for _, b := range branch {
+				isBranch[b] = true
+			}
+			ends := map[string]int{}
+			inner := map[string]bool{}
+			removed := strings.Split(attrs["removed_edge"], " -- ")
+			foundRemoved := false
+			for _, c := range chains {
+				if !isBranch[c[0]] || !isBranch[c[len(c)-1]] {
+					t.Errorf("%s: chain %v does not join branch vertices", g.ID, c)
+				}
+				ends[c[0]]++
+				ends[c[len(c)-1]]++
+				for i := 1; i < len(c)-1; i++ {
+					if isBranch[c[i]] || inner[c[i]] {
+						t.Errorf("%s: chain %v reuses vertex %s", g.ID, c, c[i])
+					}
+					inner[c[i]] = true
+				}
+				for i := 0; i+1 < len(c); i++ {
+					if !inputEdges[[2]string{c[i], c[i+1]}] {
+						t.Errorf("%s: chain edge %s -- %s is not an input edge", g.ID, c[i], c[i+1])
+					}
+					if len(removed) == 2 && (c[i] == removed[0] && c[i+1] == removed[1] || c[i] == removed[1] && c[i+1] == removed[0]) {
+						foundRemoved = true
+					}
+				}
+			}
+			for _, b := range branch {
+				if ends[b] != wantDeg {
+					t.Errorf("%s: branch vertex %s ends %d chains, want %d", g.ID, b, ends[b], wantDeg)
+				}
+			}
+			if !foundRemoved {
+				t.Errorf("%s: the set-aside edge %v is on no chain", g.ID, removed)
+			}
+		}
+		if subs != 1 {
+			t.Errorf("%s: %d certificates, want 1 (one edge set aside)", g.ID, subs)
+		}
+	}
+}
