@@ -56,7 +56,7 @@ type config struct {
 	outer        []string
 	reportFile   string
 	method       place.Method
-	stderr       io.Writer
+	prog         *progress // progress line and messages on standard error
 	inputs       []string
 }
 
@@ -85,7 +85,6 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "gridwood: %v\nRun 'gridwood --help' for usage.\n", err)
 		return exitBadInput
 	}
-	cfg.stderr = stderr
 	if err := process(cfg, stdin, stdout, stderr); err != nil {
 		var ee *exitError
 		if errors.As(err, &ee) {
@@ -256,10 +255,31 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	var out, removedOut, explainOut, svgOut bytes.Buffer
 	var pictures []svgGraph
 	var reports []fileReport
+	prog := newProgress(stderr, cfg.quiet)
+	defer prog.stop()
+	cfg.prog = prog
+	// Progress: each input's share of the run is its share of the bytes;
+	// within one, reading is taken as 40%, drawing 50% (by edges), writing 10%.
+	sizes := make([]int64, len(cfg.inputs))
+	var totalBytes int64
+	for i, in := range cfg.inputs {
+		if fi, err := os.Stat(in); err == nil && in != "-" {
+			sizes[i] = fi.Size()
+		}
+		totalBytes += sizes[i]
+	}
+	var doneBytes int64
+	pct := func(i int, within float64) int {
+		if totalBytes == 0 {
+			return int(100 * (float64(i) + within) / float64(len(cfg.inputs)))
+		}
+		return int(100 * (float64(doneBytes) + within*float64(sizes[i])) / float64(totalBytes))
+	}
 	budget := &planarize.Budget{Left: explainBudgetTotal}
 	stdinUsed := false
 	outerUsed := false
-	for _, in := range cfg.inputs {
+	for ii, in := range cfg.inputs {
+		prog.set("reading "+in, pct(ii, 0))
 		src, name, err := readInput(in, stdin, &stdinUsed)
 		if err != nil {
 			return err
@@ -273,7 +293,13 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		layouts := make([]dotio.Layout, len(f.Graphs))
 		removed := make([][]int, len(f.Graphs))
 		results := make([]*place.Result, len(f.Graphs))
+		totalEdges, edgesDone := 0, 0
+		for _, g := range f.Graphs {
+			totalEdges += len(g.Edges) + 1
+		}
 		for gi, g := range f.Graphs {
+			prog.set(fmt.Sprintf("drawing %s in %s", graphName(g, gi), name), pct(ii, 0.4+0.5*float64(edgesDone)/float64(totalEdges)))
+			edgesDone += len(g.Edges) + 1
 			res, lay, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)))
 			if err != nil {
 				return err
@@ -293,19 +319,21 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 				if cfg.removedFile != "" {
 					see = "listed in " + cfg.removedFile
 				}
-				fmt.Fprintf(stderr, "gridwood: %s: %d of %d edges set aside to make it planar (%s)\n", where, len(res.Removed), len(g.Edges), see)
+				prog.note("gridwood: %s: %d of %d edges set aside to make it planar (%s)\n", where, len(res.Removed), len(g.Edges), see)
 			}
 		}
 		if !cfg.quiet {
-			warnPinned(stderr, name, f)
+			warnPinned(prog, name, f)
 		}
 		opt := dotio.WriteOptions{DropRemoved: cfg.dropRemoved, MarkRemoved: cfg.markRemoved}
+		prog.set("writing "+name, pct(ii, 0.9))
 		writeStart := time.Now()
 		if err := dotio.Write(&out, f, layouts, opt); err != nil {
 			return err
 		}
 		rep.WriteSeconds = time.Since(writeStart).Seconds()
 		reports = append(reports, rep)
+		doneBytes += sizes[ii]
 		if cfg.removedFile != "" {
 			if err := dotio.WriteRemoved(&removedOut, f, removed); err != nil {
 				return err
@@ -337,6 +365,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			return err
 		}
 	}
+	prog.stop() // before any message or output
 	if len(cfg.outer) > 0 && !outerUsed {
 		return &exitError{exitBadInput, fmt.Sprintf("--outer %s: no graph has all of these nodes", strings.Join(cfg.outer, ","))}
 	}
@@ -447,7 +476,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Resu
 		}
 	}
 	if res.NotConvex > 0 && !cfg.quiet {
-		fmt.Fprintf(cfg.stderr, "gridwood: %s: %d of %d components are not 3-connected and were drawn with the schnyder method\n", where, res.NotConvex, len(res.Components))
+		cfg.prog.note("gridwood: %s: %d of %d components are not 3-connected and were drawn with the schnyder method\n", where, res.NotConvex, len(res.Components))
 	}
 	var gr graphReport
 	if cfg.reportFile != "" {
@@ -493,7 +522,7 @@ func graphName(g *dotio.Graph, index int) string {
 
 // warnPinned notes input positions marked pinned with '!': gridwood
 // replaces every pos, so say so rather than ignore them silently.
-func warnPinned(w io.Writer, name string, f *dotio.File) {
+func warnPinned(p *progress, name string, f *dotio.File) {
 	for gi, g := range f.Graphs {
 		pinned := 0
 		for _, n := range g.Nodes {
@@ -502,7 +531,7 @@ func warnPinned(w io.Writer, name string, f *dotio.File) {
 			}
 		}
 		if pinned > 0 {
-			fmt.Fprintf(w, "gridwood: %s:%d:%d: %s: %d pinned positions (pos=\"...!\") replaced by the layout\n", name, g.Line, g.Col, graphName(g, gi), pinned)
+			p.note("gridwood: %s:%d:%d: %s: %d pinned positions (pos=\"...!\") replaced by the layout\n", name, g.Line, g.Col, graphName(g, gi), pinned)
 		}
 	}
 }
