@@ -74,7 +74,7 @@ type exitError struct {
 func (e *exitError) Error() string { return e.msg }
 
 func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
-	cfg, err := parseFlags(args, stderr)
+	cfg, err := parseFlags(args, stdout)
 	if err != nil {
 		if errors.Is(err, pflag.ErrHelp) {
 			return exitOK
@@ -99,7 +99,9 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 
 var errVersionShown = errors.New("version shown")
 
-func parseFlags(args []string, stderr io.Writer) (*config, error) {
+// parseFlags reads the command line; --help and --version print to out
+// (standard output: they are what was asked for).
+func parseFlags(args []string, out io.Writer) (*config, error) {
 	cfg := &config{}
 	fs := pflag.NewFlagSet("gridwood", pflag.ContinueOnError)
 	fs.SetOutput(io.Discard)
@@ -127,11 +129,11 @@ func parseFlags(args []string, stderr io.Writer) (*config, error) {
 		return nil, &usageError{err.Error()}
 	}
 	if *help {
-		printHelp(stderr, fs)
+		printHelp(out, fs)
 		return nil, pflag.ErrHelp
 	}
 	if *version {
-		fmt.Fprintf(stderr, "gridwood %s\n", versionString())
+		fmt.Fprintf(out, "gridwood %s\n", versionString())
 		return nil, errVersionShown
 	}
 	if cfg.unit < 0 || cfg.unit > 100000 {

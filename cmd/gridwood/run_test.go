@@ -206,7 +206,7 @@ func TestExitStatusesAndMessages(t *testing.T) {
 }
 
 func TestHelpAndVersion(t *testing.T) {
-	code, _, errs := runCmd(t, "", "--help")
+	code, errs, _ := runCmd(t, "", "--help") // help goes to standard output
 	if code != exitOK {
 		t.Fatalf("--help exit %d", code)
 	}
@@ -215,7 +215,7 @@ func TestHelpAndVersion(t *testing.T) {
 			t.Errorf("help lacks %q", flag)
 		}
 	}
-	code, _, errs = runCmd(t, "", "--version")
+	code, errs, _ = runCmd(t, "", "--version")
 	if code != exitOK || !strings.HasPrefix(errs, "gridwood ") {
 		t.Errorf("--version: exit %d, %q", code, errs)
 	}
