@@ -37,7 +37,7 @@ func nodeBoxes(g *dotio.Graph) place.Boxes {
 		if shape == "point" {
 			w, h = min(w, 0.05*pointsPerInch), min(h, 0.05*pointsPerInch)
 		} else if !strings.EqualFold(n.Attrs.FixedSize, "true") {
-			tw, th := labelSize(n)
+			tw, th := labelSize(n, g)
 			w, h = max(w, tw+labelPadX), max(h, th+labelPadY)
 		}
 		switch shape {
@@ -58,50 +58,18 @@ func attrInches(s string, def float64) float64 {
 	return def
 }
 
-// labelSize estimates the label's text extent in points.
-func labelSize(n dotio.Node) (float64, float64) {
+// labelSize estimates the label's text extent in points, from the same
+// lines the SVG preview shows (nodeLabel: escapes, HTML tags and entities
+// resolved).
+func labelSize(n dotio.Node, g *dotio.Graph) (float64, float64) {
 	font := defaultFont
 	if v, err := strconv.ParseFloat(strings.TrimSpace(n.Attrs.FontSize), 64); err == nil && v > 0 && v < 1000 {
 		font = v
 	}
-	text := n.Attrs.Label
-	if text == "" {
-		text = n.Name
-	}
-	if strings.HasPrefix(text, "<") && strings.HasSuffix(text, ">") {
-		text = stripTags(text[1 : len(text)-1])
-	}
-	text = strings.ReplaceAll(text, `\N`, n.Name)
-	for _, esc := range []string{`\l`, `\r`} {
-		text = strings.ReplaceAll(text, esc, `\n`)
-	}
-	lines := strings.Split(text, `\n`)
+	lines := nodeLabel(n, g)
 	widest := 0
 	for _, l := range lines {
 		widest = max(widest, utf8.RuneCountInString(l))
 	}
 	return float64(widest) * charWidthEm * font, float64(len(lines)) * lineHeightEm * font
-}
-
-// stripTags drops <...> markup from an HTML-like label, turning <br/> into
-// line breaks.
-func stripTags(s string) string {
-	var out strings.Builder
-	for len(s) > 0 {
-		i := strings.IndexByte(s, '<')
-		if i < 0 {
-			out.WriteString(s)
-			break
-		}
-		out.WriteString(s[:i])
-		j := strings.IndexByte(s[i:], '>')
-		if j < 0 {
-			break
-		}
-		if tag := strings.ToLower(s[i+1 : i+j]); strings.HasPrefix(tag, "br") {
-			out.WriteString(`\n`)
-		}
-		s = s[i+j+1:]
-	}
-	return out.String()
 }
