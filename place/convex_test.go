@@ -19,24 +19,6 @@ import (
 // coordinates. Whether a graph is 3-connected is decided here by brute
 // force, never by the code under test.
 
-// cvxEmbed embeds g or stops the test: every graph handed to it is planar.
-func cvxEmbed(tb testing.TB, g graphgen.Graph) *planarize.Embedding {
-	tb.Helper()
-	emb, ok := planarize.Embed(g.N, g.Edges)
-	if !ok {
-		tb.Fatalf("%s: planarize.Embed calls a planar graph non-planar", g.Name)
-	}
-	return emb
-}
-
-func cvxEdges(emb *planarize.Embedding) [][2]int32 {
-	out := make([][2]int32, emb.M())
-	for i := range out {
-		out[i] = emb.Edge(i)
-	}
-	return out
-}
-
 // cvxFaceOf returns the face of every dart (the face on its left) and the
 // number of faces.
 func cvxFaceOf(emb *planarize.Embedding) ([]int, int) {
@@ -86,7 +68,7 @@ func cvxCheck(tb testing.TB, name string, emb *planarize.Embedding, outer int32,
 		}
 		pts[v] = geomcheck.Point{X: x[v], Y: y[v]}
 	}
-	probs, err := geomcheck.First(pts, cvxEdges(emb), 1)
+	probs, err := geomcheck.First(pts, embeddingEdges(emb), 1)
 	if err != nil || len(probs) > 0 {
 		tb.Errorf("%s: geomcheck: %v %v", name, probs, err)
 		return false
@@ -424,32 +406,23 @@ func cvxFamilies() []graphgen.Graph {
 }
 
 func TestConvexPlatonic(t *testing.T) {
-	// (V, E, F) of the Platonic solids, REFERENCES.md (handbook values).
-	tests := []struct {
-		g       graphgen.Graph
-		v, e, f int
-	}{
-		{graphgen.Tetrahedron(), 4, 6, 4},
-		{graphgen.Cube(), 8, 12, 6},
-		{graphgen.Octahedron(), 6, 12, 8},
-		{graphgen.Dodecahedron(), 20, 30, 12},
-		{graphgen.Icosahedron(), 12, 30, 20},
-	}
-	for _, tc := range tests {
-		emb := cvxEmbed(t, tc.g)
-		if emb.N() != tc.v || emb.M() != tc.e || emb.Faces() != tc.f {
-			t.Fatalf("%s: (V, E, F) = (%d, %d, %d), want (%d, %d, %d)", tc.g.Name, emb.N(), emb.M(), emb.Faces(), tc.v, tc.e, tc.f)
+	// (V, E, F) of the Platonic solids: handbook values
+	// (graphgen.PlatonicSolids, REFERENCES.md).
+	for _, tc := range graphgen.PlatonicSolids() {
+		emb := mustEmbed(t, tc.Graph)
+		if emb.N() != tc.V || emb.M() != tc.E || emb.Faces() != tc.F {
+			t.Fatalf("%s: (V, E, F) = (%d, %d, %d), want (%d, %d, %d)", tc.Name, emb.N(), emb.M(), emb.Faces(), tc.V, tc.E, tc.F)
 		}
 		for d := int32(0); int(d) < 2*emb.M(); d++ {
 			x, y, w, h, err := convexDrawing(emb, d)
 			if err != nil {
-				t.Fatalf("%s, outer dart %d: %v", tc.g.Name, d, err)
+				t.Fatalf("%s, outer dart %d: %v", tc.Name, d, err)
 			}
 			// Felsner's grid is exactly (f-1) x (f-1): a1 sits at x = f-1.
-			if w != int64(tc.f-1) || h != int64(tc.f-1) {
-				t.Errorf("%s: grid %d x %d, want %d x %d", tc.g.Name, w, h, tc.f-1, tc.f-1)
+			if w != int64(tc.F-1) || h != int64(tc.F-1) {
+				t.Errorf("%s: grid %d x %d, want %d x %d", tc.Name, w, h, tc.F-1, tc.F-1)
 			}
-			cvxCheck(t, fmt.Sprintf("%s, outer dart %d", tc.g.Name, d), emb, d, x, y, w, h)
+			cvxCheck(t, fmt.Sprintf("%s, outer dart %d", tc.Name, d), emb, d, x, y, w, h)
 		}
 	}
 }
@@ -467,7 +440,7 @@ func TestConvexFamilies(t *testing.T) {
 		if !oracle(g.N, g.Edges) {
 			t.Fatalf("%s: brute force says it is not 3-connected", g.Name)
 		}
-		emb := cvxEmbed(t, g)
+		emb := mustEmbed(t, g)
 		m := int32(emb.M())
 		darts := []int32{0, 1, m - 1, m, 2*m - 1}
 		if m <= 60 {
@@ -505,7 +478,7 @@ func TestConvexRandom(t *testing.T) {
 			thin := cvxThin(g, tries, seed, oracle)
 			removed += len(g.Edges) - len(thin.Edges)
 			edges += len(thin.Edges)
-			emb := cvxEmbed(t, thin)
+			emb := mustEmbed(t, thin)
 			rng := rand.New(rand.NewPCG(seed, 1))
 			darts := []int32{0, rng.Int32N(int32(2 * emb.M()))}
 			if s.n <= 8 {
@@ -535,11 +508,11 @@ func TestConvexRandom(t *testing.T) {
 		if i%2 == 1 {
 			g = cvxThin(g, 2*n, uint64(i), cvxTriconnectedFast)
 		}
-		dual := cvxDual(cvxEmbed(t, g))
+		dual := cvxDual(mustEmbed(t, g))
 		if !cvxTriconnectedFast(dual.N, dual.Edges) {
 			t.Fatalf("%s: brute force says it is not 3-connected", dual.Name)
 		}
-		emb := cvxEmbed(t, dual)
+		emb := mustEmbed(t, dual)
 		for _, d := range []int32{0, int32(emb.M()), int32(2*emb.M() - 1)} {
 			if !cvxDraw(t, dual.Name, emb, d) {
 				return
@@ -583,7 +556,7 @@ func TestConvexNotTriconnected(t *testing.T) {
 		if cvxTriconnectedPairs(g.N, g.Edges) {
 			t.Fatalf("%s: brute force says it is 3-connected", g.Name)
 		}
-		emb := cvxEmbed(t, g)
+		emb := mustEmbed(t, g)
 		for d := range int32(2 * emb.M()) {
 			if _, _, _, _, err := convexDrawing(emb, d); !errors.Is(err, errNotTriconnected) {
 				t.Errorf("%s, outer dart %d: error %v, want errNotTriconnected", g.Name, d, err)
@@ -616,7 +589,7 @@ func TestConvexDecidesTriconnectivity(t *testing.T) {
 		}
 		h := graphgen.Graph{N: n, Edges: edges, Name: fmt.Sprintf("%s-minus%d", g.Name, k)}
 		want := cvxTriconnectedPairs(n, edges)
-		emb := cvxEmbed(t, h)
+		emb := mustEmbed(t, h)
 		d := rng.Int32N(int32(2 * len(edges)))
 		x, y, w, hh, err := convexDrawing(emb, d)
 		switch {
@@ -639,7 +612,7 @@ func TestConvexDecidesTriconnectivity(t *testing.T) {
 
 // TestConvexTriangle: the triangle is drawn on the 1 x 1 grid (f = 2).
 func TestConvexTriangle(t *testing.T) {
-	emb := cvxEmbed(t, graphgen.Cycle(3))
+	emb := mustEmbed(t, graphgen.Cycle(3))
 	for d := range int32(6) {
 		x, y, w, h, err := convexDrawing(emb, d)
 		if err != nil {
@@ -655,7 +628,7 @@ func TestConvexTriangle(t *testing.T) {
 // TestConvexBadInput: arguments that are not a plane embedding of a simple
 // graph with one of its darts are refused with errConvexInput.
 func TestConvexBadInput(t *testing.T) {
-	k4 := cvxEmbed(t, graphgen.Tetrahedron())
+	k4 := mustEmbed(t, graphgen.Tetrahedron())
 	for _, d := range []int32{-1, 12, 1 << 30} {
 		if _, _, _, _, err := convexDrawing(k4, d); !errors.Is(err, errConvexInput) {
 			t.Errorf("K4 with dart %d: error %v, want errConvexInput", d, err)
@@ -678,7 +651,7 @@ func TestConvexBadInput(t *testing.T) {
 	// A rotation system of K4 that is not plane: edges added in some order
 	// with every dart appended to its vertex's rotation; search the orders
 	// for one with the wrong Euler characteristic.
-	edges := cvxEdges(k4)
+	edges := embeddingEdges(k4)
 	found := false
 	perm := []int{0, 1, 2, 3, 4, 5}
 	for !found {
@@ -776,7 +749,7 @@ func TestConvexFaceCounts(t *testing.T) {
 		gs = append(gs, cvxThin(g, 2*n, uint64(i), cvxTriconnectedFast))
 	}
 	for _, g := range gs {
-		emb := cvxEmbed(t, g)
+		emb := mustEmbed(t, g)
 		for _, outer := range []int32{0, int32(emb.M())} {
 			wood, coord, err := convexSolve(emb, outer)
 			if err != nil {
@@ -860,7 +833,7 @@ func cvxBruteFaceCounts(emb *planarize.Embedding, outer int32, out [3][]int32, c
 // embedding is left as it was.
 func TestConvexDeterministic(t *testing.T) {
 	g := cvxThin(graphgen.RandomMaximalPlanar(150, 3), 200, 3, cvxTriconnectedFast)
-	emb := cvxEmbed(t, g)
+	emb := mustEmbed(t, g)
 	before := make([]int32, 2*emb.M())
 	for d := range before {
 		before[d] = emb.Next(int32(d))
@@ -883,7 +856,7 @@ func TestConvexDeterministic(t *testing.T) {
 // TestConvexCheckerCatchesDefects hands the convexity check drawings that
 // are wrong on purpose, so that its silence elsewhere means something.
 func TestConvexCheckerCatchesDefects(t *testing.T) {
-	emb := cvxEmbed(t, graphgen.Cube())
+	emb := mustEmbed(t, graphgen.Cube())
 	const outer = 0
 	x, y, _, _, err := convexDrawing(emb, outer)
 	if err != nil {

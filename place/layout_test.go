@@ -458,41 +458,31 @@ func TestLayoutFamilies(t *testing.T) {
 // TestLayoutPlatonic checks the Platonic solids against their handbook
 // counts and draws them.
 func TestLayoutPlatonic(t *testing.T) {
-	// (V, E, F) and face length p of the Schläfli symbol {p, q}: handbook
-	// facts (H. S. M. Coxeter, Regular Polytopes, table I; also listed in
-	// REFERENCES.md). A 3-connected planar graph has a unique embedding
-	// (H. Whitney 1933, from memory), so every face has length p.
-	tests := []struct {
-		g          graphgen.Graph
-		v, e, f, p int
-	}{
-		{graphgen.Tetrahedron(), 4, 6, 4, 3},
-		{graphgen.Cube(), 8, 12, 6, 4},
-		{graphgen.Octahedron(), 6, 12, 8, 3},
-		{graphgen.Dodecahedron(), 20, 30, 12, 5},
-		{graphgen.Icosahedron(), 12, 30, 20, 3},
-	}
-	for _, tt := range tests {
-		t.Run(tt.g.Name, func(t *testing.T) {
-			if tt.g.N != tt.v || len(tt.g.Edges) != tt.e {
-				t.Fatalf("graphgen gives V=%d E=%d, handbook V=%d E=%d", tt.g.N, len(tt.g.Edges), tt.v, tt.e)
+	// (V, E, F) and face length P of the Schläfli symbol {P, Q}: handbook
+	// facts (graphgen.PlatonicSolids: Coxeter, Regular Polytopes, table I).
+	// A 3-connected planar graph has a unique embedding (H. Whitney 1933,
+	// from memory), so every face has length P.
+	for _, tt := range graphgen.PlatonicSolids() {
+		t.Run(tt.Name, func(t *testing.T) {
+			if tt.N != tt.V || len(tt.Edges) != tt.E {
+				t.Fatalf("graphgen gives V=%d E=%d, handbook V=%d E=%d", tt.N, len(tt.Edges), tt.V, tt.E)
 			}
-			emb := mustEmbed(t, tt.g)
-			checkEuler(t, tt.g.Name, emb)
-			if emb.Faces() != tt.f {
-				t.Errorf("embedding has %d faces, handbook F=%d", emb.Faces(), tt.f)
+			emb := mustEmbed(t, tt.Graph)
+			checkEuler(t, tt.Name, emb)
+			if emb.Faces() != tt.F {
+				t.Errorf("embedding has %d faces, handbook F=%d", emb.Faces(), tt.F)
 			}
 			for _, size := range faceSizes(emb) {
-				if size != tt.p {
-					t.Errorf("face of length %d, the solid's faces have %d", size, tt.p)
+				if size != tt.P {
+					t.Errorf("face of length %d, the solid's faces have %d", size, tt.P)
 					break
 				}
 			}
-			d := layoutEmbeddingAndCheck(t, tt.g.Name, emb)
+			d := layoutEmbeddingAndCheck(t, tt.Name, emb)
 			// One component, drawn in Schnyder's (n-2) x (n-2) grid.
-			if len(d.Components) != 1 || d.Width > int64(tt.v-2) || d.Height > int64(tt.v-2) {
+			if len(d.Components) != 1 || d.Width > int64(tt.V-2) || d.Height > int64(tt.V-2) {
 				t.Errorf("drawing %dx%d with %d components, want one component within %dx%d",
-					d.Width, d.Height, len(d.Components), tt.v-2, tt.v-2)
+					d.Width, d.Height, len(d.Components), tt.V-2, tt.V-2)
 			}
 		})
 	}

@@ -395,35 +395,25 @@ func TestDenseNotPlanar(t *testing.T) {
 
 // TestPlatonicSolids checks the skeletons of the five Platonic solids.
 func TestPlatonicSolids(t *testing.T) {
-	// (V, E, F) of the Platonic solids, handbook values listed in
-	// REFERENCES.md; V - E + F = 2 (Euler).
-	tests := []struct {
-		g       graphgen.Graph
-		v, e, f int
-	}{
-		{graphgen.Tetrahedron(), 4, 6, 4},
-		{graphgen.Cube(), 8, 12, 6},
-		{graphgen.Octahedron(), 6, 12, 8},
-		{graphgen.Dodecahedron(), 20, 30, 12},
-		{graphgen.Icosahedron(), 12, 30, 20},
-	}
-	for _, tt := range tests {
-		if tt.g.N != tt.v || len(tt.g.Edges) != tt.e {
-			t.Errorf("%s: generator gives V=%d E=%d, handbook %d and %d", tt.g.Name, tt.g.N, len(tt.g.Edges), tt.v, tt.e)
+	// (V, E, F) of the Platonic solids, handbook values
+	// (graphgen.PlatonicSolids, REFERENCES.md); V - E + F = 2 (Euler).
+	for _, tt := range graphgen.PlatonicSolids() {
+		if tt.N != tt.V || len(tt.Edges) != tt.E {
+			t.Errorf("%s: generator gives V=%d E=%d, handbook %d and %d", tt.Name, tt.N, len(tt.Edges), tt.V, tt.E)
 		}
-		emb, ok := Embed(tt.g.N, tt.g.Edges)
+		emb, ok := Embed(tt.N, tt.Edges)
 		if !ok {
-			t.Errorf("%s: not planar", tt.g.Name)
+			t.Errorf("%s: not planar", tt.Name)
 			continue
 		}
-		if err := checkEmbedding(tt.g.N, tt.g.Edges, emb); err != nil {
-			t.Errorf("%s: %v", tt.g.Name, err)
+		if err := checkEmbedding(tt.N, tt.Edges, emb); err != nil {
+			t.Errorf("%s: %v", tt.Name, err)
 		}
-		if got := emb.Faces(); got != tt.f {
-			t.Errorf("%s: %d faces, handbook F = %d", tt.g.Name, got, tt.f)
+		if got := emb.Faces(); got != tt.F {
+			t.Errorf("%s: %d faces, handbook F = %d", tt.Name, got, tt.F)
 		}
-		if !IsPlanar(tt.g.N, tt.g.Edges) {
-			t.Errorf("%s: IsPlanar = false", tt.g.Name)
+		if !IsPlanar(tt.N, tt.Edges) {
+			t.Errorf("%s: IsPlanar = false", tt.Name)
 		}
 	}
 }

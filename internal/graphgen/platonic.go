@@ -108,3 +108,24 @@ func Dodecahedron() Graph {
 func Icosahedron() Graph {
 	return nearestNeighbourGraph("icosahedron", cyclic(0, 1, phi))
 }
+
+// Solid is a Platonic solid's skeleton with its handbook counts (H. S. M.
+// Coxeter, Regular Polytopes, table I; also in REFERENCES.md): V vertices,
+// E edges and F faces, every face a P-gon and every vertex of degree Q
+// (Schläfli symbol {P, Q}). Tests check the generators and the embeddings
+// against these numbers, which are not computed from the graphs.
+type Solid struct {
+	Graph
+	V, E, F, P, Q int
+}
+
+// PlatonicSolids returns the five solids with their handbook counts.
+func PlatonicSolids() []Solid {
+	return []Solid{
+		{Tetrahedron(), 4, 6, 4, 3, 3},
+		{Cube(), 8, 12, 6, 4, 3},
+		{Octahedron(), 6, 12, 8, 3, 4},
+		{Dodecahedron(), 20, 30, 12, 5, 3},
+		{Icosahedron(), 12, 30, 20, 3, 5},
+	}
+}

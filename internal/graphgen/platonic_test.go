@@ -14,18 +14,18 @@ import (
 // Distance-Regular Graphs, Springer 1989): the triangles of the tetrahedron,
 // octahedron and icosahedron are exactly their 4, 8 and 20 faces.
 func TestPlatonicSolids(t *testing.T) {
-	tests := []struct {
-		g                      Graph
-		v, e, degree           int
-		girth, diam, triangles int
-	}{
-		{Tetrahedron(), 4, 6, 3, 3, 1, 4},
-		{Cube(), 8, 12, 3, 4, 3, 0},
-		{Octahedron(), 6, 12, 4, 3, 2, 8},
-		{Dodecahedron(), 20, 30, 3, 5, 5, 0},
-		{Icosahedron(), 12, 30, 5, 3, 3, 20},
+	// V, E and the degree Q come from the handbook table PlatonicSolids;
+	// girth, diameter and triangles, in the order of that table, from the
+	// sources above.
+	extra := []struct{ girth, diam, triangles int }{
+		{3, 1, 4}, {4, 3, 0}, {3, 2, 8}, {5, 5, 0}, {3, 3, 20},
 	}
-	for _, tt := range tests {
+	for i, s := range PlatonicSolids() {
+		tt := struct {
+			g                      Graph
+			v, e, degree           int
+			girth, diam, triangles int
+		}{s.Graph, s.V, s.E, s.Q, extra[i].girth, extra[i].diam, extra[i].triangles}
 		t.Run(tt.g.Name, func(t *testing.T) {
 			g := tt.g
 			checkSimple(t, g)
