@@ -4,23 +4,11 @@ import (
 	"bytes"
 	"fmt"
 	"io"
-	"runtime"
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/internal/stagebench"
 )
-
-func reportPerEdge(b *testing.B, m int, fn func()) {
-	var before, after runtime.MemStats
-	runtime.ReadMemStats(&before)
-	for b.Loop() {
-		fn()
-	}
-	runtime.ReadMemStats(&after)
-	m = max(m, 1)
-	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(m), "ns/edge")
-	b.ReportMetric(float64(after.TotalAlloc-before.TotalAlloc)/float64(b.N)/float64(m), "B/edge")
-}
 
 // stageDOT writes g as the command's benchmark inputs are written: one node
 // statement per node, then one edge statement per edge.
@@ -41,12 +29,12 @@ func stageDOT(g graphgen.Graph) []byte {
 // that builds the graph), building the edge list the layout takes, and
 // writing, on the benchmark families (see bench/run).
 func BenchmarkStage(b *testing.B) {
-	for _, n := range graphgen.StageSizes {
-		for _, g := range graphgen.StageFamilies(n) {
+	for _, n := range stagebench.Sizes {
+		for _, g := range stagebench.Families(n) {
 			src := stageDOT(g)
 			m := len(g.Edges)
 			b.Run(fmt.Sprintf("read/%s", g.Name), func(b *testing.B) {
-				reportPerEdge(b, m, func() {
+				stagebench.PerEdge(b, m, func() {
 					if _, err := Read(src, ReadOptions{Name: "bench"}); err != nil {
 						b.Fatal(err)
 					}
@@ -58,7 +46,7 @@ func BenchmarkStage(b *testing.B) {
 			}
 			gr := f.Graphs[0]
 			b.Run(fmt.Sprintf("build/%s", g.Name), func(b *testing.B) {
-				reportPerEdge(b, m, func() {
+				stagebench.PerEdge(b, m, func() {
 					edges := make([][2]int32, len(gr.Edges))
 					for i, e := range gr.Edges {
 						edges[i] = [2]int32{e.From, e.To}
@@ -67,7 +55,7 @@ func BenchmarkStage(b *testing.B) {
 			})
 			lay := Layout{X: make([]int64, len(gr.Nodes)), Y: make([]int64, len(gr.Nodes))}
 			b.Run(fmt.Sprintf("write/%s", g.Name), func(b *testing.B) {
-				reportPerEdge(b, m, func() {
+				stagebench.PerEdge(b, m, func() {
 					if err := Write(io.Discard, f, []Layout{lay}, WriteOptions{}); err != nil {
 						b.Fatal(err)
 					}

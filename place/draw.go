@@ -6,6 +6,7 @@ import (
 	"math"
 	"time"
 
+	"github.com/gridwood/gridwood/internal/order"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -62,7 +63,7 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	}
 	start := time.Now()
 	// Renumber first, so that even removing repeats runs on local data.
-	newID, renamed, rawOf := localOrder(n, edges)
+	newID, renamed, rawOf := order.DepthFirst(n, edges)
 	local, localIndex := planarize.Simplify(n, renamed)
 	// Number the pairs in order of first occurrence in the input, as
 	// PairList promises: edgeOf maps a local pair to that number.

@@ -2,24 +2,12 @@ package place
 
 import (
 	"fmt"
-	"runtime"
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/internal/order"
+	"github.com/gridwood/gridwood/internal/stagebench"
 	"github.com/gridwood/gridwood/planarize"
 )
-
-func reportPerEdge(b *testing.B, m int, fn func()) {
-	var before, after runtime.MemStats
-	runtime.ReadMemStats(&before)
-	for b.Loop() {
-		fn()
-	}
-	runtime.ReadMemStats(&after)
-	m = max(m, 1)
-	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(m), "ns/edge")
-	b.ReportMetric(float64(after.TotalAlloc-before.TotalAlloc)/float64(b.N)/float64(m), "B/edge")
-}
 
 // BenchmarkStage measures the layout stages on the benchmark families
 // (see bench/run), each on the input the command would give it:
@@ -28,21 +16,20 @@ func reportPerEdge(b *testing.B, m int, fn func()) {
 // component, with compaction and the barycentric drawing) and space (node
 // boxes to points).
 func BenchmarkStage(b *testing.B) {
-	for _, n := range graphgen.StageSizes {
-		for _, g := range graphgen.StageFamilies(n) {
-			newID, local, _ := localOrder(g.N, g.Edges)
-			_ = newID
+	for _, n := range stagebench.Sizes {
+		for _, g := range stagebench.Families(n) {
+			_, local, _ := order.DepthFirst(g.N, g.Edges)
 			emb, ok := planarize.Embed(g.N, local)
 			if !ok {
 				b.Fatalf("%s: not planar", g.Name)
 			}
 			m := len(g.Edges)
 			b.Run(fmt.Sprintf("renumber/%s", g.Name), func(b *testing.B) {
-				reportPerEdge(b, m, func() { localOrder(g.N, g.Edges) })
+				stagebench.PerEdge(b, m, func() { order.DepthFirst(g.N, g.Edges) })
 			})
 			b.Run(fmt.Sprintf("augment/%s", g.Name), func(b *testing.B) {
 				noSkip := func(int32) bool { return false }
-				reportPerEdge(b, m, func() {
+				stagebench.PerEdge(b, m, func() {
 					work := emb.Clone()
 					work.Reserve(3*g.N - work.M())
 					biconnect(work, noSkip)
@@ -50,7 +37,7 @@ func BenchmarkStage(b *testing.B) {
 				})
 			})
 			b.Run(fmt.Sprintf("place/%s", g.Name), func(b *testing.B) {
-				reportPerEdge(b, m, func() {
+				stagebench.PerEdge(b, m, func() {
 					if _, err := layout(emb.Clone(), Options{Compact: true, Smooth: 400}); err != nil {
 						b.Fatal(err)
 					}
@@ -65,7 +52,7 @@ func BenchmarkStage(b *testing.B) {
 				boxes.HalfW[i], boxes.HalfH[i] = 38, 18
 			}
 			b.Run(fmt.Sprintf("space/%s", g.Name), func(b *testing.B) {
-				reportPerEdge(b, m, func() {
+				stagebench.PerEdge(b, m, func() {
 					if _, err := res.Space(boxes, SpaceOptions{}); err != nil {
 						b.Fatal(err)
 					}
