@@ -115,33 +115,23 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		grid := newBucketGrid(vs, x, y, cell)
 		// Overlapping boxes push each other apart along the axis that
 		// needs the smaller move.
-		for _, u := range vs {
-			cx, cy := grid.cellOf(x[u], y[u])
-			for gx := cx - 1; gx <= cx+1; gx++ {
-				for gy := cy - 1; gy <= cy+1; gy++ {
-					for _, w := range grid.at(gx, gy) {
-						if w <= u {
-							continue
-						}
-						dx, dy := x[w]-x[u], y[w]-y[u]
-						ox := hw[u] + hw[w] + gap - abs64(dx)
-						oy := hh[u] + hh[w] + gap - abs64(dy)
-						if ox <= 0 || oy <= 0 {
-							continue
-						}
-						if ox <= oy {
-							s := sign64(dx, u < w)
-							pushX[u] -= float64(s * ox / 2)
-							pushX[w] += float64(s * ox / 2)
-						} else {
-							s := sign64(dy, u < w)
-							pushY[u] -= float64(s * oy / 2)
-							pushY[w] += float64(s * oy / 2)
-						}
-					}
-				}
+		nearVertexPairs(vs, grid, x, y, func(u, w int32) {
+			dx, dy := x[w]-x[u], y[w]-y[u]
+			ox := hw[u] + hw[w] + gap - abs64(dx)
+			oy := hh[u] + hh[w] + gap - abs64(dy)
+			if ox <= 0 || oy <= 0 {
+				return
 			}
-		}
+			if ox <= oy {
+				s := sign64(dx, u < w)
+				pushX[u] -= float64(s * ox / 2)
+				pushX[w] += float64(s * ox / 2)
+			} else {
+				s := sign64(dy, u < w)
+				pushY[u] -= float64(s * oy / 2)
+				pushY[w] += float64(s * oy / 2)
+			}
+		})
 		// An edge through a box pushes that vertex off it, along the
 		// edge's normal, by the depth of the intrusion.
 		ok := nearPairs(vs, edges, x, y, grid, stamp, meter, func(w int32, e [2]int32) {

@@ -308,32 +308,22 @@ func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64
 	cell := max(1, 2*reach)
 	grid := newBucketGrid(vs, x, y, cell)
 	// Box pairs: only vertices in neighbouring cells can be that close.
-	for _, u := range vs {
-		cx, cy := grid.cellOf(x[u], y[u])
-		for gx := cx - 1; gx <= cx+1; gx++ {
-			for gy := cy - 1; gy <= cy+1; gy++ {
-				for _, w := range grid.at(gx, gy) {
-					if w <= u {
-						continue
-					}
-					dx, dy := abs64(x[u]-x[w]), abs64(y[u]-y[w])
-					needX, needY := hw[u]+hw[w]+gap, hh[u]+hh[w]+gap
-					if dx >= needX || dy >= needY {
-						continue
-					}
-					// Separating along either axis is enough.
-					f := math.Inf(1)
-					if dx > 0 {
-						f = float64(needX) / float64(dx)
-					}
-					if dy > 0 {
-						f = min(f, float64(needY)/float64(dy))
-					}
-					s = max(s, f)
-				}
-			}
+	nearVertexPairs(vs, grid, x, y, func(u, w int32) {
+		dx, dy := abs64(x[u]-x[w]), abs64(y[u]-y[w])
+		needX, needY := hw[u]+hw[w]+gap, hh[u]+hh[w]+gap
+		if dx >= needX || dy >= needY {
+			return
 		}
-	}
+		// Separating along either axis is enough.
+		f := math.Inf(1)
+		if dx > 0 {
+			f = float64(needX) / float64(dx)
+		}
+		if dy > 0 {
+			f = min(f, float64(needY)/float64(dy))
+		}
+		s = max(s, f)
+	})
 	// Vertex-edge pairs alongside each other.
 	ok := nearPairs(vs, edges, x, y, grid, stamp, meter, func(w int32, e [2]int32) {
 		u, v := e[0], e[1]
@@ -367,6 +357,23 @@ func clearedArea(vs []int32, x, y []int64, s float64, hw, hh []int64) float64 {
 		maxX, maxY = max(maxX, fx+float64(hw[v])), max(maxY, fy+float64(hh[v]))
 	}
 	return (maxX - minX) * (maxY - minY)
+}
+
+// nearVertexPairs calls fn(u, w), u < w, for every two vertices in the same
+// or neighbouring cells of the grid: all pairs closer than one cell.
+func nearVertexPairs(vs []int32, grid *bucketGrid, x, y []int64, fn func(u, w int32)) {
+	for _, u := range vs {
+		cx, cy := grid.cellOf(x[u], y[u])
+		for gx := cx - 1; gx <= cx+1; gx++ {
+			for gy := cy - 1; gy <= cy+1; gy++ {
+				for _, w := range grid.at(gx, gy) {
+					if w > u {
+						fn(u, w)
+					}
+				}
+			}
+		}
+	}
 }
 
 // bruteForcePairs is the most vertex-edge pairs nearPairs tries all of:
