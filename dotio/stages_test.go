@@ -10,18 +10,10 @@ import (
 	"github.com/gridwood/gridwood/internal/stagebench"
 )
 
-// stageDOT writes g as the command's benchmark inputs are written: one node
-// statement per node, then one edge statement per edge.
+// stageDOT writes g as the command's benchmark inputs are written.
 func stageDOT(g graphgen.Graph) []byte {
 	var buf bytes.Buffer
-	fmt.Fprintf(&buf, "graph %q {\n", g.Name)
-	for v := range g.N {
-		fmt.Fprintf(&buf, "\tn%d\n", v)
-	}
-	for _, e := range g.Edges {
-		fmt.Fprintf(&buf, "\tn%d -- n%d\n", e[0], e[1])
-	}
-	buf.WriteString("}\n")
+	graphgen.WriteDOT(&buf, g)
 	return buf.Bytes()
 }
 

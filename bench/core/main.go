@@ -29,27 +29,8 @@ func main() {
 	n := flag.Int("n", 1000000, "vertices")
 	runs := flag.Int("runs", 3, "timed runs (the best is reported)")
 	flag.Parse()
-	var g graphgen.Graph
-	switch *family {
-	case "tri":
-		g = graphgen.RandomMaximalPlanar(*n, 1)
-	case "grid":
-		k := 1
-		for (k+1)*(k+1) <= *n {
-			k++
-		}
-		g = graphgen.Grid(k, k)
-	case "tree":
-		g = graphgen.RandomTree(*n, 1)
-	case "star":
-		g = graphgen.Star(*n - 1)
-	case "path":
-		g = graphgen.Path(*n)
-	case "nested":
-		g = graphgen.NestedTriangles(*n / 3)
-	case "extra":
-		g = graphgen.PlanarPlusExtra(*n, 10, 1)
-	default:
+	g, ok := graphgen.Named(*family, *n, 10, 1)
+	if !ok {
 		fmt.Fprintln(os.Stderr, "core: unknown family")
 		os.Exit(2)
 	}

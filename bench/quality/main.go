@@ -60,14 +60,7 @@ func main() {
 	} {
 		p := filepath.Join(dir, g.Name+".dot")
 		var b bytes.Buffer
-		fmt.Fprintf(&b, "graph %q {\n", g.Name)
-		for v := range g.N {
-			fmt.Fprintf(&b, "\tn%d\n", v)
-		}
-		for _, e := range g.Edges {
-			fmt.Fprintf(&b, "\tn%d -- n%d\n", e[0], e[1])
-		}
-		b.WriteString("}\n")
+		graphgen.WriteDOT(&b, g)
 		if err := os.WriteFile(p, b.Bytes(), 0o644); err != nil {
 			fail(err)
 		}

@@ -17,13 +17,9 @@ var Sizes = []int{1000, 10000, 100000, 1000000}
 // size: a random triangulation, a square grid, a random tree and a random
 // planar graph (a random 60% of a triangulation's edges).
 func Families(n int) []graphgen.Graph {
-	k := 1
-	for (k+1)*(k+1) <= n {
-		k++
-	}
 	return []graphgen.Graph{
 		graphgen.RandomMaximalPlanar(n, 1),
-		graphgen.Grid(k, k),
+		graphgen.SquareGrid(n),
 		graphgen.RandomTree(n, 1),
 		graphgen.RandomPlanar(n, 0.6, 1),
 	}
