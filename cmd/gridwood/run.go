@@ -295,6 +295,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		layouts := make([]dotio.Layout, len(f.Graphs))
 		removed := make([][]int, len(f.Graphs))
 		results := make([]*place.Result, len(f.Graphs))
+		nodeBoxesOf := make([]place.Boxes, len(f.Graphs))
 		totalEdges, edgesDone := 0, 0
 		for _, g := range f.Graphs {
 			totalEdges += len(g.Edges) + 1
@@ -302,12 +303,12 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		for gi, g := range f.Graphs {
 			prog.set(fmt.Sprintf("drawing %s in %s", graphName(g, gi), name), pct(ii, 0.4+0.5*float64(edgesDone)/float64(totalEdges)))
 			edgesDone += len(g.Edges) + 1
-			res, lay, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)))
+			res, lay, boxes, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)))
 			if err != nil {
 				return err
 			}
 			rep.Graphs = append(rep.Graphs, gr)
-			results[gi], layouts[gi], removed[gi] = res, lay, res.Removed
+			results[gi], layouts[gi], removed[gi], nodeBoxesOf[gi] = res, lay, res.Removed, boxes
 			outerUsed = outerUsed || hasAll(g, cfg.outer)
 			if len(res.Removed) == 0 {
 				continue
@@ -346,7 +347,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		}
 		if cfg.svgFile != "" {
 			for gi, g := range f.Graphs {
-				pictures = append(pictures, svgGraph{g, layouts[gi]})
+				pictures = append(pictures, svgGraph{g, layouts[gi], nodeBoxesOf[gi]})
 			}
 		}
 	}
@@ -438,8 +439,9 @@ func readInput(in string, stdin io.Reader, stdinUsed *bool) ([]byte, string, err
 	return src, in, nil
 }
 
-// layoutGraph draws one graph and converts grid points to DOT positions.
-func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Result, dotio.Layout, graphReport, error) {
+// layoutGraph draws one graph, converts grid points to DOT positions, and
+// returns the node boxes it spaced for (the SVG draws the same ones).
+func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Result, dotio.Layout, place.Boxes, graphReport, error) {
 	edges := make([][2]int32, len(g.Edges))
 	for i, e := range g.Edges {
 		edges[i] = [2]int32{e.From, e.To}
@@ -458,16 +460,16 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Resu
 		Subgraph: planarize.SubgraphOptions{Effort: cfg.effort},
 	})
 	if errors.Is(err, place.ErrOuter) {
-		return nil, dotio.Layout{}, graphReport{}, &exitError{exitBadInput, fmt.Sprintf("%s: --outer %s: no drawing has all of these nodes on its outer boundary (they may lie in different components, or the planar part keeps them apart)", where, strings.Join(cfg.outer, ","))}
+		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, &exitError{exitBadInput, fmt.Sprintf("%s: --outer %s: no drawing has all of these nodes on its outer boundary (they may lie in different components, or the planar part keeps them apart)", where, strings.Join(cfg.outer, ","))}
 	}
 	if err != nil {
-		return nil, dotio.Layout{}, graphReport{}, err
+		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
 	}
 	boxes := nodeBoxes(g)
 	spaceStart := time.Now()
 	sp, err := res.Space(boxes, place.SpaceOptions{Unit: int64(cfg.unit), GridOnly: cfg.gridOnly})
 	if err != nil {
-		return nil, dotio.Layout{}, graphReport{}, err
+		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
 	}
 	spaceTime := time.Since(spaceStart)
 	lay := dotio.Layout{X: sp.X, Y: sp.Y, BB: [4]int64{0, 0, sp.Width, sp.Height}}
@@ -488,7 +490,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Resu
 		}
 		gr = graphMeasures(g, gi, name, res, sp, boxes, spaceTime)
 	}
-	return res, lay, gr, nil
+	return res, lay, boxes, gr, nil
 }
 
 // DOT's default node size in inches (from memory of its documentation, see

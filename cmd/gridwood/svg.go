@@ -14,12 +14,14 @@ import (
 	"unicode/utf8"
 
 	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/place"
 )
 
 // svgGraph is one laid-out graph to draw.
 type svgGraph struct {
-	g   *dotio.Graph
-	lay dotio.Layout // positions in points, y up; Removed marks set-aside edges
+	g     *dotio.Graph
+	lay   dotio.Layout // positions in points, y up; Removed marks set-aside edges
+	boxes place.Boxes  // the node boxes the layout spaced for
 }
 
 // The preview's own look: warm paper, slate nodes with rounded corners and
@@ -148,7 +150,10 @@ func newSVGPanel(sg svgGraph, index int) (svgPanel, error) {
 		return svgPanel{}, fmt.Errorf("svg: graph %d: %d set-aside flags for %d edges", index+1, len(lay.Removed), len(g.Edges))
 	}
 	p := svgPanel{title: svgTitle(g, index), directed: g.Directed, nodes: make([]svgNode, len(g.Nodes))}
-	boxes := nodeBoxes(g) // the same boxes the layout spaced for
+	boxes := sg.boxes
+	if len(boxes.HalfW) != len(g.Nodes) || len(boxes.HalfH) != len(g.Nodes) {
+		return svgPanel{}, fmt.Errorf("svg: graph %d: %d node boxes for %d nodes", index+1, len(boxes.HalfW), len(g.Nodes))
+	}
 	p.minX, p.minY = float64(min(lay.BB[0], lay.BB[2])), float64(min(lay.BB[1], lay.BB[3]))
 	p.maxX, p.maxY = float64(max(lay.BB[0], lay.BB[2])), float64(max(lay.BB[1], lay.BB[3]))
 	if len(g.Nodes) > 0 && lay.BB == [4]int64{} {

@@ -43,11 +43,11 @@ func layOut(t *testing.T, src string) []svgGraph {
 	}
 	var out []svgGraph
 	for _, g := range f.Graphs {
-		_, lay, _, err := layoutGraph(&config{}, g, 0, "test")
+		_, lay, boxes, _, err := layoutGraph(&config{}, g, 0, "test")
 		if err != nil {
 			t.Fatal(err)
 		}
-		out = append(out, svgGraph{g, lay})
+		out = append(out, svgGraph{g, lay, boxes})
 	}
 	return out
 }
