@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"time"
 
 	"github.com/gridwood/gridwood/internal/order"
@@ -46,6 +47,8 @@ type Result struct {
 	simple    [][2]int32
 	simpleOf  []int32
 	removedSP []int32
+	keptComp  []int32    // for Explain: each vertex's component in the kept graph
+	keptIn    [][]int32  // for Explain: the kept pairs of each component
 	local     *Drawing   // the drawing in Draw's own numbering
 	newID     []int32    // caller's vertex -> Draw's numbering
 	keptLocal [][2]int32 // kept pairs in Draw's numbering
@@ -119,6 +122,7 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 		if emb, ok = planarize.Embed(n, kept); !ok {
 			return nil, errNotPlanar
 		}
+		res.groupKept(n, gone)
 	}
 	lopt := opt.Layout
 	if len(lopt.Outer) > 0 {
@@ -188,16 +192,14 @@ func (r *Result) Explain(i int, budget *planarize.Budget) (*planarize.Kuratowski
 		return nil, false // no such edge, or a loop
 	}
 	target := r.simpleOf[i]
-	gone := make([]bool, len(r.simple))
-	for _, e := range r.removedSP {
-		gone[e] = true
+	if _, removed := slices.BinarySearch(r.removedSP, target); !removed {
+		return nil, false // a kept pair has no certificate
 	}
-	subset := make([]int32, 0, len(r.simple))
-	for e := range r.simple {
-		if !gone[e] || int32(e) == target {
-			subset = append(subset, int32(e))
-		}
-	}
+	// A Kuratowski subgraph through the pair lies in the kept component of
+	// its ends: search that one only, so that explaining many edges of a
+	// graph of many small parts does not walk the whole graph each time.
+	c := r.keptComp[r.simple[target][0]]
+	subset := append(append(make([]int32, 0, len(r.keptIn[c])+1), r.keptIn[c]...), target)
 	return planarize.FindKuratowski(len(r.X), r.simple, subset, []int32{target}, budget)
 }
 
@@ -224,4 +226,46 @@ func checkInput(n int, edges [][2]int32) error {
 		}
 	}
 	return nil
+}
+
+// groupKept labels the vertices by connected component of the kept pairs
+// and lists each component's kept pairs, for Explain; Draw does it when it
+// sets pairs aside (a linear pass, small next to finding them).
+func (r *Result) groupKept(n int, gone []bool) {
+	parent := make([]int32, n)
+	for v := range parent {
+		parent[v] = int32(v)
+	}
+	find := func(v int32) int32 {
+		for parent[v] != v {
+			parent[v] = parent[parent[v]]
+			v = parent[v]
+		}
+		return v
+	}
+	for e, p := range r.simple {
+		if !gone[e] {
+			if a, b := find(p[0]), find(p[1]); a != b {
+				parent[a] = b
+			}
+		}
+	}
+	r.keptComp = make([]int32, n)
+	ids := make(map[int32]int32)
+	for v := range n {
+		root := find(int32(v))
+		id, ok := ids[root]
+		if !ok {
+			id = int32(len(r.keptIn))
+			ids[root] = id
+			r.keptIn = append(r.keptIn, nil)
+		}
+		r.keptComp[v] = id
+	}
+	for e, p := range r.simple {
+		if !gone[e] {
+			c := r.keptComp[p[0]]
+			r.keptIn[c] = append(r.keptIn[c], int32(e))
+		}
+	}
 }

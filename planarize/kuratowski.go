@@ -84,18 +84,66 @@ func FindKuratowski(n int, edges [][2]int32, subset, must []int32, budget *Budge
 			subset[i] = int32(i)
 		}
 	}
-	t := &tester{n: n, edges: edges, budget: budget}
-	inSubset := make(map[int32]bool, len(subset))
-	for _, e := range subset {
-		inSubset[e] = true
-	}
-	var mustIn []int32 // must edges outside subset are not part of the graph
-	for _, e := range must {
-		if inSubset[e] {
-			mustIn = append(mustIn, e)
+	// Work on the subset alone, its vertices renumbered 0..k-1: every test
+	// then costs what the subset costs, not what the whole graph does (a
+	// small block of a big graph would otherwise pay for all its vertices).
+	local := make(map[int32]int32, len(subset))
+	var orig []int32 // local vertex -> vertex
+	sub := make([][2]int32, len(subset))
+	for i, e := range subset {
+		for j, v := range edges[e] {
+			l, ok := local[v]
+			if !ok {
+				l = int32(len(orig))
+				local[v] = l
+				orig = append(orig, v)
+			}
+			sub[i][j] = l
 		}
 	}
-	must = mustIn
+	at := make(map[int32]int32, len(subset)) // edge -> its place in subset
+	for i, e := range subset {
+		at[e] = int32(i)
+	}
+	var mustLocal []int32 // must edges outside subset are not part of the graph
+	for _, e := range must {
+		if i, ok := at[e]; ok {
+			mustLocal = append(mustLocal, i)
+		}
+	}
+	k, ok := findKuratowskiLocal(len(orig), sub, mustLocal, budget)
+	if !ok {
+		return nil, false
+	}
+	for i, e := range k.Edges {
+		k.Edges[i] = subset[e]
+	}
+	slices.Sort(k.Edges)
+	for i, v := range k.Branch {
+		k.Branch[i] = orig[v]
+	}
+	slices.Sort(k.Branch)
+	for _, path := range k.Paths {
+		for i, v := range path {
+			path[i] = orig[v]
+		}
+	}
+	return k, true
+}
+
+// findKuratowskiLocal is FindKuratowski on a whole graph whose vertices
+// are all used: it searches all of edges, preferring the edges in must.
+func findKuratowskiLocal(n int, edges [][2]int32, must []int32, budget *Budget) (*Kuratowski, bool) {
+	subset := make([]int32, len(edges))
+	for i := range subset {
+		subset[i] = int32(i)
+	}
+	t := &tester{n: n, edges: edges, budget: budget}
+	// Restricting to the block and pruning leaves cost a pass over the
+	// graph; charge it like a test.
+	if !budget.spend(len(subset) + n) {
+		return nil, false
+	}
 	if len(must) > 0 {
 		subset = blockOf(n, edges, subset, must[0])
 	}
