@@ -232,28 +232,16 @@ func checkInput(n int, edges [][2]int32) error {
 // and lists each component's kept pairs, for Explain; Draw does it when it
 // sets pairs aside (a linear pass, small next to finding them).
 func (r *Result) groupKept(n int, gone []bool) {
-	parent := make([]int32, n)
-	for v := range parent {
-		parent[v] = int32(v)
-	}
-	find := func(v int32) int32 {
-		for parent[v] != v {
-			parent[v] = parent[parent[v]]
-			v = parent[v]
-		}
-		return v
-	}
+	uf := newUnionFind(n)
 	for e, p := range r.simple {
 		if !gone[e] {
-			if a, b := find(p[0]), find(p[1]); a != b {
-				parent[a] = b
-			}
+			uf.union(p[0], p[1])
 		}
 	}
 	r.keptComp = make([]int32, n)
 	ids := make(map[int32]int32)
 	for v := range n {
-		root := find(int32(v))
+		root := uf.find(int32(v))
 		id, ok := ids[root]
 		if !ok {
 			id = int32(len(r.keptIn))
