@@ -70,27 +70,19 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	local, localIndex := planarize.Simplify(n, renamed)
 	// Number the pairs in order of first occurrence in the input, as
 	// PairList promises: edgeOf maps a local pair to that number.
-	edgeOf := make([]int32, len(local))
-	for i := range edgeOf {
-		edgeOf[i] = -1
-	}
-	posOf := make([]int32, len(edges)) // raw edge -> its place in renamed
-	for k, i := range rawOf {
-		posOf[i] = int32(k)
-	}
-	simple := make([][2]int32, 0, len(local))
-	index := make([]int32, len(edges))
-	for i, e := range edges {
-		p := localIndex[posOf[i]]
-		if p < 0 {
-			index[i] = -1
-			continue
+	var edgeOf, index []int32
+	var simple [][2]int32
+	if len(local) == len(edges) {
+		// No loops and no repeats, the usual case: the pairs are the edges,
+		// local pair k is renamed edge k, so no scattered lookups are needed.
+		edgeOf = rawOf
+		simple = append([][2]int32(nil), edges...)
+		index = make([]int32, len(edges))
+		for i := range index {
+			index[i] = int32(i)
 		}
-		if edgeOf[p] < 0 {
-			edgeOf[p] = int32(len(simple))
-			simple = append(simple, e)
-		}
-		index[i] = edgeOf[p]
+	} else {
+		edgeOf, simple, index = pairsInInputOrder(edges, rawOf, localIndex, len(local))
 	}
 	res := &Result{DistinctPairs: len(simple), Optimal: true, simple: simple, simpleOf: index}
 	kept := local
@@ -160,6 +152,37 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 		res.X[v], res.Y[v], res.bary[v] = d.X[w], d.Y[w], d.bary[w]
 	}
 	return res, nil
+}
+
+// pairsInInputOrder numbers the distinct pairs of edges in order of first
+// occurrence: simple lists them with the caller's vertex numbers,
+// index[i] is the pair of raw edge i (-1 for a loop) and edgeOf[p] the
+// number of local pair p. rawOf and localIndex say which raw edge each
+// renamed edge is and which local pair it became.
+func pairsInInputOrder(edges [][2]int32, rawOf, localIndex []int32, pairs int) (edgeOf []int32, simple [][2]int32, index []int32) {
+	edgeOf = make([]int32, pairs)
+	for i := range edgeOf {
+		edgeOf[i] = -1
+	}
+	posOf := make([]int32, len(edges)) // raw edge -> its place in renamed
+	for k, i := range rawOf {
+		posOf[i] = int32(k)
+	}
+	simple = make([][2]int32, 0, pairs)
+	index = make([]int32, len(edges))
+	for i, e := range edges {
+		p := localIndex[posOf[i]]
+		if p < 0 {
+			index[i] = -1
+			continue
+		}
+		if edgeOf[p] < 0 {
+			edgeOf[p] = int32(len(simple))
+			simple = append(simple, e)
+		}
+		index[i] = edgeOf[p]
+	}
+	return edgeOf, simple, index
 }
 
 // StageTimes are the durations of Draw's stages.

@@ -354,6 +354,9 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 // by their smallest vertex, and lists each component's vertices in
 // increasing order.
 func components(emb *planarize.Embedding) (comp []int32, members [][]int32) {
+	if comp, members, ok := intervalComponents(emb); ok {
+		return comp, members
+	}
 	n := emb.N()
 	comp = make([]int32, n)
 	for v := range comp {
@@ -404,6 +407,42 @@ func components(emb *planarize.Embedding) (comp []int32, members [][]int32) {
 		members[c] = flat[sizes[c]:sizes[c+1]:sizes[c+1]]
 	}
 	return comp, members
+}
+
+// intervalComponents finds the components in two sequential passes when
+// each is an interval of vertex numbers, as after Draw's depth-first
+// renumbering, and reports false otherwise. The intervals are the stretches
+// no edge leaves; such a stretch is connected when each of its vertices
+// but the first has a smaller neighbour in it, since following smaller
+// neighbours then leads every vertex to the first.
+func intervalComponents(emb *planarize.Embedding) (comp []int32, members [][]int32, ok bool) {
+	n := emb.N()
+	reach := make([]int32, n) // the largest neighbour, or the vertex itself
+	below := make([]bool, n)  // has a smaller neighbour
+	for v := range reach {
+		reach[v] = int32(v)
+	}
+	for i := range emb.M() {
+		e := emb.Edge(i)
+		lo, hi := min(e[0], e[1]), max(e[0], e[1])
+		reach[lo] = max(reach[lo], hi)
+		below[hi] = true
+	}
+	comp = make([]int32, n)
+	flat := make([]int32, n)
+	first, far := 0, int32(-1)
+	for v := range n {
+		if v > first && !below[v] {
+			return nil, nil, false
+		}
+		comp[v], flat[v] = int32(len(members)), int32(v)
+		far = max(far, reach[v])
+		if far == int32(v) {
+			members = append(members, flat[first:v+1:v+1])
+			first = v + 1
+		}
+	}
+	return comp, members, true
 }
 
 // pack places component boxes left to right in rows, with one empty grid

@@ -118,10 +118,30 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 			compOf[v] = int32(c)
 		}
 	}
+	// The kept edges grouped by component, in their order, by a counting
+	// sort into one array: growing a slice per component copies a million
+	// edges over and over.
 	edgesOf := make([][][2]int32, len(members))
-	for _, e := range r.keptLocal {
-		c := compOf[e[0]]
-		edgesOf[c] = append(edgesOf[c], e)
+	if len(members) == 1 {
+		edgesOf[0] = r.keptLocal
+	} else {
+		end := make([]int, len(members)+1)
+		for _, e := range r.keptLocal {
+			end[compOf[e[0]]+1]++
+		}
+		for c := range members {
+			end[c+1] += end[c]
+		}
+		grouped := make([][2]int32, len(r.keptLocal))
+		fill := append([]int(nil), end[:len(members)]...)
+		for _, e := range r.keptLocal {
+			c := compOf[e[0]]
+			grouped[fill[c]] = e
+			fill[c]++
+		}
+		for c := range members {
+			edgesOf[c] = grouped[end[c]:end[c+1]:end[c+1]]
+		}
 	}
 	px, py := make([]int64, n), make([]int64, n) // local numbering
 	tx, ty := make([]int64, n), make([]int64, n) // a second candidate

@@ -9,28 +9,42 @@ func Simplify(n int, raw [][2]int32) (simple [][2]int32, index []int32) {
 	index = make([]int32, len(raw))
 	// Bucket raw edges by their smaller end, then scan each bucket marking
 	// the larger end to detect repeats.
+	// Input already sorted by smaller end and free of loops (as Draw
+	// passes it) needs no bucketing: the buckets are runs of raw itself.
 	count := make([]int32, n+1)
+	sorted := true
+	prevLo := int32(-1)
 	for _, e := range raw {
 		u, v := e[0], e[1]
 		if u == v {
+			sorted = false
 			continue
 		}
-		count[min(u, v)+1]++
+		lo := min(u, v)
+		sorted = sorted && lo >= prevLo
+		prevLo = lo
+		count[lo+1]++
 	}
 	for v := 1; v <= n; v++ {
 		count[v] += count[v-1]
 	}
 	order := make([]int32, count[n])
-	fill := append([]int32(nil), count[:n]...)
-	for i, e := range raw {
-		u, v := e[0], e[1]
-		if u == v {
-			index[i] = -1
-			continue
+	if sorted {
+		for i := range order {
+			order[i] = int32(i)
 		}
-		lo := min(u, v)
-		order[fill[lo]] = int32(i)
-		fill[lo]++
+	} else {
+		fill := append([]int32(nil), count[:n]...)
+		for i, e := range raw {
+			u, v := e[0], e[1]
+			if u == v {
+				index[i] = -1
+				continue
+			}
+			lo := min(u, v)
+			order[fill[lo]] = int32(i)
+			fill[lo]++
+		}
 	}
 	// first[i] is the raw edge that first carried the pair of raw edge i.
 	firstRaw := make([]int32, len(raw))
@@ -53,6 +67,7 @@ func Simplify(n int, raw [][2]int32) (simple [][2]int32, index []int32) {
 		}
 	}
 	// Number the pairs in order of first occurrence.
+	simple = make([][2]int32, 0, count[n])
 	for i, e := range raw {
 		if e[0] == e[1] {
 			continue

@@ -11,6 +11,7 @@ import (
 	"os"
 	"runtime"
 	"runtime/debug"
+	"runtime/pprof"
 	"syscall"
 	"time"
 
@@ -28,6 +29,8 @@ func main() {
 	family := flag.String("family", "tri", "tri, grid, tree, star, path, nested, extra")
 	n := flag.Int("n", 1000000, "vertices")
 	runs := flag.Int("runs", 3, "timed runs (the best is reported)")
+	stages := flag.Bool("stages", false, "print each run's stage times")
+	cpuProfile := flag.String("cpuprofile", "", "write a CPU profile of the timed runs to this file")
 	flag.Parse()
 	g, ok := graphgen.Named(*family, *n, 10, 1)
 	if !ok {
@@ -42,6 +45,15 @@ func main() {
 	runtime.GC()
 	base := maxRSS()
 	best := time.Duration(1 << 62)
+	if *cpuProfile != "" {
+		f, err := os.Create(*cpuProfile)
+		if err != nil {
+			fmt.Fprintln(os.Stderr, err)
+			os.Exit(1)
+		}
+		pprof.StartCPUProfile(f)
+		defer pprof.StopCPUProfile()
+	}
 	for range *runs {
 		runtime.GC()
 		start := time.Now()
@@ -50,11 +62,18 @@ func main() {
 			fmt.Fprintln(os.Stderr, err)
 			os.Exit(1)
 		}
+		spaceStart := time.Now()
 		if _, err := res.Space(boxes, place.SpaceOptions{}); err != nil {
 			fmt.Fprintln(os.Stderr, err)
 			os.Exit(1)
 		}
-		best = min(best, time.Since(start))
+		took := time.Since(start)
+		best = min(best, took)
+		if *stages {
+			fmt.Printf("run: %.3f s = planarize %.3f + layout %.3f + space %.3f (+ %.3f)\n", took.Seconds(),
+				res.Times.Planarize.Seconds(), res.Times.Layout.Seconds(), time.Since(spaceStart).Seconds(),
+				(took - res.Times.Planarize - res.Times.Layout - time.Since(spaceStart)).Seconds())
+		}
 	}
 	fmt.Printf("%s n=%d m=%d: best of %d %.3f s, %.0f ns/edge, peak memory added %.0f MB (RSS %.0f MB with the graph)\n",
 		*family, g.N, len(g.Edges), *runs, best.Seconds(), float64(best.Nanoseconds())/float64(len(g.Edges)),
