@@ -48,7 +48,7 @@ func ExampleDrawGraph() {
 	fmt.Println("set aside:", d.Removed)
 	// Output:
 	// nodes: [1 2 3 10 20 30]
-	// set aside: [[3 30]]
+	// set aside: [[3 20]]
 }
 
 // The command's pipeline in a few lines: read DOT, draw each graph, write

@@ -35,6 +35,10 @@ const exactEdgeLimit = 120
 // budget.
 const exactGapLimit = 6
 
+// bothSeedsLimit is the largest block (in edges) on which the greedy
+// search runs from the cactus seed too when the stacked seed applies.
+const bothSeedsLimit = 5000
+
 // exactTests bounds the planarity tests of one exact search at Effort 0.
 const exactTests = 40000
 
@@ -122,9 +126,19 @@ func MaximalPlanar(n int, edges [][2]int32, opt SubgraphOptions) *Subgraph {
 func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int32, lower int, optimal bool) {
 	limit := edgeLimit(n, edges)
 	lower = max(1, len(edges)-limit)
-	support := triangleSupport(n, edges)
-	order := bySupport(support, identity(len(edges)))
-	best := greedyPlanar(n, edges, order, support, limit)
+	start, support := analyseBlock(n, edges)
+	order := identity(len(edges))
+	if support != nil {
+		order = bySupport(support, order)
+	}
+	best := greedyPlanar(n, edges, order, support, start, limit)
+	if start.dense && len(edges) <= bothSeedsLimit && len(best) > lower {
+		// Small dense blocks can afford the cactus seed as well; keep the
+		// better of the two.
+		if cand := greedyPlanar(n, edges, order, support, seedStart{}, limit); len(cand) < len(best) {
+			best = cand
+		}
+	}
 	for r := 1; r <= opt.Effort && len(best) > lower; r++ {
 		// Odd restarts shuffle edges of equal support only, even ones
 		// shuffle everything, to explore beyond the heuristic order.
@@ -132,12 +146,12 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 		perm := identity(len(edges))
 		rng.Shuffle(len(perm), func(i, j int) { perm[i], perm[j] = perm[j], perm[i] })
 		sup := support
-		if r%2 == 1 {
+		if r%2 == 1 && support != nil {
 			perm = bySupport(support, perm)
 		} else {
 			sup = nil
 		}
-		if cand := greedyPlanar(n, edges, perm, sup, limit); len(cand) < len(best) {
+		if cand := greedyPlanar(n, edges, perm, sup, start, limit); len(cand) < len(best) {
 			best = cand
 		}
 	}
@@ -260,8 +274,9 @@ const maxSupportLevel = 15
 // the edge-orientation method of Chiba and Nishizeki ("Arboricity and
 // subgraph listing algorithms", SIAM J. Comput. 14, 1985): each edge points
 // from its end of lower degree, and each triangle is found once from its
-// lowest corner, in O(m a(G)) time, linear for planar-like graphs.
-func triangleSupport(n int, edges [][2]int32) []int32 {
+// lowest corner, in O(m a(G)) time, linear for planar-like graphs. With
+// work >= 0 it gives up (nil) after that many steps of the inner loop.
+func triangleSupport(n int, edges [][2]int32, work int) []int32 {
 	deg := make([]int32, n)
 	for _, e := range edges {
 		deg[e[0]]++
@@ -298,6 +313,11 @@ func triangleSupport(n int, edges [][2]int32) []int32 {
 		}
 		for _, e1 := range out[start[u]:start[u+1]] {
 			v := other(e1, u)
+			if work >= 0 {
+				if work -= int(start[v+1] - start[v]); work < 0 {
+					return nil
+				}
+			}
 			for _, e2 := range out[start[v]:start[v+1]] {
 				if e3 := mark[other(e2, v)]; e3 > 0 {
 					support[e1]++
@@ -338,19 +358,32 @@ func bySupport(support, order []int32) []int32 {
 // support and each level is first tried as one group: on a mesh with a
 // few stray long edges the well-supported edges then go in with a handful
 // of tests, after which the Euler bound rejects the rest untested.
-func greedyPlanar(n int, edges [][2]int32, order, support []int32, limit int) []int32 {
-	kept := cactusSeed(n, edges, order)
+//
+// On a dense block (see denseSeed) the seed is a stacked triangulation or
+// a quadrangulation instead, and every edge between two of its vertices is
+// rejected without a test.
+func greedyPlanar(n int, edges [][2]int32, order, support []int32, start seedStart, limit int) []int32 {
+	var rejected []int32
+	kept, spanned := denseSeed(n, edges, start)
+	if kept == nil {
+		kept = cactusSeed(n, edges, order)
+	}
 	inSeed := make([]bool, len(edges))
 	for _, e := range kept {
 		inSeed[e] = true
 	}
 	cand := make([]int32, 0, len(edges)-len(kept))
 	for _, e := range order {
-		if !inSeed[e] {
+		switch {
+		case inSeed[e]:
+		case spanned != nil && spanned[edges[e][0]] && spanned[edges[e][1]]:
+			// The seed holds Euler's bound on its vertices: with one edge
+			// more between them it would break it.
+			rejected = append(rejected, e)
+		default:
 			cand = append(cand, e)
 		}
 	}
-	var rejected []int32
 	t := &tester{n: n, edges: edges}
 	// Adaptive group testing: the group doubles after it was added and
 	// halves after it failed, so runs of good edges cost few tests and a
@@ -402,6 +435,195 @@ func greedyPlanar(n int, edges [][2]int32, order, support []int32, limit int) []
 	}
 	slices.Sort(rejected)
 	return rejected
+}
+
+// seedStart says whether a block gets the dense seed, and how to start it.
+type seedStart struct {
+	dense    bool
+	triangle int32 // an edge on a triangle, or -1 when the block has none
+}
+
+// analyseBlock decides the seed of a block and returns the triangle counts
+// of its edges for the greedy order (nil when they cost too much).
+// Counting triangles (Chiba and Nishizeki) costs O(m) times the
+// arboricity, which on a dense block is about n, so there it stops after
+// supportWork steps per edge; the block then looks for one triangle with
+// O(m) work, or proves it has none by being bipartite.
+func analyseBlock(n int, edges [][2]int32) (start seedStart, support []int32) {
+	if n < 5 || len(edges) == 0 || int64(len(edges))*16 < int64(n)*int64(n) {
+		return seedStart{}, triangleSupport(n, edges, -1)
+	}
+	if support = triangleSupport(n, edges, supportWork*len(edges)); support != nil {
+		// Start from the edge the greedy order puts first: on most
+		// triangles (counts capped as bySupport caps them), first in edge
+		// order among equals.
+		start = seedStart{dense: true, triangle: -1}
+		best := int32(0)
+		for e, c := range support {
+			if c = min(c, maxSupportLevel); c > best {
+				start.triangle, best = int32(e), c
+			}
+		}
+		return start, support
+	}
+	if e := findTriangle(n, edges, 2*len(edges)); e >= 0 {
+		return seedStart{dense: true, triangle: e}, nil
+	}
+	if bipartite(n, edges) {
+		return seedStart{dense: true, triangle: -1}, nil
+	}
+	return seedStart{}, nil // no proof either way: the plain greedy search
+}
+
+// supportWork bounds the triangle counting on a dense block, in steps per
+// edge.
+const supportWork = 64
+
+// findTriangle returns the first edge, in edge order, that lies on a
+// triangle, giving up (-1) once it has spent work steps.
+func findTriangle(n int, edges [][2]int32, work int) int32 {
+	g := newCSR(n, edges)
+	mark := make([]bool, n)
+	for e, uv := range edges {
+		u, v := uv[0], uv[1]
+		nu, nv := g.adj[g.start[u]:g.start[u+1]], g.adj[g.start[v]:g.start[v+1]]
+		if work -= len(nu) + len(nv); work < 0 {
+			return -1
+		}
+		for _, d := range nu {
+			mark[edges[d>>1][1-d&1]] = true
+		}
+		found := false
+		for _, d := range nv {
+			if w := edges[d>>1][1-d&1]; w != u && mark[w] {
+				found = true
+				break
+			}
+		}
+		for _, d := range nu {
+			mark[edges[d>>1][1-d&1]] = false
+		}
+		if found {
+			return int32(e)
+		}
+	}
+	return -1
+}
+
+// denseSeed grows a seed for a dense block (at least n^2/16 edges) that
+// holds as many edges as Euler's formula allows on the vertices it spans,
+// so that no edge between two of them can join it: on a complete graph it
+// is the whole answer, where testing edge after edge costs a planarity
+// test each, O(nm) in all.
+//
+//   - With a triangle, a stacked triangulation (3k-6 edges on k vertices):
+//     the first triangle in edge order, then each further vertex, in
+//     vertex order, put into the first face whose three corners are all
+//     its neighbours.
+//   - Without any triangle in the block, a quadrangulation (2k-4 edges,
+//     the bound for triangle-free planar graphs, which every subgraph of
+//     the block is): the first 4-cycle through the first edge, then each
+//     vertex put into the first face two opposite corners of which are its
+//     neighbours.
+//
+// The face scans cost O(n^2) in all, which the density keeps within O(m).
+// It returns the seed's edges and the vertices it spans, or nil when start
+// says the block is not dense or no seed of four or more vertices was
+// found.
+func denseSeed(n int, edges [][2]int32, start seedStart) (seed []int32, spanned []bool) {
+	if !start.dense {
+		return nil, nil
+	}
+	first := start.triangle
+	g := newCSR(n, edges)
+	mark := make([]int32, n) // edge index to the marked vertex, + 1
+	markAround := func(x int32, on bool) {
+		for _, d := range g.adj[g.start[x]:g.start[x+1]] {
+			if on {
+				mark[edges[d>>1][1-d&1]] = d>>1 + 1
+			} else {
+				mark[edges[d>>1][1-d&1]] = 0
+			}
+		}
+	}
+	around := func(x int32) []int32 { return g.adj[g.start[x]:g.start[x+1]] }
+	other := func(d int32) int32 { return edges[d>>1][1-d&1] }
+	spanned = make([]bool, n)
+	var faces [][4]int32 // corners in order; the fourth is -1 in a triangle
+	if first >= 0 {
+		u, v := edges[first][0], edges[first][1]
+		markAround(u, true)
+		for _, d := range around(v) {
+			if w := other(d); w != u && mark[w] > 0 {
+				seed = append(seed, first, mark[w]-1, d>>1)
+				faces = [][4]int32{{u, v, w, -1}, {u, w, v, -1}}
+				break
+			}
+		}
+		markAround(u, false)
+	} else {
+		// A 4-cycle u v w z through the first edge: z a neighbour of u
+		// and of some neighbour w of v.
+		first = 0
+		u, v := edges[first][0], edges[first][1]
+		markAround(u, true)
+	search:
+		for _, dw := range around(v) {
+			w := other(dw)
+			if w == u {
+				continue
+			}
+			for _, dz := range around(w) {
+				if z := other(dz); z != v && mark[z] > 0 {
+					seed = append(seed, first, dw>>1, dz>>1, mark[z]-1)
+					faces = [][4]int32{{u, v, w, z}, {u, z, w, v}}
+					break search
+				}
+			}
+		}
+		markAround(u, false)
+	}
+	if faces == nil {
+		return nil, nil
+	}
+	for _, x := range faces[0] {
+		if x >= 0 {
+			spanned[x] = true
+		}
+	}
+	for x := range int32(n) {
+		if spanned[x] {
+			continue
+		}
+		markAround(x, true)
+		for i, f := range faces {
+			if f[3] < 0 { // triangle p q r: x joins all three
+				if mark[f[0]] == 0 || mark[f[1]] == 0 || mark[f[2]] == 0 {
+					continue
+				}
+				seed = append(seed, mark[f[0]]-1, mark[f[1]]-1, mark[f[2]]-1)
+				faces[i] = [4]int32{f[0], f[1], x, -1}
+				faces = append(faces, [4]int32{f[1], f[2], x, -1}, [4]int32{f[2], f[0], x, -1})
+			} else { // quadrangle p q r s: x joins p and r (or q and s)
+				if mark[f[0]] == 0 || mark[f[2]] == 0 {
+					f = [4]int32{f[1], f[2], f[3], f[0]}
+					if mark[f[0]] == 0 || mark[f[2]] == 0 {
+						continue
+					}
+				}
+				seed = append(seed, mark[f[0]]-1, mark[f[2]]-1)
+				faces[i] = [4]int32{f[0], f[1], f[2], x}
+				faces = append(faces, [4]int32{f[2], f[3], f[0], x})
+			}
+			spanned[x] = true
+			break
+		}
+		markAround(x, false)
+	}
+	if k := len(faces); k < 4 {
+		return nil, nil // the first triangle or 4-cycle alone
+	}
+	return seed, spanned
 }
 
 // cactusSeed picks, in edge order, triangles whose three corners lie in

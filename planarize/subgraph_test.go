@@ -261,6 +261,44 @@ func TestMaximalPlanarRandom(t *testing.T) {
 	}
 }
 
+// TestMaximalPlanarDense covers blocks dense enough for the dense seed,
+// where a test per edge would cost O(nm): the removal must still be
+// maximal, on K_n it must be the skewness n(n-1)/2 - (3n-6) (the Euler
+// bound, reached by any triangulation), and on K_{m,n} it must be
+// mn - 2(m+n) + 4 (the bound for triangle-free planar graphs, reached by a
+// quadrangulation; REFERENCES.md gives both formulas).
+func TestMaximalPlanarDense(t *testing.T) {
+	for _, tc := range []struct {
+		g     graphgen.Graph
+		dense bool // the dense seed applies
+		skew  int  // the skewness when known, else -1
+	}{
+		{graphgen.Complete(5), true, 1},
+		{graphgen.Complete(200), true, 200*199/2 - (3*200 - 6)},
+		{graphgen.RandomGnm(80, 2000, 1), true, -1},
+		{graphgen.RandomGnm(150, 5000, 2), true, -1},
+		{graphgen.RandomGnm(300, 6000, 3), true, -1},
+		{graphgen.CompleteBipartite(40, 40), true, 40*40 - 2*80 + 4},
+		{graphgen.CompleteBipartite(3, 30), true, 3*30 - 2*33 + 4},
+		{graphgen.RandomGnm(2000, 6000, 4), false, -1}, // sparse
+	} {
+		g := tc.g
+		start, _ := analyseBlock(g.N, g.Edges)
+		seed, _ := denseSeed(g.N, g.Edges, start)
+		if (seed != nil) != tc.dense {
+			t.Errorf("%s: dense seed used = %v, want %v", g.Name, seed != nil, tc.dense)
+		}
+		res := MaximalPlanar(g.N, g.Edges, SubgraphOptions{})
+		if err := checkSubgraph(g.N, g.Edges, res, -1); err != nil {
+			t.Errorf("%s: %v", g.Name, err)
+			continue
+		}
+		if tc.skew >= 0 && (len(res.Removed) != tc.skew || !res.Optimal) {
+			t.Errorf("%s: %d removed (optimal %v), the skewness is %d", g.Name, len(res.Removed), res.Optimal, tc.skew)
+		}
+	}
+}
+
 // TestMaximalPlanarComposite checks inputs made of several blocks or
 // components. Skewness adds over blocks, since a graph is planar iff each
 // of its blocks is (common practice), and K5 and K3,3 each need exactly one

@@ -108,7 +108,7 @@ func main() {
 					method += " (barycentric)"
 				}
 				fmt.Printf("| %s | %s | %d | %d | %d | %.2f | %.0f%% | %d x %d | %.1f° | %.1f | %s | %d | %d |\n",
-					strings.Trim(strings.TrimPrefix(g.Graph, "graph "), `"`), method, g.Nodes, g.Edges, g.Removed,
+					strings.Trim(strings.TrimPrefix(strings.TrimPrefix(g.Graph, "di"), "graph "), `"`), method, g.Nodes, g.Edges, g.Removed,
 					g.AreaRatio, 100*g.CompactionSaved, g.W, g.H, g.MinAngle, g.EdgeRatio, ve, g.Overlaps, g.Through)
 			}
 		}
