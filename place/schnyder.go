@@ -14,8 +14,8 @@ var errBadTriangulation = errors.New("place: internal error: component is not a 
 // that a graph with many small components costs O(n) in total.
 type woodWork struct {
 	// The peeling state of each vertex sits in one record: the contour
-	// moves through the graph in no particular numbering, and one cache
-	// line per vertex touched costs far less than seven.
+	// moves through the graph in no particular numbering, so a vertex
+	// touched costs one cache line instead of seven.
 	peel   []peelState
 	parent [3][]int32
 	step   int32

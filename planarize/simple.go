@@ -8,9 +8,9 @@ package planarize
 func Simplify(n int, raw [][2]int32) (simple [][2]int32, index []int32) {
 	index = make([]int32, len(raw))
 	// Bucket raw edges by their smaller end, then scan each bucket marking
-	// the larger end to detect repeats.
-	// Input already sorted by smaller end and free of loops (as Draw
-	// passes it) needs no bucketing: the buckets are runs of raw itself.
+	// the larger end to detect repeats. Input already sorted by smaller end
+	// and free of loops (as Draw passes it) needs no bucketing: the buckets
+	// are runs of raw itself.
 	count := make([]int32, n+1)
 	sorted := true
 	prevLo := int32(-1)

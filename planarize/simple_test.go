@@ -43,6 +43,8 @@ func TestSimplify(t *testing.T) {
 		{"both orientations", 3, [][2]int32{{2, 1}, {0, 1}, {1, 2}, {1, 0}, {2, 1}}, [][2]int32{{2, 1}, {0, 1}}, []int32{0, 1, 0, 1, 0}},
 		{"loop between", 2, [][2]int32{{0, 1}, {1, 1}, {1, 0}}, [][2]int32{{0, 1}}, []int32{0, -1, 0}},
 		{"already simple", 4, [][2]int32{{3, 0}, {0, 1}, {2, 1}}, [][2]int32{{3, 0}, {0, 1}, {2, 1}}, []int32{0, 1, 2}},
+		// Sorted by smaller end, as Draw passes it: no bucketing needed.
+		{"sorted with repeats", 4, [][2]int32{{0, 1}, {1, 0}, {0, 2}, {1, 2}, {2, 1}, {2, 3}}, [][2]int32{{0, 1}, {0, 2}, {1, 2}, {2, 3}}, []int32{0, 0, 1, 2, 2, 3}},
 	}
 	for _, tt := range tests {
 		simple, index := Simplify(tt.n, tt.raw)

@@ -36,7 +36,7 @@ const exactEdgeLimit = 120
 const exactGapLimit = 6
 
 // bothSeedsLimit is the largest block (in edges) on which the greedy
-// search runs from the cactus seed too when the stacked seed applies.
+// search runs from the cactus seed too when the dense seed applies.
 const bothSeedsLimit = 5000
 
 // exactTests bounds the planarity tests of one exact search at Effort 0.
@@ -51,7 +51,9 @@ const exactTests = 40000
 //
 //   - seed with a triangular cactus (Calinescu, Fernandes, Finkler and
 //     Karloff, "A better approximation algorithm for finding planar
-//     subgraphs", J. Algorithms 27, 1998) joined by a spanning forest;
+//     subgraphs", J. Algorithms 27, 1998) joined by a spanning forest, or
+//     on a dense block with a stacked triangulation or quadrangulation
+//     that meets Euler's bound on its vertices (see denseSeed);
 //   - grow it greedily in edge order, testing edges in adaptively split
 //     groups: a whole group is added when the result stays planar, and a
 //     single edge is rejected only when it makes the kept graph non-planar,
@@ -620,8 +622,8 @@ func denseSeed(n int, edges [][2]int32, start seedStart) (seed []int32, spanned 
 		}
 		markAround(x, false)
 	}
-	if k := len(faces); k < 4 {
-		return nil, nil // the first triangle or 4-cycle alone
+	if len(seed) < 6 {
+		return nil, nil // the first triangle or 4-cycle alone: no better than the cactus
 	}
 	return seed, spanned
 }
