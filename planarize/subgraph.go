@@ -1,7 +1,6 @@
 package planarize
 
 import (
-	"math"
 	"math/rand/v2"
 	"slices"
 )
@@ -134,18 +133,17 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 	if support != nil {
 		order = bySupport(support, order, denseFirst)
 	}
-	spent := &Budget{Left: math.MaxInt64 / 2}
-	best, _ := greedyPlanar(n, edges, order, support, denseFirst, start, limit, spent)
-	if support != nil && len(best) > lower && meshLike(support) {
-		// The mesh-first order too, unless it is the same order, with at
-		// most twice the work of the first: on a mesh with many stray
-		// edges it can take far longer, and is rarely better there.
-		if alt := bySupport(support, identity(len(edges)), meshFirst); !slices.Equal(alt, order) {
-			budget := &Budget{Left: 2 * (math.MaxInt64/2 - spent.Left)}
-			if cand, ok := greedyPlanar(n, edges, alt, support, meshFirst, start, limit, budget); ok && len(cand) < len(best) {
-				best = cand
-			}
+	var best []int32
+	var alt []int32 // the mesh-first order, when it is worth trying
+	if support != nil && meshLike(support) {
+		if alt = bySupport(support, identity(len(edges)), meshFirst); slices.Equal(alt, order) {
+			alt = nil
 		}
+	}
+	if alt == nil {
+		best, _ = greedyPlanar(n, edges, order, support, denseFirst, start, limit, nil)
+	} else {
+		best = bothOrders(n, edges, [2][]int32{order, alt}, support, start, limit, lower)
 	}
 	if start.dense && len(edges) <= bothSeedsLimit && len(best) > lower {
 		// Small dense blocks can afford the cactus seed as well; keep the
@@ -188,6 +186,50 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 		return best, len(best), true
 	}
 	return best, lower, false
+}
+
+// bothOrders runs the greedy search in the dense-first and the mesh-first
+// order (orders[0] and orders[1]) and returns the better result, the
+// dense-first one on a tie. Either can take far longer than the other (a
+// mesh with a dense cluster: the dense-first order, 30 times longer; a
+// mesh with thousands of stray edges: the mesh-first order, 1000 times),
+// so the two take turns, each a slice of work at a time: the first to
+// reach the lower bound wins, and once one has finished, the other may
+// spend up to twice its work. That costs at most three times the faster
+// search, and the outcome depends on counted work only, never on timing.
+func bothOrders(n int, edges [][2]int32, orders [2][]int32, support []int32, start seedStart, limit, lower int) []int32 {
+	var search [2]*greedySearch
+	var done [2]bool
+	var work [2]int64
+	slice := 4 * int64(len(edges)+1)
+	for {
+		for i, by := range []int{denseFirst, meshFirst} {
+			if done[i] {
+				continue
+			}
+			if search[i] == nil { // made when first needed: seeding costs O(m)
+				search[i] = newGreedySearch(n, edges, orders[i], support, by, start, limit)
+			}
+			g := search[i]
+			g.t.budget = &Budget{Left: slice}
+			done[i] = g.run()
+			work[i] += slice - max(0, g.t.budget.Left)
+			if done[i] && len(g.rejected) == lower {
+				return g.result() // nothing can do better
+			}
+		}
+		switch {
+		case done[0] && done[1]:
+			if len(search[1].rejected) < len(search[0].rejected) {
+				return search[1].result()
+			}
+			return search[0].result()
+		case done[0] && work[1] >= 2*work[0]:
+			return search[0].result()
+		case done[1] && work[0] >= 2*work[1]:
+			return search[1].result()
+		}
+	}
 }
 
 // edgeLimit is the most edges a planar simple graph on these vertices can
@@ -416,81 +458,120 @@ func bySupport(support, order []int32, by int) []int32 {
 // a quadrangulation instead, and every edge between two of its vertices is
 // rejected without a test.
 func greedyPlanar(n int, edges [][2]int32, order, support []int32, by int, start seedStart, limit int, budget *Budget) (rejected []int32, ok bool) {
+	g := newGreedySearch(n, edges, order, support, by, start, limit)
+	g.t.budget = budget
+	if !g.run() {
+		return nil, false
+	}
+	return g.result(), true
+}
+
+// greedySearch is the state of one greedy search, so that it can stop when
+// its budget runs out and go on later with a new one (see bothOrders).
+type greedySearch struct {
+	support  []int32
+	by       int
+	limit    int
+	kept     []int32
+	rejected []int32
+	cand     []int32
+	t        *tester
+	i, end   int // next candidate; end of the current level
+	chunk    int // size of the next group
+	sorted   bool
+}
+
+func newGreedySearch(n int, edges [][2]int32, order, support []int32, by int, start seedStart, limit int) *greedySearch {
+	g := &greedySearch{support: support, by: by, limit: limit, t: &tester{n: n, edges: edges}, chunk: 1}
 	kept, spanned := denseSeed(n, edges, start)
 	if kept == nil {
 		kept = cactusSeed(n, edges, order)
 	}
+	g.kept = kept
 	inSeed := make([]bool, len(edges))
 	for _, e := range kept {
 		inSeed[e] = true
 	}
-	cand := make([]int32, 0, len(edges)-len(kept))
+	g.cand = make([]int32, 0, len(edges)-len(kept))
 	for _, e := range order {
 		switch {
 		case inSeed[e]:
 		case spanned != nil && spanned[edges[e][0]] && spanned[edges[e][1]]:
 			// The seed holds Euler's bound on its vertices: with one edge
 			// more between them it would break it.
-			rejected = append(rejected, e)
+			g.rejected = append(g.rejected, e)
 		default:
-			cand = append(cand, e)
+			g.cand = append(g.cand, e)
 		}
 	}
-	t := &tester{n: n, edges: edges, budget: budget}
-	// Adaptive group testing: the group doubles after it was added and
-	// halves after it failed, so runs of good edges cost few tests and a
-	// bad edge is isolated in O(log group) tests.
-	levelEnd := func(i int) int {
-		if support == nil {
-			return len(cand)
-		}
-		l := supportRank(support[cand[i]], by)
-		j := i
-		for j < len(cand) && supportRank(support[cand[j]], by) == l {
-			j++
-		}
-		return j
-	}
-	end := 0
-	chunk := 1
 	if support != nil {
 		// First try every edge on some triangle at once: on a mesh with a
 		// few stray edges that is the whole mesh, accepted in one test.
-		for end < len(cand) && support[cand[end]] > 0 {
-			end++
+		for g.end < len(g.cand) && support[g.cand[g.end]] > 0 {
+			g.end++
 		}
-		chunk = end
+		g.chunk = g.end
 	}
-	for i := 0; i < len(cand); {
-		if len(kept) >= limit {
-			rejected = append(rejected, cand[i:]...)
+	return g
+}
+
+// levelEnd is the end of the level of equal rank that starts at i.
+func (g *greedySearch) levelEnd(i int) int {
+	if g.support == nil {
+		return len(g.cand)
+	}
+	l := supportRank(g.support[g.cand[i]], g.by)
+	j := i
+	for j < len(g.cand) && supportRank(g.support[g.cand[j]], g.by) == l {
+		j++
+	}
+	return j
+}
+
+// run goes on with the search until it is done (true) or its tester's
+// budget runs out (false; run may be called again with a new budget, and
+// repeats the test that did not fit). Adaptive group testing: the group
+// doubles after it was added and halves after it failed, so runs of good
+// edges cost few tests and a bad edge is isolated in O(log group) tests.
+func (g *greedySearch) run() bool {
+	for g.i < len(g.cand) {
+		if len(g.kept) >= g.limit {
+			g.rejected = append(g.rejected, g.cand[g.i:]...)
+			g.i = len(g.cand)
 			break
 		}
-		if i == end { // a new level: try it whole first
-			end = levelEnd(i)
-			chunk = end - i
+		if g.i == g.end { // a new level: try it whole first
+			g.end = g.levelEnd(g.i)
+			g.chunk = g.end - g.i
 		}
-		k := min(chunk, end-i, limit-len(kept))
-		group := cand[i : i+k]
-		p, ok := t.planar(kept, group)
+		k := min(g.chunk, g.end-g.i, g.limit-len(g.kept))
+		group := g.cand[g.i : g.i+k]
+		p, ok := g.t.planar(g.kept, group)
 		if !ok {
-			return nil, false
+			return false
 		}
-		if p {
-			kept = append(kept, group...)
-			i += k
-			chunk = 2 * k
-			continue
+		switch {
+		case p:
+			g.kept = append(g.kept, group...)
+			g.i += k
+			g.chunk = 2 * k
+		case k == 1:
+			g.rejected = append(g.rejected, group[0])
+			g.i++
+		default:
+			g.chunk = k / 2
 		}
-		if k == 1 {
-			rejected = append(rejected, group[0])
-			i++
-			continue
-		}
-		chunk = k / 2
 	}
-	slices.Sort(rejected)
-	return rejected, true
+	return true
+}
+
+// result returns the rejected edges, sorted, once run is done.
+func (g *greedySearch) result() []int32 {
+	if !g.sorted {
+		slices.Sort(g.rejected)
+		g.sorted = true
+	}
+	return g.rejected
 }
 
 // seedStart says whether a block gets the dense seed, and how to start it.
