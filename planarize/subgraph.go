@@ -141,14 +141,14 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 		}
 	}
 	if alt == nil {
-		best, _ = greedyPlanar(n, edges, order, support, denseFirst, start, limit, nil)
+		best = greedyPlanar(n, edges, order, support, start, limit)
 	} else {
 		best = bothOrders(n, edges, [2][]int32{order, alt}, support, start, limit, lower)
 	}
 	if start.dense && len(edges) <= bothSeedsLimit && len(best) > lower {
 		// Small dense blocks can afford the cactus seed as well; keep the
 		// better of the two.
-		if cand, _ := greedyPlanar(n, edges, order, support, denseFirst, seedStart{}, limit, nil); len(cand) < len(best) {
+		if cand := greedyPlanar(n, edges, order, support, seedStart{}, limit); len(cand) < len(best) {
 			best = cand
 		}
 	}
@@ -164,7 +164,7 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 		} else {
 			sup = nil
 		}
-		if cand, _ := greedyPlanar(n, edges, perm, sup, denseFirst, start, limit, nil); len(cand) < len(best) {
+		if cand := greedyPlanar(n, edges, perm, sup, start, limit); len(cand) < len(best) {
 			best = cand
 		}
 	}
@@ -446,24 +446,19 @@ func bySupport(support, order []int32, by int) []int32 {
 }
 
 // greedyPlanar grows a planar subgraph from a triangular cactus seed,
-// adding edges in the given order, and returns the rejected edges, or
-// false when its planarity tests ran out of budget (nil: no limit; the
-// budget is charged the edges of every test). When support is given, the
-// order runs through levels of equal supportRank (in order by) and each
-// level is first tried as one group: on a mesh with a
-// few stray long edges the well-supported edges then go in with a handful
-// of tests, after which the Euler bound rejects the rest untested.
+// adding edges in the given order, and returns the rejected edges. When
+// support is given, the order runs through levels of equal supportRank
+// (dense-first) and each level is first tried as one group: on a mesh with
+// a few stray long edges the well-supported edges then go in with a
+// handful of tests, after which the Euler bound rejects the rest untested.
 //
 // On a dense block (see denseSeed) the seed is a stacked triangulation or
 // a quadrangulation instead, and every edge between two of its vertices is
 // rejected without a test.
-func greedyPlanar(n int, edges [][2]int32, order, support []int32, by int, start seedStart, limit int, budget *Budget) (rejected []int32, ok bool) {
-	g := newGreedySearch(n, edges, order, support, by, start, limit)
-	g.t.budget = budget
-	if !g.run() {
-		return nil, false
-	}
-	return g.result(), true
+func greedyPlanar(n int, edges [][2]int32, order, support []int32, start seedStart, limit int) []int32 {
+	g := newGreedySearch(n, edges, order, support, denseFirst, start, limit)
+	g.run() // no budget: runs to the end
+	return g.result()
 }
 
 // greedySearch is the state of one greedy search, so that it can stop when
