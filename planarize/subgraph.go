@@ -126,9 +126,13 @@ func MaximalPlanar(n int, edges [][2]int32, opt SubgraphOptions) *Subgraph {
 // non-planar block, a lower bound, and whether the removal is proved
 // minimum.
 func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int32, lower int, optimal bool) {
-	limit := edgeLimit(n, edges)
+	// One adjacency structure for every pass over the block, and the
+	// dense seed, which no order changes, grown once.
+	g := newCSR(n, edges)
+	limit := edgeLimit(n, edges, g)
 	lower = max(1, len(edges)-limit)
-	start, support := analyseBlock(n, edges)
+	start, support := analyseBlock(n, edges, g)
+	dense := denseSeed(n, edges, g, start)
 	order := identity(len(edges))
 	if support != nil {
 		order = bySupport(support, order, denseFirst)
@@ -141,14 +145,14 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 		}
 	}
 	if alt == nil {
-		best = greedyPlanar(n, edges, order, support, start, limit)
+		best = greedyPlanar(n, edges, g, order, support, dense, limit)
 	} else {
-		best = bothOrders(n, edges, [2][]int32{order, alt}, support, start, limit, lower)
+		best = bothOrders(n, edges, g, [2][]int32{order, alt}, support, dense, limit, lower)
 	}
-	if start.dense && len(edges) <= bothSeedsLimit && len(best) > lower {
+	if dense.edges != nil && len(edges) <= bothSeedsLimit && len(best) > lower {
 		// Small dense blocks can afford the cactus seed as well; keep the
 		// better of the two.
-		if cand := greedyPlanar(n, edges, order, support, seedStart{}, limit); len(cand) < len(best) {
+		if cand := greedyPlanar(n, edges, g, order, support, seeded{}, limit); len(cand) < len(best) {
 			best = cand
 		}
 	}
@@ -164,7 +168,7 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 		} else {
 			sup = nil
 		}
-		if cand := greedyPlanar(n, edges, perm, sup, start, limit); len(cand) < len(best) {
+		if cand := greedyPlanar(n, edges, g, perm, sup, dense, limit); len(cand) < len(best) {
 			best = cand
 		}
 	}
@@ -197,7 +201,7 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 // reach the lower bound wins, and once one has finished, the other may
 // spend up to twice its work. That costs at most three times the faster
 // search, and the outcome depends on counted work only, never on timing.
-func bothOrders(n int, edges [][2]int32, orders [2][]int32, support []int32, start seedStart, limit, lower int) []int32 {
+func bothOrders(n int, edges [][2]int32, g csr, orders [2][]int32, support []int32, dense seeded, limit, lower int) []int32 {
 	var search [2]*greedySearch
 	var done [2]bool
 	var work [2]int64
@@ -208,14 +212,14 @@ func bothOrders(n int, edges [][2]int32, orders [2][]int32, support []int32, sta
 				continue
 			}
 			if search[i] == nil { // made when first needed: seeding costs O(m)
-				search[i] = newGreedySearch(n, edges, orders[i], support, by, start, limit)
+				search[i] = newGreedySearch(n, edges, g, orders[i], support, by, dense, limit)
 			}
-			g := search[i]
-			g.t.budget = &Budget{Left: slice}
-			done[i] = g.run()
-			work[i] += slice - max(0, g.t.budget.Left)
-			if done[i] && len(g.rejected) == lower {
-				return g.result() // nothing can do better
+			gs := search[i]
+			gs.t.budget = &Budget{Left: slice}
+			done[i] = gs.run()
+			work[i] += slice - max(0, gs.t.budget.Left)
+			if done[i] && len(gs.rejected) == lower {
+				return gs.result() // nothing can do better
 			}
 		}
 		switch {
@@ -236,12 +240,12 @@ func bothOrders(n int, edges [][2]int32, orders [2][]int32, support []int32, sta
 // have given its girth: 3n-6 in general, 2n-4 without triangles, and
 // g(n-2)/(g-2) for girth g (from Euler's formula, every face having at
 // least g sides). The girth is only computed for small blocks.
-func edgeLimit(n int, edges [][2]int32) int {
+func edgeLimit(n int, edges [][2]int32, adj csr) int {
 	limit := 3*n - 6
 	g := 3
 	if int64(n)*int64(len(edges)) <= 20_000_000 {
-		g = girth(n, edges)
-	} else if bipartite(n, edges) {
+		g = girth(n, edges, adj)
+	} else if bipartite(n, edges, adj) {
 		g = 4
 	}
 	if g > 3 {
@@ -252,8 +256,7 @@ func edgeLimit(n int, edges [][2]int32) int {
 
 // girth returns the length of a shortest cycle (0 if none), by a
 // breadth-first search from every vertex: O(nm).
-func girth(n int, edges [][2]int32) int {
-	g := newCSR(n, edges)
+func girth(n int, edges [][2]int32, g csr) int {
 	dist := make([]int32, n)
 	from := make([]int32, n)
 	best := int32(0)
@@ -289,8 +292,7 @@ func girth(n int, edges [][2]int32) int {
 	return int(best)
 }
 
-func bipartite(n int, edges [][2]int32) bool {
-	g := newCSR(n, edges)
+func bipartite(n int, edges [][2]int32, g csr) bool {
 	color := make([]int8, n)
 	var stack []int32
 	for s := range n {
@@ -455,10 +457,10 @@ func bySupport(support, order []int32, by int) []int32 {
 // On a dense block (see denseSeed) the seed is a stacked triangulation or
 // a quadrangulation instead, and every edge between two of its vertices is
 // rejected without a test.
-func greedyPlanar(n int, edges [][2]int32, order, support []int32, start seedStart, limit int) []int32 {
-	g := newGreedySearch(n, edges, order, support, denseFirst, start, limit)
-	g.run() // no budget: runs to the end
-	return g.result()
+func greedyPlanar(n int, edges [][2]int32, g csr, order, support []int32, dense seeded, limit int) []int32 {
+	gs := newGreedySearch(n, edges, g, order, support, denseFirst, dense, limit)
+	gs.run() // no budget: runs to the end
+	return gs.result()
 }
 
 // greedySearch is the state of one greedy search, so that it can stop when
@@ -476,11 +478,13 @@ type greedySearch struct {
 	sorted   bool
 }
 
-func newGreedySearch(n int, edges [][2]int32, order, support []int32, by int, start seedStart, limit int) *greedySearch {
+func newGreedySearch(n int, edges [][2]int32, adj csr, order, support []int32, by int, dense seeded, limit int) *greedySearch {
 	g := &greedySearch{support: support, by: by, limit: limit, t: &tester{n: n, edges: edges}, chunk: 1}
-	kept, spanned := denseSeed(n, edges, start)
+	// The dense seed is shared by every search of the block: each grows
+	// its own copy.
+	kept, spanned := slices.Clone(dense.edges), dense.spanned
 	if kept == nil {
-		kept = cactusSeed(n, edges, order)
+		kept = cactusSeed(n, edges, adj, order)
 	}
 	g.kept = kept
 	inSeed := make([]bool, len(edges))
@@ -581,7 +585,7 @@ type seedStart struct {
 // arboricity, which on a dense block is about n, so there it stops after
 // supportWork steps per edge; the block then looks for one triangle with
 // O(m) work, or proves it has none by being bipartite.
-func analyseBlock(n int, edges [][2]int32) (start seedStart, support []int32) {
+func analyseBlock(n int, edges [][2]int32, g csr) (start seedStart, support []int32) {
 	if n < 5 || len(edges) == 0 || int64(len(edges))*16 < int64(n)*int64(n) {
 		return seedStart{}, triangleSupport(n, edges, -1)
 	}
@@ -598,10 +602,10 @@ func analyseBlock(n int, edges [][2]int32) (start seedStart, support []int32) {
 		}
 		return start, support
 	}
-	if e := findTriangle(n, edges, 2*len(edges)); e >= 0 {
+	if e := findTriangle(n, edges, g, 2*len(edges)); e >= 0 {
 		return seedStart{dense: true, triangle: e}, nil
 	}
-	if bipartite(n, edges) {
+	if bipartite(n, edges, g) {
 		return seedStart{dense: true, triangle: -1}, nil
 	}
 	return seedStart{}, nil // no proof either way: the plain greedy search
@@ -613,33 +617,39 @@ const supportWork = 64
 
 // findTriangle returns the first edge, in edge order, that lies on a
 // triangle, giving up (-1) once it has spent work steps.
-func findTriangle(n int, edges [][2]int32, work int) int32 {
-	g := newCSR(n, edges)
-	mark := make([]bool, n)
+func findTriangle(n int, edges [][2]int32, g csr, work int) int32 {
+	mark := make([]int32, n)
 	for e, uv := range edges {
 		u, v := uv[0], uv[1]
-		nu, nv := g.adj[g.start[u]:g.start[u+1]], g.adj[g.start[v]:g.start[v+1]]
-		if work -= len(nu) + len(nv); work < 0 {
+		if work -= int(g.start[u+1] - g.start[u] + g.start[v+1] - g.start[v]); work < 0 {
 			return -1
 		}
-		for _, d := range nu {
-			mark[edges[d>>1][1-d&1]] = true
-		}
-		found := false
-		for _, d := range nv {
-			if w := edges[d>>1][1-d&1]; w != u && mark[w] {
-				found = true
-				break
-			}
-		}
-		for _, d := range nu {
-			mark[edges[d>>1][1-d&1]] = false
-		}
-		if found {
+		if _, _, ok := triangleOn(edges, g, int32(e), mark); ok {
 			return int32(e)
 		}
 	}
 	return -1
+}
+
+// triangleOn finds a triangle through edge e: it returns the edges from
+// e's first and second end to a common neighbour. mark must be all zero,
+// and is again on return.
+func triangleOn(edges [][2]int32, g csr, e int32, mark []int32) (e1, e2 int32, ok bool) {
+	u, v := edges[e][0], edges[e][1]
+	around := func(x int32) []int32 { return g.adj[g.start[x]:g.start[x+1]] }
+	for _, d := range around(u) {
+		mark[edges[d>>1][1-d&1]] = d>>1 + 1
+	}
+	for _, d := range around(v) {
+		if w := edges[d>>1][1-d&1]; w != u && mark[w] > 0 {
+			e1, e2, ok = mark[w]-1, d>>1, true
+			break
+		}
+	}
+	for _, d := range around(u) {
+		mark[edges[d>>1][1-d&1]] = 0
+	}
+	return e1, e2, ok
 }
 
 // denseSeed grows a seed for a dense block (at least n^2/16 edges) that
@@ -659,15 +669,15 @@ func findTriangle(n int, edges [][2]int32, work int) int32 {
 //     neighbours.
 //
 // The face scans cost O(n^2) in all, which the density keeps within O(m).
-// It returns the seed's edges and the vertices it spans, or nil when start
-// says the block is not dense or no seed of four or more vertices was
-// found.
-func denseSeed(n int, edges [][2]int32, start seedStart) (seed []int32, spanned []bool) {
+// It returns the seed's edges and the vertices it spans, or nothing when
+// start says the block is not dense or no seed of four or more vertices
+// was found.
+func denseSeed(n int, edges [][2]int32, g csr, start seedStart) seeded {
 	if !start.dense {
-		return nil, nil
+		return seeded{}
 	}
 	first := start.triangle
-	g := newCSR(n, edges)
+	var seed []int32
 	mark := make([]int32, n) // edge index to the marked vertex, + 1
 	markAround := func(x int32, on bool) {
 		for _, d := range g.adj[g.start[x]:g.start[x+1]] {
@@ -680,19 +690,15 @@ func denseSeed(n int, edges [][2]int32, start seedStart) (seed []int32, spanned 
 	}
 	around := func(x int32) []int32 { return g.adj[g.start[x]:g.start[x+1]] }
 	other := func(d int32) int32 { return edges[d>>1][1-d&1] }
-	spanned = make([]bool, n)
+	spanned := make([]bool, n)
 	var faces [][4]int32 // corners in order; the fourth is -1 in a triangle
 	if first >= 0 {
-		u, v := edges[first][0], edges[first][1]
-		markAround(u, true)
-		for _, d := range around(v) {
-			if w := other(d); w != u && mark[w] > 0 {
-				seed = append(seed, first, mark[w]-1, d>>1)
-				faces = [][4]int32{{u, v, w, -1}, {u, w, v, -1}}
-				break
-			}
+		if e1, e2, ok := triangleOn(edges, g, first, mark); ok {
+			u, v := edges[first][0], edges[first][1]
+			w := edges[e1][0] ^ edges[e1][1] ^ u
+			seed = append(seed, first, e1, e2)
+			faces = [][4]int32{{u, v, w, -1}, {u, w, v, -1}}
 		}
-		markAround(u, false)
 	} else {
 		// A 4-cycle u v w z through the first edge: z a neighbour of u
 		// and of some neighbour w of v.
@@ -716,7 +722,7 @@ func denseSeed(n int, edges [][2]int32, start seedStart) (seed []int32, spanned 
 		markAround(u, false)
 	}
 	if faces == nil {
-		return nil, nil
+		return seeded{}
 	}
 	for _, x := range faces[0] {
 		if x >= 0 {
@@ -753,17 +759,23 @@ func denseSeed(n int, edges [][2]int32, start seedStart) (seed []int32, spanned 
 		markAround(x, false)
 	}
 	if len(seed) < 6 {
-		return nil, nil // the first triangle or 4-cycle alone: no better than the cactus
+		return seeded{} // the first triangle or 4-cycle alone: no better than the cactus
 	}
-	return seed, spanned
+	return seeded{seed, spanned}
+}
+
+// seeded is a dense seed: its edges and the vertices it spans (none when
+// edges is nil).
+type seeded struct {
+	edges   []int32
+	spanned []bool
 }
 
 // cactusSeed picks, in edge order, triangles whose three corners lie in
 // three different components of the structure built so far (the greedy
 // triangular cactus), then joins the components with a spanning forest.
 // The result is planar: every block is a triangle or a single edge.
-func cactusSeed(n int, edges [][2]int32, order []int32) []int32 {
-	g := newCSR(n, edges)
+func cactusSeed(n int, edges [][2]int32, g csr, order []int32) []int32 {
 	uf := newUnionFind(n)
 	mark := make([]int32, n) // edge index to the marked vertex, + 1
 	var seed []int32

@@ -283,10 +283,11 @@ func TestMaximalPlanarDense(t *testing.T) {
 		{graphgen.RandomGnm(2000, 6000, 4), false, -1}, // sparse
 	} {
 		g := tc.g
-		start, _ := analyseBlock(g.N, g.Edges)
-		seed, _ := denseSeed(g.N, g.Edges, start)
-		if (seed != nil) != tc.dense {
-			t.Errorf("%s: dense seed used = %v, want %v", g.Name, seed != nil, tc.dense)
+		adj := newCSR(g.N, g.Edges)
+		start, _ := analyseBlock(g.N, g.Edges, adj)
+		seed := denseSeed(g.N, g.Edges, adj, start)
+		if (seed.edges != nil) != tc.dense {
+			t.Errorf("%s: dense seed used = %v, want %v", g.Name, seed.edges != nil, tc.dense)
 		}
 		res := MaximalPlanar(g.N, g.Edges, SubgraphOptions{})
 		if err := checkSubgraph(g.N, g.Edges, res, -1); err != nil {
