@@ -571,18 +571,30 @@ func (p *problems) add(format string, args ...any) {
 	}
 }
 
+// compareStart is what compareDefault and compareSplit check first: the
+// same header, and the appended layout statements well formed. It returns
+// the meanings of both graphs, the output's statements before the layout,
+// the positions and the bounding box.
+func compareStart(in, out *ast.Graph, p *problems) (mi, mo *graphMeaning, body []ast.Stmt, pos [][2]int64, w, h int64, ok bool) {
+	if in.Strict != out.Strict || in.Directed != out.Directed || in.ID != out.ID {
+		p.add("header changed: strict %v directed %v ID %q, was %v %v %q", out.Strict, out.Directed, out.ID, in.Strict, in.Directed, in.ID)
+		return nil, nil, nil, nil, 0, 0, false
+	}
+	mi, mo = interpretGraph(in), interpretGraph(out)
+	body, pos, w, h, err := appendedLayout(out, mi)
+	if err != nil {
+		p.add("graph %s: %v", in.ID, err)
+		return nil, nil, nil, nil, 0, 0, false
+	}
+	return mi, mo, body, pos, w, h, true
+}
+
 // compareDefault checks one graph of a default-mode output against its
 // input: the same graph, nodes, edges, subgraphs, attributes and statements
 // except README.md's documented changes. It returns the positions.
 func compareDefault(in, out *ast.Graph, p *problems) [][2]int64 {
-	if in.Strict != out.Strict || in.Directed != out.Directed || in.ID != out.ID {
-		p.add("header changed: strict %v directed %v ID %q, was %v %v %q", out.Strict, out.Directed, out.ID, in.Strict, in.Directed, in.ID)
-		return nil
-	}
-	mi, mo := interpretGraph(in), interpretGraph(out)
-	body, pos, w, h, err := appendedLayout(out, mi)
-	if err != nil {
-		p.add("graph %s: %v", in.ID, err)
+	mi, mo, body, pos, w, h, ok := compareStart(in, out, p)
+	if !ok {
 		return nil
 	}
 	if a, b := strings.Join(layoutStmts(in.Stmts, 0, nil), "\n"), strings.Join(layoutStmts(body, 0, nil), "\n"); a != b {
@@ -758,14 +770,8 @@ func checkRemovedSet(mi *graphMeaning, rg *ast.Graph, rs removedSet, p *problems
 // gone. Edges are compared as multisets: splitting a statement may print
 // its edges in another order.
 func compareSplit(in, out *ast.Graph, rs removedSet, mark attrMap, p *problems) [][2]int64 {
-	if in.Strict != out.Strict || in.Directed != out.Directed || in.ID != out.ID {
-		p.add("header changed: strict %v directed %v ID %q, was %v %v %q", out.Strict, out.Directed, out.ID, in.Strict, in.Directed, in.ID)
-		return nil
-	}
-	mi, mo := interpretGraph(in), interpretGraph(out)
-	_, pos, w, h, err := appendedLayout(out, mi)
-	if err != nil {
-		p.add("graph %s: %v", in.ID, err)
+	mi, mo, _, pos, w, h, ok := compareStart(in, out, p)
+	if !ok {
 		return nil
 	}
 	compareNodes(mi, mo, pos, p)
