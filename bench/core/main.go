@@ -67,12 +67,12 @@ func main() {
 			fmt.Fprintln(os.Stderr, err)
 			os.Exit(1)
 		}
-		took := time.Since(start)
+		took, space := time.Since(start), time.Since(spaceStart)
 		best = min(best, took)
 		if *stages {
 			fmt.Printf("run: %.3f s = planarize %.3f + layout %.3f + space %.3f (+ %.3f)\n", took.Seconds(),
-				res.Times.Planarize.Seconds(), res.Times.Layout.Seconds(), time.Since(spaceStart).Seconds(),
-				(took - res.Times.Planarize - res.Times.Layout - time.Since(spaceStart)).Seconds())
+				res.Times.Planarize.Seconds(), res.Times.Layout.Seconds(), space.Seconds(),
+				(took - res.Times.Planarize - res.Times.Layout - space).Seconds())
 		}
 	}
 	fmt.Printf("%s n=%d m=%d: best of %d %.3f s, %.0f ns/edge, peak memory added %.0f MB (RSS %.0f MB with the graph)\n",
