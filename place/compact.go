@@ -2,10 +2,6 @@ package place
 
 import "slices"
 
-// compactLimit is the largest component compacted: on bigger ones the
-// checks would cost more than the layout itself.
-const compactLimit = 20000
-
 // compactPairLimit bounds the vertex-edge pairs one compaction check may
 // look at, and compactPerEdge (plus compactFloor) per edge all checks of
 // one axis together, so compaction stays linear in the graph; beyond them
@@ -25,7 +21,7 @@ const (
 // orientation tests. The gaps to close are chosen greedily with adaptive
 // group tests (all at once first). It returns the new extent.
 func compact(x, y []int64, edges [][2]int32) (w, h int64) {
-	for round := 0; round < 2 && len(x) <= compactLimit; round++ {
+	for round := 0; round < 2 && len(x) <= readableLimit; round++ {
 		cx := compactAxis(x, y, edges)
 		cy := compactAxis(y, x, edges)
 		if !cx && !cy {

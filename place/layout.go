@@ -61,7 +61,7 @@ type Options struct {
 	// Method chooses how components are drawn; see Method.
 	Method Method
 	// Smooth, if positive, also computes for every component of 4 to
-	// tutteLimit vertices Tutte's barycentric drawing with its outer face
+	// readableLimit vertices Tutte's barycentric drawing with its outer face
 	// on a convex polygon, solving for at most that many conjugate-gradient
 	// steps (see tutteDrawing); Space uses it where the grid crowds.
 	Smooth int
@@ -312,7 +312,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		// Tutte's drawing inside a triangle squeezes a big triangulation's
 		// interior exponentially; it is worth computing for a larger
 		// outer face, or for small components.
-		if r := regions[c]; r != nil && len(vs) >= 4 && len(vs) <= tutteLimit && (len(r.face) > 3 || len(vs) <= tutteTriangleLimit) {
+		if r := regions[c]; r != nil && len(vs) >= 4 && len(vs) <= readableLimit && (len(r.face) > 3 || len(vs) <= tutteTriangleLimit) {
 			if d.fineX == nil {
 				d.fineX, d.fineY = make([]int64, n), make([]int64, n)
 				d.outer = make([]*outerRegion, len(members))
@@ -327,7 +327,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			w, h = max(w, d.X[v]), max(h, d.Y[v])
 		}
 		fw, fh := w, h
-		if opt.Compact && len(vs) <= compactLimit {
+		if opt.Compact && len(vs) <= readableLimit {
 			w, h = compactComponent(work, d, vs, index, origEdges[c])
 		}
 		boxes[c] = Component{Vertices: len(vs), W: w, H: h, Barycentre: true, FullW: fw, FullH: fh}
@@ -565,7 +565,7 @@ func edgesByComponent(emb *planarize.Embedding, comp []int32, members [][]int32,
 	out := make([][]int32, len(members))
 	for e := range m {
 		c := comp[emb.Edge(e)[0]]
-		if len(members[c]) <= compactLimit {
+		if len(members[c]) <= readableLimit {
 			out[c] = append(out[c], int32(e))
 		}
 	}

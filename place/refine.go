@@ -21,7 +21,7 @@ const refineRounds = 16
 // drawing stays plane after every move (see planeDrawing), while the need
 // to stretch the whole drawing to clear its boxes shrinks.
 func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, meter *workMeter) {
-	if len(vs) < 4 || len(vs) > tutteLimit {
+	if len(vs) < 4 || len(vs) > readableLimit {
 		return // big components keep their drawing: many rounds would dominate the run
 	}
 	// Boundary vertices may move too, as long as the boundary stays a
@@ -85,37 +85,30 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		}
 		return true
 	}
-	var reach int64
-	for _, v := range vs {
-		reach = max(reach, hw[v]+gap, hh[v]+gap)
-	}
-	cell := max(1, 2*reach)
+	cell := clearanceCell(vs, hw, hh, gap)
 	pushX := make(map[int32]float64)
 	pushY := make(map[int32]float64)
 	// The drawing that needs the least stretch to clear its boxes wins:
 	// pushing one vertex off an edge can push it onto another, so a round
 	// may make things worse, and the best state seen is restored at the end.
-	bestStretch, ok := neededStretch(vs, edges, x, y, hw, hh, gap, stamp, meter)
-	if !ok {
-		return
-	}
-	bestX := make([]int64, len(vs))
-	bestY := make([]int64, len(vs))
-	for i, v := range vs {
-		bestX[i], bestY[i] = x[v], y[v]
-	}
+	// Each round measures the stretch its state needs in the same pass over
+	// near pairs that computes its pushes.
+	bestStretch := math.Inf(1)
+	var bestX, bestY []int64
 	defer func() {
-		for i, v := range vs {
-			x[v], y[v] = bestX[i], bestY[i]
+		for i, v := range bestX {
+			x[vs[i]], y[vs[i]] = v, bestY[i]
 		}
 	}()
-	for round := 0; round < refineRounds && bestStretch > 1; round++ {
+	for round := 0; ; round++ {
 		clear(pushX)
 		clear(pushY)
 		grid := newBucketGrid(vs, x, y, cell)
+		c := clearance{x: x, y: y, hw: hw, hh: hh, gap: gap, s: 1}
 		// Overlapping boxes push each other apart along the axis that
 		// needs the smaller move.
 		nearVertexPairs(vs, grid, x, y, func(u, w int32) {
+			c.boxPair(u, w)
 			dx, dy := x[w]-x[u], y[w]-y[u]
 			ox := hw[u] + hw[w] + gap - abs64(dx)
 			oy := hh[u] + hh[w] + gap - abs64(dy)
@@ -135,34 +128,43 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		// An edge through a box pushes that vertex off it, along the
 		// edge's normal, by the depth of the intrusion.
 		ok := nearPairs(vs, edges, x, y, grid, stamp, meter, func(w int32, e [2]int32) {
+			icross, need, along := c.alongside(w, e)
+			if !along {
+				return
+			}
+			c.alongsidePair(icross, need)
+			// Both |cross| and need are lengths times the edge's length:
+			// compare them before taking the square root.
+			cross := float64(icross)
+			if math.Abs(cross) >= need {
+				return
+			}
 			u, v := e[0], e[1]
 			ex, ey := x[v]-x[u], y[v]-y[u]
 			length := math.Sqrt(float64(float64(ex)*float64(ex)) + float64(float64(ey)*float64(ey)))
-			if length == 0 {
-				return
-			}
-			wx, wy := x[w]-x[u], y[w]-y[u]
-			dot := wx*ex + wy*ey
-			if dot <= 0 || dot >= ex*ex+ey*ey {
-				return
-			}
-			cross := float64(ex*wy - ey*wx) // signed, |cross| = dist * length
-			dist := math.Abs(cross) / length
-			reachN := (float64(float64(hw[w]+edgeGap)*math.Abs(float64(ey))) + float64(float64(hh[w]+edgeGap)*math.Abs(float64(ex)))) / length
-			if dist >= reachN {
-				return
-			}
 			// Unit normal towards w's side.
 			nx, ny := -float64(ey)/length, float64(ex)/length
 			if cross < 0 {
 				nx, ny = -nx, -ny
 			}
-			depth := reachN - dist + 1
+			depth := (need-math.Abs(cross))/length + 1
 			pushX[w] += float64(nx * depth)
 			pushY[w] += float64(ny * depth)
 		})
 		if !ok {
 			return // out of work: the best state so far is restored
+		}
+		if c.s < bestStretch {
+			bestStretch = c.s
+			if bestX == nil {
+				bestX, bestY = make([]int64, len(vs)), make([]int64, len(vs))
+			}
+			for i, v := range vs {
+				bestX[i], bestY[i] = x[v], y[v]
+			}
+		}
+		if round == refineRounds || bestStretch <= 1 {
+			return
 		}
 		moved := false
 		for _, v := range vs {
@@ -180,12 +182,6 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		}
 		if !moved {
 			return
-		}
-		if s, ok := neededStretch(vs, edges, x, y, hw, hh, gap, stamp, meter); ok && s < bestStretch {
-			bestStretch = s
-			for i, v := range vs {
-				bestX[i], bestY[i] = x[v], y[v]
-			}
 		}
 	}
 }

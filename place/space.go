@@ -37,7 +37,7 @@ type Placed struct {
 	// rather than the grid.
 	Smoothed int
 	// Unchecked counts components too big for the box-clearance check
-	// (more than 20000 vertices, or past its work bound), spaced by Unit
+	// (more than readableLimit vertices, or past its work bound), spaced by Unit
 	// alone: their node boxes never overlap, but an edge may pass through
 	// a box.
 	Unchecked int
@@ -88,7 +88,8 @@ var errBoxes = errors.New("place: box sizes do not match the vertices")
 //     than twice the area;
 //   - stretching never exceeds 8 times; integer stretching keeps every
 //     orientation, so no crossing can appear;
-//   - components of more than 20000 vertices keep the base unit, unchecked.
+//   - components of more than readableLimit (5000) vertices keep the base
+//     unit, unchecked.
 //
 // Components are then packed in rows, one base unit apart.
 func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
@@ -201,7 +202,7 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 		f1 := d.aug.FaceNext(f0)
 		gridRegion = &outerRegion{face: []int32{f0, f1, d.aug.FaceNext(f1)}}
 	}
-	if len(vs) > tutteLimit {
+	if len(vs) > readableLimit {
 		// Too big to read as a picture anyway: base unit only, which keeps
 		// boxes apart; the clearance of edges is not checked.
 		out.Unchecked++
@@ -317,53 +318,88 @@ func stretchComponent(aug *planarize.Embedding, vs []int32, region *outerRegion,
 // strictly inside the edge). checked is false when the work bound stopped
 // the search (s is then 1).
 func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, meter *workMeter) (s float64, checked bool) {
-	s = 1
 	if len(vs) < 2 {
-		return s, true
+		return 1, true
 	}
-	var reach int64 // the largest grown half size
+	c := clearance{x: x, y: y, hw: hw, hh: hh, gap: gap, s: 1}
+	grid := newBucketGrid(vs, x, y, clearanceCell(vs, hw, hh, gap))
+	// Box pairs: only vertices in neighbouring cells can be that close.
+	nearVertexPairs(vs, grid, x, y, c.boxPair)
+	// Vertex-edge pairs alongside each other.
+	if !nearPairs(vs, edges, x, y, grid, stamp, meter, c.edgePair) {
+		return 1, false
+	}
+	return c.s, true
+}
+
+// clearanceCell is the cell of the bucket grid the clearance passes use:
+// twice the largest grown half size of a box, so that everything that can
+// touch a box lies within one cell of it.
+func clearanceCell(vs []int32, hw, hh []int64, gap int64) int64 {
+	var reach int64
 	for _, v := range vs {
 		reach = max(reach, hw[v]+gap, hh[v]+gap)
 	}
-	cell := max(1, 2*reach)
-	grid := newBucketGrid(vs, x, y, cell)
-	// Box pairs: only vertices in neighbouring cells can be that close.
-	nearVertexPairs(vs, grid, x, y, func(u, w int32) {
-		dx, dy := abs64(x[u]-x[w]), abs64(y[u]-y[w])
-		needX, needY := hw[u]+hw[w]+gap, hh[u]+hh[w]+gap
-		if dx >= needX || dy >= needY {
-			return
-		}
-		// Separating along either axis is enough.
-		f := math.Inf(1)
-		if dx > 0 {
-			f = float64(needX) / float64(dx)
-		}
-		if dy > 0 {
-			f = min(f, float64(needY)/float64(dy))
-		}
-		s = max(s, f)
-	})
-	// Vertex-edge pairs alongside each other.
-	ok := nearPairs(vs, edges, x, y, grid, stamp, meter, func(w int32, e [2]int32) {
-		u, v := e[0], e[1]
-		ex, ey := x[v]-x[u], y[v]-y[u]
-		wx, wy := x[w]-x[u], y[w]-y[u]
-		dot := wx*ex + wy*ey
-		if dot <= 0 || dot >= ex*ex+ey*ey {
-			return // not alongside the edge
-		}
-		cross := abs64(ex*wy - ey*wx)
-		if cross == 0 {
-			return // on the edge: a broken drawing, not a spacing matter
-		}
-		need := float64(float64(hw[w]+edgeGap)*float64(abs64(ey))) + float64(float64(hh[w]+edgeGap)*float64(abs64(ex)))
-		s = max(s, need/float64(cross))
-	})
-	if !ok {
-		return 1, false
+	return max(1, 2*reach)
+}
+
+// clearance accumulates in s the least stretch that clears the pairs it
+// is shown (see neededStretch).
+type clearance struct {
+	x, y, hw, hh []int64
+	gap          int64
+	s            float64
+}
+
+// boxPair takes in two boxes: separating them along either axis is enough.
+func (c *clearance) boxPair(u, w int32) {
+	x, y, hw, hh := c.x, c.y, c.hw, c.hh
+	dx, dy := abs64(x[u]-x[w]), abs64(y[u]-y[w])
+	needX, needY := hw[u]+hw[w]+c.gap, hh[u]+hh[w]+c.gap
+	if dx >= needX || dy >= needY {
+		return
 	}
-	return s, true
+	f := math.Inf(1)
+	if dx > 0 {
+		f = float64(needX) / float64(dx)
+	}
+	if dy > 0 {
+		f = min(f, float64(needY)/float64(dy))
+	}
+	c.s = max(c.s, f)
+}
+
+// edgePair takes in vertex w and edge e.
+func (c *clearance) edgePair(w int32, e [2]int32) {
+	if cross, need, ok := c.alongside(w, e); ok {
+		c.alongsidePair(cross, need)
+	}
+}
+
+// alongsidePair takes in a vertex alongside an edge, given by alongside's
+// figures.
+func (c *clearance) alongsidePair(cross int64, need float64) {
+	if cross == 0 {
+		return // on the edge: a broken drawing, not a spacing matter
+	}
+	c.s = max(c.s, need/math.Abs(float64(cross)))
+}
+
+// alongside reports whether w lies alongside edge e (its projection falls
+// strictly inside e) and if so the signed cross product of e and w (its
+// size is w's distance from e times e's length) and need, the reach of w's
+// box, grown by edgeGap, along e's normal times e's length.
+func (c *clearance) alongside(w int32, e [2]int32) (cross int64, need float64, ok bool) {
+	x, y := c.x, c.y
+	u, v := e[0], e[1]
+	ex, ey := x[v]-x[u], y[v]-y[u]
+	wx, wy := x[w]-x[u], y[w]-y[u]
+	dot := wx*ex + wy*ey
+	if dot <= 0 || dot >= ex*ex+ey*ey {
+		return 0, 0, false
+	}
+	need = float64(float64(c.hw[w]+edgeGap)*float64(abs64(ey))) + float64(float64(c.hh[w]+edgeGap)*float64(abs64(ex)))
+	return ex*wy - ey*wx, need, true
 }
 
 // clearedArea is the area of the component's bounding box, node boxes

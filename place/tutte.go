@@ -7,11 +7,15 @@ import "github.com/gridwood/gridwood/planarize"
 // tests on its coordinates stay exact in int64.
 const fineSpan = 1 << 30
 
-// tutteLimit is the largest component given a barycentric drawing; bigger
-// ones keep their grid drawing. tutteTriangleLimit is the largest given one
-// when its outer face is a triangle.
+// readableLimit is the largest component given the passes that are there
+// only for the picture: Tutte's drawing, compaction, refinement and the
+// clearance check. A component this big is hardly read as a picture, and
+// above it every component goes through the same linear passes, so the
+// cost per edge stays flat from 10^4 vertices up (DEVELOPERS.md, The
+// usual traps). tutteTriangleLimit is the largest component given Tutte's
+// drawing when its outer face is a triangle.
 const (
-	tutteLimit         = 20000
+	readableLimit      = 5000
 	tutteTriangleLimit = 100
 )
 
