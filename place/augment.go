@@ -1,6 +1,9 @@
 package place
 
-import "github.com/gridwood/gridwood/planarize"
+import (
+	"github.com/gridwood/gridwood/internal/disjoint"
+	"github.com/gridwood/gridwood/planarize"
+)
 
 // augmentation records what triangulate added, so the dummy edges can be
 // told apart and the outer face chosen among the faces of the input.
@@ -19,7 +22,7 @@ type augmentation struct {
 func biconnect(emb *planarize.Embedding, skip func(int32) bool) {
 	n := emb.N()
 	block := blocks(emb, skip)
-	uf := newUnionFind(len(block))
+	uf := disjoint.New(len(block))
 	for v := int32(0); int(v) < n; v++ {
 		h := emb.First(v)
 		if h < 0 || emb.Degree(v) < 2 || skip(v) {
@@ -27,10 +30,10 @@ func biconnect(emb *planarize.Embedding, skip func(int32) bool) {
 		}
 		for range emb.Degree(v) {
 			h2 := emb.Next(h)
-			b1, b2 := uf.find(block[h>>1]), uf.find(block[h2>>1])
+			b1, b2 := uf.Find(block[h>>1]), uf.Find(block[h2>>1])
 			if b1 != b2 {
 				emb.AddEdge(emb.FaceNext(h), h2^1, -1, -1)
-				block = append(block, uf.union(b1, b2))
+				block = append(block, uf.Union(b1, b2))
 			}
 			h = h2
 		}
@@ -109,35 +112,6 @@ func blocks(emb *planarize.Embedding, skip func(int32) bool) []int32 {
 		}
 	}
 	return block
-}
-
-type unionFind struct{ parent []int32 }
-
-func newUnionFind(n int) *unionFind {
-	p := make([]int32, n)
-	for i := range p {
-		p[i] = int32(i)
-	}
-	return &unionFind{p}
-}
-
-func (u *unionFind) find(x int32) int32 {
-	r := x
-	for u.parent[r] != r {
-		r = u.parent[r]
-	}
-	for u.parent[x] != r {
-		u.parent[x], x = r, u.parent[x]
-	}
-	return r
-}
-
-func (u *unionFind) union(a, b int32) int32 {
-	a, b = u.find(a), u.find(b)
-	if a != b {
-		u.parent[b] = a
-	}
-	return a
 }
 
 // triangulateFaces adds edges inside every face of length four or more of a

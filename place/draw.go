@@ -7,6 +7,7 @@ import (
 	"slices"
 	"time"
 
+	"github.com/gridwood/gridwood/internal/disjoint"
 	"github.com/gridwood/gridwood/internal/order"
 	"github.com/gridwood/gridwood/planarize"
 )
@@ -255,16 +256,16 @@ func checkInput(n int, edges [][2]int32) error {
 // and lists each component's kept pairs, for Explain; Draw does it when it
 // sets pairs aside (a linear pass, small next to finding them).
 func (r *Result) groupKept(n int, gone []bool) {
-	uf := newUnionFind(n)
+	uf := disjoint.New(n)
 	for e, p := range r.simple {
 		if !gone[e] {
-			uf.union(p[0], p[1])
+			uf.Union(p[0], p[1])
 		}
 	}
 	r.keptComp = make([]int32, n)
 	ids := make(map[int32]int32)
 	for v := range n {
-		root := uf.find(int32(v))
+		root := uf.Find(int32(v))
 		id, ok := ids[root]
 		if !ok {
 			id = int32(len(r.keptIn))

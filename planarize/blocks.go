@@ -103,30 +103,3 @@ func Blocks(n int, edges [][2]int32) (block []int32, count int) {
 	}
 	return block, int(nb)
 }
-
-type unionFind struct{ parent []int32 }
-
-func newUnionFind(n int) *unionFind {
-	p := make([]int32, n)
-	for i := range p {
-		p[i] = int32(i)
-	}
-	return &unionFind{p}
-}
-
-func (u *unionFind) find(x int32) int32 {
-	r := x
-	for u.parent[r] != r {
-		r = u.parent[r]
-	}
-	for u.parent[x] != r {
-		u.parent[x], x = r, u.parent[x]
-	}
-	return r
-}
-
-func (u *unionFind) union(a, b int32) {
-	if a, b = u.find(a), u.find(b); a != b {
-		u.parent[b] = a
-	}
-}

@@ -3,6 +3,8 @@ package planarize
 import (
 	"math/rand/v2"
 	"slices"
+
+	"github.com/gridwood/gridwood/internal/disjoint"
 )
 
 // SubgraphOptions tune MaximalPlanar. The zero value is the default.
@@ -776,12 +778,12 @@ type seeded struct {
 // triangular cactus), then joins the components with a spanning forest.
 // The result is planar: every block is a triangle or a single edge.
 func cactusSeed(n int, edges [][2]int32, g csr, order []int32) []int32 {
-	uf := newUnionFind(n)
+	uf := disjoint.New(n)
 	mark := make([]int32, n) // edge index to the marked vertex, + 1
 	var seed []int32
 	for _, e := range order {
 		u, v := edges[e][0], edges[e][1]
-		if uf.find(u) == uf.find(v) {
+		if uf.Find(u) == uf.Find(v) {
 			continue
 		}
 		if g.start[u+1]-g.start[u] > g.start[v+1]-g.start[v] {
@@ -795,11 +797,11 @@ func cactusSeed(n int, edges [][2]int32, g csr, order []int32) []int32 {
 			if w == u || mark[w] == 0 {
 				continue
 			}
-			ru, rv, rw := uf.find(u), uf.find(v), uf.find(w)
+			ru, rv, rw := uf.Find(u), uf.Find(v), uf.Find(w)
 			if ru != rv && rv != rw && ru != rw {
 				seed = append(seed, e, mark[w]-1, d>>1)
-				uf.union(ru, rv)
-				uf.union(ru, rw)
+				uf.Union(ru, rv)
+				uf.Union(ru, rw)
 				break
 			}
 		}
@@ -809,9 +811,9 @@ func cactusSeed(n int, edges [][2]int32, g csr, order []int32) []int32 {
 	}
 	for _, e := range order {
 		u, v := edges[e][0], edges[e][1]
-		if ru, rv := uf.find(u), uf.find(v); ru != rv {
+		if ru, rv := uf.Find(u), uf.Find(v); ru != rv {
 			seed = append(seed, e)
-			uf.union(ru, rv)
+			uf.Union(ru, rv)
 		}
 	}
 	return seed

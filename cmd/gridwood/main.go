@@ -1,5 +1,3 @@
-// Command gridwood gives planar straight-line drawings to graphs written in
-// DOT. See the package documentation (doc.go) and README.md.
 package main
 
 import (

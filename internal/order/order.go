@@ -1,4 +1,3 @@
-// Package order renumbers graphs for memory locality.
 package order
 
 import "github.com/gridwood/gridwood/internal/halves"

@@ -1,0 +1,2 @@
+// Package order renumbers graphs for memory locality.
+package order
