@@ -1,6 +1,7 @@
 package place
 
 import (
+	"slices"
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/geomcheck"
@@ -105,7 +106,21 @@ func TestDrawConvexMethod(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if res.NotConvex != 1 || res.Components[0].Convex {
+	if res.NotConvex != 1 || res.Components[0].Convex || !res.Components[0].FellBack {
 		t.Errorf("cycle with chord: NotConvex %d, Convex %v; want the fallback", res.NotConvex, res.Components[0].Convex)
+	}
+	// Three components: a cube (3-connected, convex), a square on 8..11
+	// and a cycle with a chord on 12..16 (not 3-connected): the two
+	// fallbacks are named by their least vertices, 8 and 12.
+	cube := graphgen.Cube()
+	edges = append([][2]int32(nil), cube.Edges...)
+	edges = append(edges, [2]int32{9, 10}, [2]int32{10, 11}, [2]int32{11, 8}, [2]int32{8, 9})
+	edges = append(edges, [2]int32{13, 14}, [2]int32{14, 15}, [2]int32{15, 16}, [2]int32{16, 12}, [2]int32{12, 13}, [2]int32{12, 14})
+	res, err = Draw(17, edges, DrawOptions{Layout: Options{Method: Convex}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := res.FellBackVertices(); !slices.Equal(got, []int{8, 12}) || res.NotConvex != 2 {
+		t.Errorf("FellBackVertices %v (NotConvex %d), want [8 12]", got, res.NotConvex)
 	}
 }

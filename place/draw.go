@@ -155,6 +155,32 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	return res, nil
 }
 
+// FellBackVertices lists, for each component that Method Convex could
+// not draw convex (Component.FellBack), its least vertex, in increasing
+// order, so that a caller can name the component.
+func (r *Result) FellBackVertices() []int {
+	if r.NotConvex == 0 {
+		return nil
+	}
+	callerID := make([]int, len(r.newID))
+	for v, w := range r.newID {
+		callerID[w] = v
+	}
+	var out []int
+	for c, vs := range r.local.members {
+		if !r.Components[c].FellBack {
+			continue
+		}
+		least := callerID[vs[0]]
+		for _, w := range vs {
+			least = min(least, callerID[w])
+		}
+		out = append(out, least)
+	}
+	slices.Sort(out)
+	return out
+}
+
 // pairsInInputOrder numbers the distinct pairs of edges in order of first
 // occurrence: simple lists them with the caller's vertex numbers,
 // index[i] is the pair of raw edge i (-1 for a loop) and edgeOf[p] the

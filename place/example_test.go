@@ -52,7 +52,9 @@ func ExampleDrawGraph() {
 }
 
 // The command's pipeline in a few lines: read DOT, draw each graph, write
-// DOT with positions (one grid step = 72 points here, no margin).
+// DOT with positions (one grid step = 72 points here, no margin; the
+// command instead spaces the drawing by its node boxes, as in the example
+// of Result.Space).
 func Example_dot() {
 	src := []byte(`graph office { desk -- printer -- router -- desk; router -- modem }`)
 	f, err := dotio.Read(src, dotio.ReadOptions{Name: "office.dot"})
@@ -89,4 +91,36 @@ func Example_dot() {
 	// 	modem [pos="72,0"]
 	// 	graph [bb="0,0,144,144"]
 	// }
+}
+
+// Space turns the grid drawing into points that respect node boxes: here
+// every box is 54 x 36 points (half sizes 27 and 18) with 18 points between
+// boxes, and the base unit follows from them (see README, Spacing).
+func ExampleResult_Space() {
+	// A wheel: a hub (0) and a rim of five.
+	edges := [][2]int32{{1, 2}, {2, 3}, {3, 4}, {4, 5}, {5, 1}, {0, 1}, {0, 2}, {0, 3}, {0, 4}, {0, 5}}
+	res, err := place.Draw(6, edges, place.DrawOptions{Layout: place.Options{Compact: true, Smooth: 400}})
+	if err != nil {
+		panic(err)
+	}
+	b := place.Boxes{HalfW: make([]int64, 6), HalfH: make([]int64, 6), Gap: 18}
+	for v := range 6 {
+		b.HalfW[v], b.HalfH[v] = 27, 18
+	}
+	sp, err := res.Space(b, place.SpaceOptions{})
+	if err != nil {
+		panic(err)
+	}
+	fmt.Println("base unit:", sp.Unit, "size:", sp.Width, "x", sp.Height)
+	for v := range 6 {
+		fmt.Printf("vertex %d at (%d,%d)\n", v, sp.X[v], sp.Y[v])
+	}
+	// Output:
+	// base unit: 72 size: 173 x 154
+	// vertex 0 at (74,77)
+	// vertex 1 at (101,136)
+	// vertex 2 at (146,77)
+	// vertex 3 at (101,18)
+	// vertex 4 at (27,23)
+	// vertex 5 at (27,131)
 }

@@ -48,6 +48,9 @@ type Component struct {
 	FullW, FullH int64
 	// Convex reports a convex drawing (Method Convex).
 	Convex bool
+	// FellBack reports a component Method Convex could not draw convex
+	// (not 3-connected), drawn with the Schnyder method instead.
+	FellBack bool
 }
 
 // Options tune Layout. The zero value is the default.
@@ -151,6 +154,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	var convexXY [][2][]int64
 	var convexWH [][2]int64
 	notConvex := 0
+	fellBack := make([]bool, len(members))
 	if opt.Method == Convex {
 		convexXY = make([][2][]int64, len(members))
 		convexWH = make([][2]int64, len(members))
@@ -169,6 +173,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			x, y, w, h, err := convexDrawing(sub, outer)
 			if err != nil {
 				notConvex++
+				fellBack[c] = true
 				continue
 			}
 			convexXY[c], convexWH[c] = [2][]int64{x, y}, [2]int64{w, h}
@@ -330,7 +335,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		if opt.Compact && len(vs) <= readableLimit {
 			w, h = compactComponent(work, d, vs, index, origEdges[c])
 		}
-		boxes[c] = Component{Vertices: len(vs), W: w, H: h, Barycentre: true, FullW: fw, FullH: fh}
+		boxes[c] = Component{Vertices: len(vs), W: w, H: h, Barycentre: true, FullW: fw, FullH: fh, FellBack: fellBack[c]}
 	}
 	pack(boxes)
 	for c, vs := range members {

@@ -62,3 +62,55 @@ func TestReadableLimit(t *testing.T) {
 		}
 	}
 }
+
+// TestSpacingRule checks the spacing rule (README, Spacing) on drawings
+// that need stretching and refinement, with geomcheck: no two node boxes
+// overlap, and no kept edge passes through the box of a node it does not
+// end at, unless Space counted the component Unchecked or Crowded; every
+// drawing is crossing-free. Boxes vary in width so that the rule is not
+// only exercised on equal boxes.
+func TestSpacingRule(t *testing.T) {
+	for _, g := range []graphgen.Graph{
+		graphgen.RandomMaximalPlanar(300, 1),
+		graphgen.TriangulatedGrid(30, 30),
+		graphgen.Grid(50, 50),
+		graphgen.RandomPlanar(300, 0.6, 2),
+		graphgen.NestedTriangles(100),
+		graphgen.Star(300),
+		graphgen.RandomTree(300, 3),
+		graphgen.PlanarPlusExtra(500, 30, 4),
+		graphgen.DisjointUnion(graphgen.Wheel(40), graphgen.Cube(), graphgen.Path(30)),
+	} {
+		for _, grid := range []bool{false, true} {
+			res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
+			if err != nil {
+				t.Fatal(err)
+			}
+			b := Boxes{HalfW: make([]int64, g.N), HalfH: make([]int64, g.N), Gap: 18}
+			for v := range b.HalfW {
+				b.HalfW[v], b.HalfH[v] = 20+int64(v%5)*9, 18
+			}
+			sp, err := res.Space(b, SpaceOptions{GridOnly: grid})
+			if err != nil {
+				t.Fatal(err)
+			}
+			kept := res.Kept()
+			pts := make([]geomcheck.Point, g.N)
+			for v := range pts {
+				pts[v] = geomcheck.Point{X: sp.X[v], Y: sp.Y[v]}
+			}
+			if p, err := geomcheck.First(pts, kept, 1); err != nil || len(p) > 0 {
+				t.Fatalf("%s grid=%v: drawing problems %v %v", g.Name, grid, p, err)
+			}
+			o, err := geomcheck.BoxOverlaps(pts, b.HalfW, b.HalfH)
+			if err != nil || len(o) > 0 {
+				t.Errorf("%s grid=%v: %d box overlaps (%v)", g.Name, grid, len(o), err)
+			}
+			through, err := geomcheck.EdgeThroughBox(pts, b.HalfW, b.HalfH, kept)
+			if err != nil || (len(through) > 0 && sp.Unchecked+sp.Crowded == 0) {
+				t.Errorf("%s grid=%v: %d edges through boxes, none counted unchecked or crowded (%v)", g.Name, grid, len(through), err)
+			}
+			t.Logf("%s grid=%v: %d x %d points, unchecked %d, crowded %d", g.Name, grid, sp.Width, sp.Height, sp.Unchecked, sp.Crowded)
+		}
+	}
+}

@@ -41,15 +41,21 @@ type Placed struct {
 	// alone: their node boxes never overlap, but an edge may pass through
 	// a box.
 	Unchecked int
+	// Crowded counts checked components that would need a stretch beyond
+	// maxExtent to clear every box: stretched to that extent, some edge
+	// may still pass through a box.
+	Crowded int
 	// Convex counts the components drawn with every face convex.
 	Convex int
 }
 
 // Limits of the spacing rule, as multiples of the base unit.
 const (
-	// maxStretch caps any stretching: beyond it the drawing stays crowded
-	// and the report says so (its smallest vertex-edge distance).
-	maxStretch = 8
+	// maxExtent caps a component's extent in points, and so its stretch:
+	// with coordinate differences below 2^30 the orientation tests on them
+	// are exact in int64. A drawing that would need more stays crowded
+	// and is counted (Placed.Crowded).
+	maxExtent = 1 << 29
 	// barycentricAreaAllowance: the barycentric drawing is preferred to
 	// the grid one unless it needs more than this times the area; its
 	// even spread reads better (see README, Spacing).
@@ -66,7 +72,7 @@ const (
 	// linear in the size of the graph, and crowded drawings whose long
 	// edges would need more are checked or refined less.
 	spacePerEdge = 512
-	spaceFloor   = 100_000
+	spaceFloor   = 2_000_000
 	spaceWork    = 20_000_000
 )
 
@@ -210,45 +216,57 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 	}
 	bary := !gridOnly && d.fineX != nil && d.outer[c] != nil && r.barycentricPoints(c, vs, edges, unit, tx, ty, seen)
 	// Past a few thousand vertices a grid drawing's long edges make its
-	// clearance check and refinement costly and it hardly ever wins: take
-	// the barycentric drawing without comparing, or the grid unchecked.
+	// refinement costly and it hardly ever wins: take the barycentric
+	// drawing without comparing when there is one.
 	compare := len(vs) <= gridCompareLimit
-	if !compare && !bary {
-		out.Unchecked++
-		return
-	}
-	stretch, region := math.Inf(1), gridRegion
-	if compare {
-		meter := newWorkMeter(len(edges))
-		if gridRegion != nil && !gridOnly {
-			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp, meter)
+	gridStretch, gridChecked := 1.0, false
+	if compare || !bary {
+		if compare && gridRegion != nil && !gridOnly {
+			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 		}
-		var checked bool
-		stretch, checked = neededStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)))
-		if !checked {
-			out.Unchecked++
-		}
+		gridStretch, gridChecked = neededStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 	}
+	stretch, checked, region := gridStretch, gridChecked, gridRegion
 	if bary {
-		meter := newWorkMeter(len(edges))
-		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp, meter)
-		s2, checked := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
-		gridStretch := stretch
-		if !compare || math.IsInf(gridStretch, 1) {
-			gridStretch = maxStretch // unknown: assume the grid is crowded
+		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+		s2, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+		take := ok && !compare
+		if ok && compare {
+			g := min(gridStretch, stretchLimit(vs, px, py, hw, hh))
+			if !gridChecked {
+				g = stretchLimit(vs, px, py, hw, hh) // unknown: assume the grid as crowded as it may be
+			}
+			take = clearedArea(vs, tx, ty, min(s2, stretchLimit(vs, tx, ty, hw, hh)), hw, hh) <= barycentricAreaAllowance*clearedArea(vs, px, py, g, hw, hh)
 		}
-		if checked && (!compare || clearedArea(vs, tx, ty, s2, hw, hh) <= barycentricAreaAllowance*clearedArea(vs, px, py, gridStretch, hw, hh)) {
+		if take {
 			for _, v := range vs {
 				px[v], py[v] = tx[v], ty[v]
 			}
-			stretch, region = s2, d.outer[c]
+			stretch, checked, region = s2, true, d.outer[c]
 			out.Smoothed++
 		}
 	}
-	if math.IsInf(stretch, 1) {
-		stretch = 1
+	if !checked {
+		out.Unchecked++
+		return
 	}
-	stretchComponent(d.aug, vs, region, px, py, min(stretch, maxStretch), tx, ty, seen)
+	if limit := stretchLimit(vs, px, py, hw, hh); stretch > limit {
+		stretch = limit
+		out.Crowded++
+	}
+	stretchComponent(d.aug, vs, region, px, py, stretch, tx, ty, seen)
+}
+
+// stretchLimit is the largest stretch that keeps the component's extent,
+// boxes included, within maxExtent points.
+func stretchLimit(vs []int32, x, y, hw, hh []int64) float64 {
+	minX, minY := int64(math.MaxInt64), int64(math.MaxInt64)
+	maxX, maxY := int64(math.MinInt64), int64(math.MinInt64)
+	for _, v := range vs {
+		minX, maxX = min(minX, x[v]-hw[v]), max(maxX, x[v]+hw[v])
+		minY, maxY = min(minY, y[v]-hh[v]), max(maxY, y[v]+hh[v])
+	}
+	return max(1, float64(maxExtent)/float64(max(1, maxX-minX, maxY-minY)))
 }
 
 // barycentricPoints writes component c's barycentric drawing in points

@@ -66,7 +66,7 @@ func main() {
 		}
 		inputs = append(inputs, p)
 	}
-	fmt.Println("| graph | method | nodes | edges | set aside | grid area / (n-2)^2 | saved by compaction | size (pt) | smallest angle | longest / shortest edge | closest node to an edge (grid units) | box overlaps | edges through boxes |")
+	fmt.Println("| graph | method | nodes | edges | set aside | grid area / (n-2)^2 | saved by compaction | size (pt) | smallest angle | longest / shortest edge | closest node to an edge (base units) | box overlaps | edges through boxes |")
 	fmt.Println("| --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- |")
 	for _, in := range inputs {
 		for _, m := range []struct {

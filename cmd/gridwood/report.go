@@ -31,6 +31,8 @@ type graphReport struct {
 	Components            int      `json:"components"`
 	BarycentricComponents int      `json:"barycentric_components"`
 	ConvexComponents      int      `json:"convex_components"`
+	UncheckedComponents   int      `json:"unchecked_components"`
+	CrowdedComponents     int      `json:"crowded_components"`
 	GridWidth             int64    `json:"grid_width"`
 	GridHeight            int64    `json:"grid_height"`
 	AreaRatio             float64  `json:"area_ratio"`
@@ -56,8 +58,8 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 		Graph: graphName(g, gi), Directed: g.Directed, Nodes: len(g.Nodes), Edges: len(g.Edges),
 		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
 		Method: method, Components: len(res.Components), BarycentricComponents: sp.Smoothed,
-		ConvexComponents: convexCount(res),
-		GridWidth:        res.Width, GridHeight: res.Height, Unit: sp.Unit,
+		ConvexComponents: convexCount(res), UncheckedComponents: sp.Unchecked, CrowdedComponents: sp.Crowded,
+		GridWidth: res.Width, GridHeight: res.Height, Unit: sp.Unit,
 		WidthPoints: sp.Width, HeightPoints: sp.Height,
 	}
 	if n := int64(len(g.Nodes)); n >= 3 {
@@ -86,7 +88,12 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 		r.BoxOverlaps = len(o)
 	}
 	if t, err := geomcheck.EdgeThroughBox(pts, boxes.HalfW, boxes.HalfH, kept); err == nil {
-		r.EdgesThroughBoxes = len(t)
+		// t lists (node, edge) pairs; count the edges.
+		edges := map[int]bool{}
+		for _, p := range t {
+			edges[p[1]] = true
+		}
+		r.EdgesThroughBoxes = len(edges)
 	}
 	r.Seconds.Planarize = res.Times.Planarize.Seconds()
 	r.Seconds.Layout = res.Times.Layout.Seconds()

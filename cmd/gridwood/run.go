@@ -60,8 +60,9 @@ type config struct {
 	inputs       []string
 }
 
-// usageError is a command-line problem: it prints with a hint to --help.
-type usageError struct{ msg string }
+// usageError is a command-line problem: it prints with a short usage (the
+// flags by name) and a hint to --help.
+type usageError struct{ msg, usage string }
 
 func (e *usageError) Error() string { return e.msg }
 
@@ -82,7 +83,12 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		if err == errVersionShown {
 			return exitOK
 		}
-		fmt.Fprintf(stderr, "gridwood: %v\nRun 'gridwood --help' for usage.\n", err)
+		var ue *usageError
+		if errors.As(err, &ue) && ue.usage != "" {
+			fmt.Fprintf(stderr, "gridwood: %s\n%sRun 'gridwood --help' for what each flag does.\n", ue.msg, ue.usage)
+		} else {
+			fmt.Fprintf(stderr, "gridwood: %v\nRun 'gridwood --help' for usage.\n", err)
+		}
 		return exitBadInput
 	}
 	if err := process(cfg, stdin, stdout, stderr); err != nil {
@@ -108,25 +114,26 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 	fs.SortFlags = false
 	fs.StringVarP(&cfg.output, "output", "o", "", "write the laid-out DOT to `FILE` instead of standard output\n(written to a temporary file first, then renamed: a failed run leaves FILE as it was)\nexample: -o site.laid.dot")
 	fs.IntVarP(&cfg.unit, "unit", "u", 0, "`N` points per grid step, keeping every node on the grid; 0 chooses the spacing\nfrom the node sizes and labels (see README, Spacing)\nexample: --unit 36")
-	fs.BoolVar(&cfg.gridOnly, "grid", false, "keep every node on its grid point even where the grid drawing is crowded\n(the spacing is still chosen from the node sizes)")
-	fs.BoolVarP(&cfg.quiet, "quiet", "q", false, "print nothing on standard error except errors")
+	fs.BoolVar(&cfg.gridOnly, "grid", false, "keep every node on its grid point even where the grid drawing is crowded\n(the spacing is still chosen from the node sizes)\nexample: --grid")
+	fs.BoolVarP(&cfg.quiet, "quiet", "q", false, "print nothing on standard error except errors (no summary lines, no progress)\nexample: -q")
 	fs.StringVar(&cfg.removedFile, "removed", "", "write the edges set aside to make a graph planar to `FILE`, as DOT:\none graph per input graph, one edge per line, with its attributes\nexample: --removed removed.dot")
-	fs.BoolVar(&cfg.dropRemoved, "drop-removed", false, "leave the set-aside edges out of the main output")
+	fs.BoolVar(&cfg.dropRemoved, "drop-removed", false, "leave the set-aside edges out of the main output\nexample: --drop-removed --removed removed.dot")
 	mark := fs.String("mark-removed", "", "add these `ATTRS` to the set-aside edges in the main output\nexample: --mark-removed 'style=dashed,color=gray'")
-	fs.BoolVar(&cfg.planarOnly, "planar-only", false, "treat a non-planar graph as an error (exit status 3, nothing written)")
+	fs.BoolVar(&cfg.planarOnly, "planar-only", false, "treat a non-planar graph as an error (exit status 3, nothing written)\nexample: --planar-only")
 	fs.StringVar(&cfg.explainFile, "explain", "", "write to `FILE`, for each set-aside edge, a Kuratowski subgraph (a subdivision\nof K5 or K3,3 made of it and kept edges) proving it could not stay, as DOT\nexample: --explain why.dot")
 	fs.IntVar(&cfg.effort, "effort", 0, "extra search for fewer set-aside edges: `N` seeded restarts and a larger exact\nsearch on small blocks; the result for a given N is always the same\nexample: --effort 8")
-	fs.IntVar(&cfg.maxExpansion, "max-expansion", dotio.DefaultMaxExpansion, "refuse input whose edge statements with subgraph operands ({a b} -- {c d})\nexpand to more than `N` edges; negative means no limit")
+	fs.IntVar(&cfg.maxExpansion, "max-expansion", dotio.DefaultMaxExpansion, "refuse input whose edge statements with subgraph operands ({a b} -- {c d})\nexpand to more than `N` edges; negative means no limit\nexample: --max-expansion 20000000")
 	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE` (set-aside\nedges dashed, underneath); open it in any browser\nexample: --svg preview.svg")
 	fs.BoolVar(&cfg.check, "check", false, "do not lay out: check the pos of every node already in the input and report,\none per line on standard output, crossing edges, nodes on edges they do not\nend at, and overlapping node boxes; exit status 1 if anything was found\nexample: gridwood --check drawn.dot")
-	method := fs.String("method", "schnyder", "drawing `METHOD`: schnyder (every planar graph, (n-2) x (n-2) grid per component,\nthen spaced and smoothed for reading) or convex (every face a convex polygon,\non the (f-1) x (f-1) grid, for 3-connected components; the others fall back\nto schnyder and standard error says how many)\nexample: --method convex")
-	outer := fs.String("outer", "", "`NAMES` of nodes that must lie on the outer boundary of the drawing, comma\nseparated (as the names are written, without quotes); applies to every graph\nthat has all of them. Default: a largest face of the graph is the outside\nexample: --outer Library,Gym,Lodge")
+	method := fs.String("method", "schnyder", "drawing `METHOD`: schnyder (every planar graph, (n-2) x (n-2) grid per component,\nthen spaced and smoothed for reading) or convex (every face a convex polygon,\non the (f-1) x (f-1) grid, for 3-connected components; the others fall back\nto schnyder and standard error names them)\nexample: --method convex")
+	outer := fs.String("outer", "", "`NAMES` of nodes that must lie on the outer boundary of the drawing, comma\nseparated (as the names are written, without quotes); applies to every graph\nthat has all of them. Default: a largest face of the graph is the outside\nexample: --outer Refectory,Gym,Chapel")
 	fs.StringVar(&cfg.reportFile, "report", "", "write a JSON quality report to `FILE`: per graph its size, set-aside edges,\ngrid size, area, smallest angle, edge length ratio, node clearance and the\ntime of each stage (README, Quality report, explains the fields)\nexample: --report quality.json")
-	version := fs.Bool("version", false, "print the version and exit")
-	help := fs.BoolP("help", "h", false, "show this help and exit")
+	version := fs.Bool("version", false, "print the version and exit\nexample: --version")
+	help := fs.BoolP("help", "h", false, "show this help and exit\nexample: -h")
 	fs.Usage = func() {}
+	short := shortUsage(fs)
 	if err := fs.Parse(args); err != nil {
-		return nil, &usageError{err.Error()}
+		return nil, &usageError{err.Error(), short}
 	}
 	if *help {
 		printHelp(out, fs)
@@ -137,15 +144,15 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 		return nil, errVersionShown
 	}
 	if cfg.unit < 0 || cfg.unit > 100000 {
-		return nil, &usageError{fmt.Sprintf("--unit %d: want 0 (automatic) to 100000 points", cfg.unit)}
+		return nil, &usageError{fmt.Sprintf("--unit %d: want 0 (automatic) to 100000 points", cfg.unit), short}
 	}
 	if cfg.effort < 0 || cfg.effort > 1000 {
-		return nil, &usageError{fmt.Sprintf("--effort %d: want 0 to 1000", cfg.effort)}
+		return nil, &usageError{fmt.Sprintf("--effort %d: want 0 to 1000", cfg.effort), short}
 	}
 	if *mark != "" {
 		attrs, err := dotio.ParseAttrList(*mark)
 		if err != nil {
-			return nil, &usageError{"--mark-removed: " + err.Error()}
+			return nil, &usageError{"--mark-removed: " + err.Error(), short}
 		}
 		cfg.markRemoved = attrs
 	}
@@ -155,12 +162,12 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 	case "convex":
 		cfg.method = place.Convex
 	default:
-		return nil, &usageError{fmt.Sprintf("--method %q: want schnyder or convex", *method)}
+		return nil, &usageError{fmt.Sprintf("--method %q: want schnyder or convex", *method), short}
 	}
 	if *outer != "" {
 		for _, name := range strings.Split(*outer, ",") {
 			if name = strings.TrimSpace(name); name == "" {
-				return nil, &usageError{"--outer: empty node name in " + strconv.Quote(*outer)}
+				return nil, &usageError{"--outer: empty node name in " + strconv.Quote(*outer), short}
 			}
 			cfg.outer = append(cfg.outer, name)
 		}
@@ -170,6 +177,31 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 		cfg.inputs = []string{"-"}
 	}
 	return cfg, nil
+}
+
+// shortUsage is the usage line and the flags by name, for a usage error.
+func shortUsage(fs *pflag.FlagSet) string {
+	var b strings.Builder
+	b.WriteString("Usage: gridwood [flags] [FILE ...]\nFlags:")
+	width := len("Flags:")
+	fs.VisitAll(func(f *pflag.Flag) {
+		name, _ := pflag.UnquoteUsage(f)
+		item := "--" + f.Name
+		if f.Shorthand != "" {
+			item = "-" + f.Shorthand + "/" + item
+		}
+		if name != "" && f.Value.Type() != "bool" {
+			item += " " + name
+		}
+		if width+1+len(item) > 78 {
+			b.WriteString("\n      ")
+			width = 6
+		}
+		b.WriteString(" " + item)
+		width += 1 + len(item)
+	})
+	b.WriteString("\n")
+	return b.String()
 }
 
 func printHelp(w io.Writer, fs *pflag.FlagSet) {
@@ -280,10 +312,21 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	budget := &planarize.Budget{Left: explainBudgetTotal}
 	stdinUsed := false
 	outerUsed := false
+	memory := newMemoryGuard()
+	var readBytes int64
 	for ii, in := range cfg.inputs {
 		prog.set("reading "+in, pct(ii, 0))
 		src, name, err := readInput(in, stdin, &stdinUsed)
 		if err != nil {
+			return err
+		}
+		readBytes += int64(len(src))
+		note := func(format string, args ...any) {
+			if !cfg.quiet {
+				prog.note(format, args...)
+			}
+		}
+		if err := memory.admit(name, readBytes, note); err != nil {
 			return err
 		}
 		readStart := time.Now()
@@ -351,40 +394,41 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			}
 		}
 	}
+	prog.stop() // before any message or output
+	if len(cfg.outer) > 0 && !outerUsed {
+		return &exitError{exitBadInput, fmt.Sprintf("--outer %s: no graph has all of these nodes", strings.Join(cfg.outer, ","))}
+	}
+	// All inputs succeeded: every file is written to a temporary first and
+	// only when all of them are complete renamed into place, the main
+	// output last, so that a failure leaves every file as it was.
+	var files []pendingFile
 	if cfg.reportFile != "" {
 		var buf bytes.Buffer
 		if err := writeReport(&buf, reports); err != nil {
 			return err
 		}
-		if err := writeFileAtomic(cfg.reportFile, buf.Bytes()); err != nil {
-			return err
-		}
+		files = append(files, pendingFile{path: cfg.reportFile, data: buf.Bytes()})
 	}
 	if cfg.svgFile != "" {
 		if err := writeSVG(&svgOut, pictures); err != nil {
 			return err
 		}
-		if err := writeFileAtomic(cfg.svgFile, svgOut.Bytes()); err != nil {
-			return err
-		}
+		files = append(files, pendingFile{path: cfg.svgFile, data: svgOut.Bytes()})
 	}
-	prog.stop() // before any message or output
-	if len(cfg.outer) > 0 && !outerUsed {
-		return &exitError{exitBadInput, fmt.Sprintf("--outer %s: no graph has all of these nodes", strings.Join(cfg.outer, ","))}
-	}
-	// All inputs succeeded: write the side files first, the main output last.
 	if cfg.removedFile != "" {
-		if err := writeFileAtomic(cfg.removedFile, removedOut.Bytes()); err != nil {
-			return err
-		}
+		files = append(files, pendingFile{path: cfg.removedFile, data: removedOut.Bytes()})
 	}
 	if cfg.explainFile != "" {
-		if err := writeFileAtomic(cfg.explainFile, explainOut.Bytes()); err != nil {
-			return err
-		}
+		files = append(files, pendingFile{path: cfg.explainFile, data: explainOut.Bytes()})
 	}
 	if cfg.output != "" {
-		return writeFileAtomic(cfg.output, out.Bytes())
+		files = append(files, pendingFile{path: cfg.output, data: out.Bytes()})
+	}
+	if err := writeFilesAtomic(files); err != nil {
+		return err
+	}
+	if cfg.output != "" {
+		return nil
 	}
 	_, err := stdout.Write(out.Bytes())
 	return err
@@ -415,7 +459,11 @@ func checkInputs(cfg *config, stdin io.Reader, stdout io.Writer) error {
 		return err
 	}
 	if problems > 0 {
-		return &exitError{exitProblems, fmt.Sprintf("%d problems found", problems)}
+		word := "problems"
+		if problems == 1 {
+			word = "problem"
+		}
+		return &exitError{exitProblems, fmt.Sprintf("%d %s found", problems, word)}
 	}
 	return nil
 }
@@ -480,7 +528,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Resu
 		}
 	}
 	if res.NotConvex > 0 && !cfg.quiet {
-		cfg.prog.note("gridwood: %s: %d of %d components are not 3-connected and were drawn with the schnyder method\n", where, res.NotConvex, len(res.Components))
+		cfg.prog.note("gridwood: %s: %d of %d components are not 3-connected and were drawn with the schnyder method: %s\n", where, res.NotConvex, len(res.Components), fellBackNames(g, res.FellBackVertices()))
 	}
 	var gr graphReport
 	if cfg.reportFile != "" {
@@ -491,6 +539,24 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Resu
 		gr = graphMeasures(g, gi, name, res, sp, boxes, spaceTime)
 	}
 	return res, lay, boxes, gr, nil
+}
+
+// fellBackNames names the components Method Convex could not draw convex,
+// each by its first node, up to five.
+func fellBackNames(g *dotio.Graph, least []int) string {
+	const most = 5
+	var b strings.Builder
+	for i, v := range least {
+		if i == most {
+			fmt.Fprintf(&b, " and %d more", len(least)-most)
+			break
+		}
+		if i > 0 {
+			b.WriteString(", ")
+		}
+		fmt.Fprintf(&b, "the one with %s", g.Nodes[v].ID)
+	}
+	return b.String()
 }
 
 // DOT's default node size in inches (from memory of its documentation, see
@@ -540,33 +606,50 @@ func warnPinned(p *progress, name string, f *dotio.File) {
 	}
 }
 
-// writeFileAtomic writes data to a temporary file next to path and renames
-// it into place, so that readers never see a half-written file and a
-// failed run leaves an existing file untouched.
-func writeFileAtomic(path string, data []byte) error {
-	dir := filepath.Dir(path)
-	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp*")
-	if err != nil {
+// pendingFile is an output file's path and its whole contents.
+type pendingFile struct {
+	path string
+	data []byte
+}
+
+// writeFilesAtomic writes each file to a temporary file next to it (with
+// the permissions of the file it replaces, or 0644) and, once all are
+// written, renames them into place in order. So readers never see a
+// half-written file, and a failure before the renames (a full disk, a
+// missing directory) leaves every existing file untouched.
+func writeFilesAtomic(files []pendingFile) error {
+	temps := make([]string, 0, len(files))
+	fail := func(err error) error {
+		for _, name := range temps {
+			os.Remove(name)
+		}
 		return &exitError{exitBadInput, err.Error()}
 	}
-	name := tmp.Name()
-	_, err = tmp.Write(data)
-	if cerr := tmp.Close(); err == nil {
-		err = cerr
-	}
-	if err == nil {
-		if fi, serr := os.Stat(path); serr == nil {
-			err = os.Chmod(name, fi.Mode().Perm())
-		} else {
-			err = os.Chmod(name, 0o644)
+	for _, f := range files {
+		tmp, err := os.CreateTemp(filepath.Dir(f.path), "."+filepath.Base(f.path)+".tmp*")
+		if err != nil {
+			return fail(err)
+		}
+		temps = append(temps, tmp.Name())
+		_, err = tmp.Write(f.data)
+		if cerr := tmp.Close(); err == nil {
+			err = cerr
+		}
+		if err == nil {
+			if fi, serr := os.Stat(f.path); serr == nil {
+				err = os.Chmod(tmp.Name(), fi.Mode().Perm())
+			} else {
+				err = os.Chmod(tmp.Name(), 0o644)
+			}
+		}
+		if err != nil {
+			return fail(err)
 		}
 	}
-	if err == nil {
-		err = os.Rename(name, path)
-	}
-	if err != nil {
-		os.Remove(name)
-		return &exitError{exitBadInput, err.Error()}
+	for i, f := range files {
+		if err := os.Rename(temps[i], f.path); err != nil {
+			return fail(err) // the temporaries not yet renamed go
+		}
 	}
 	return nil
 }

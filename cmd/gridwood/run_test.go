@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"os"
 	"path/filepath"
+	"regexp"
 	"strconv"
 	"strings"
 	"testing"
@@ -180,7 +181,9 @@ func TestExitStatusesAndMessages(t *testing.T) {
 		{"dashes in digraph", "digraph G { a -- b }", nil, exitBadInput, "<stdin>:1:15: "},
 		{"empty input", "", nil, exitBadInput, "<stdin>"},
 		{"not DOT", "hello, world\n", nil, exitBadInput, "<stdin>:1:"},
-		{"unknown flag", "", []string{"--no-such-flag"}, exitBadInput, "unknown flag"},
+		{"unknown flag", "", []string{"--no-such-flag"}, exitBadInput, "gridwood: unknown flag: --no-such-flag\nUsage: gridwood [flags] [FILE ...]\nFlags: -o/--output FILE"},
+		{"unknown flag lists every flag", "", []string{"--no-such-flag"}, exitBadInput, "--report FILE --version -h/--help\nRun 'gridwood --help'"},
+		{"flag without value", "", []string{"--unit"}, exitBadInput, "Usage: gridwood"},
 		{"bad unit", "graph{}", []string{"--unit", "-3"}, exitBadInput, "--unit"},
 		{"planar only", k5, []string{"--planar-only"}, exitNonPlanar, `graph "K5" is not planar`},
 		{"non-planar reported", k5, nil, exitOK, `graph "K5": 1 of 10 edges set aside`},
@@ -205,21 +208,65 @@ func TestExitStatusesAndMessages(t *testing.T) {
 	}
 }
 
+// TestHelpAndVersion checks that --help describes every flag with its
+// default and an example (issue: help explains every flag), that the
+// --outer example works on the shipped example it is drawn from, and that
+// --version prints a version from the build information.
 func TestHelpAndVersion(t *testing.T) {
-	code, errs, _ := runCmd(t, "", "--help") // help goes to standard output
+	code, help, _ := runCmd(t, "", "--help") // help goes to standard output
 	if code != exitOK {
 		t.Fatalf("--help exit %d", code)
 	}
-	for _, flag := range []string{"--output", "--unit", "--quiet", "--removed", "--drop-removed", "--mark-removed", "--planar-only", "--explain", "--effort", "--max-expansion", "--version", "--svg", "--check", "--grid", "Exit status", "default: 1000000", "default: schnyder"} {
-		if !strings.Contains(errs, flag) {
-			t.Errorf("help lacks %q", flag)
+	for _, want := range []string{"Exit status", "default: 1000000", "default: schnyder"} {
+		if !strings.Contains(help, want) {
+			t.Errorf("help lacks %q", want)
 		}
 	}
-	code, errs, _ = runCmd(t, "", "--version")
-	if code != exitOK || !strings.HasPrefix(errs, "gridwood ") {
-		t.Errorf("--version: exit %d, %q", code, errs)
+	// One block per flag: its heading line, then indented lines.
+	blocks := map[string]string{}
+	var name string
+	for _, line := range strings.Split(help, "\n") {
+		if m := helpFlagLine.FindStringSubmatch(line); m != nil {
+			name = m[1]
+			blocks[name] = ""
+			continue
+		}
+		if name != "" && strings.HasPrefix(line, "        ") {
+			blocks[name] += strings.TrimSpace(line) + "\n"
+		} else {
+			name = ""
+		}
+	}
+	flags := []string{"output", "unit", "grid", "quiet", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "max-expansion", "svg", "check", "method", "outer", "report", "version", "help"}
+	if len(blocks) != len(flags) {
+		t.Errorf("help describes %d flags, want %d: %v", len(blocks), len(flags), blocks)
+	}
+	for _, f := range flags {
+		b, ok := blocks[f]
+		if !ok {
+			t.Errorf("help lacks --%s", f)
+			continue
+		}
+		if !strings.Contains(b, "default: ") || !strings.Contains(b, "example: ") {
+			t.Errorf("--%s: help gives no default or no example:\n%s", f, b)
+		}
+	}
+	// The --outer example names nodes of examples/campus-fibre.dot.
+	ex := regexp.MustCompile(`example: (--outer \S+)`).FindStringSubmatch(blocks["outer"])
+	if ex == nil {
+		t.Fatalf("no --outer example in %q", blocks["outer"])
+	}
+	if code, _, errs := runCmd(t, "", "-q", strings.Fields(ex[1])[0], strings.Fields(ex[1])[1], "../../examples/campus-fibre.dot"); code != exitOK {
+		t.Errorf("help's %q on campus-fibre.dot: exit %d, %s", ex[1], code, errs)
+	}
+	code, version, _ := runCmd(t, "", "--version")
+	if code != exitOK || !strings.HasPrefix(version, "gridwood ") || strings.Contains(version, "(unknown)") {
+		t.Errorf("--version: exit %d, %q", code, version)
 	}
 }
+
+// helpFlagLine matches the heading of one flag in --help.
+var helpFlagLine = regexp.MustCompile(`^  (?:-[a-z], |    )--([a-z-]+)`)
 
 func TestOutputFileIsReplacedAtomically(t *testing.T) {
 	dir := t.TempDir()
@@ -330,5 +377,79 @@ func TestSameInputSameBytes(t *testing.T) {
 	os.WriteFile(p, in, 0o644)
 	if _, fromFile, _ := runCmd(t, "", "-q", p); fromFile != first {
 		t.Fatal("output differs between file and standard input")
+	}
+}
+
+// TestConvexFallbackNamed checks that --method convex says on standard
+// error which components it could not draw convex: a 4-cycle with a chord
+// (2-connected, not 3-connected) and a 6-cycle fall back, K4 (3-connected)
+// does not; each fallback is named by its first node.
+func TestConvexFallbackNamed(t *testing.T) {
+	src := "graph two {\n a -- b -- c -- d -- a; a -- c\n k1 -- k2 -- k3 -- k4 -- k1 -- k3; k2 -- k4\n r1 -- r2 -- r3 -- r4 -- r5 -- r6 -- r1\n}\n"
+	code, out, errs := runCmd(t, src, "--method", "convex")
+	if code != exitOK || out == "" {
+		t.Fatalf("exit %d, stderr %q", code, errs)
+	}
+	want := `gridwood: <stdin>:1:1: graph "two": 2 of 3 components are not 3-connected and were drawn with the schnyder method: the one with a, the one with r1` + "\n"
+	if errs != want {
+		t.Errorf("stderr\n%q\nwant\n%q", errs, want)
+	}
+	if _, _, errs := runCmd(t, src, "--method", "convex", "-q"); errs != "" {
+		t.Errorf("-q: stderr %q", errs)
+	}
+}
+
+// TestFailedRunWritesNoFile checks that a run that fails writes none of
+// its files: the side files (--report, --svg, --removed, --explain) are
+// not created or replaced when the run fails late (an --outer no graph
+// satisfies) or when the main output cannot be written.
+func TestFailedRunWritesNoFile(t *testing.T) {
+	const k5 = "graph K5 { a -- b -- c -- d -- e -- a; a -- c -- e -- b -- d -- a }"
+	dir := t.TempDir()
+	side := map[string]string{}
+	for _, f := range []string{"report", "svg", "removed", "explain"} {
+		side[f] = filepath.Join(dir, f+".out")
+	}
+	args := func(extra ...string) []string {
+		a := []string{"-q"}
+		for f, p := range side {
+			a = append(a, "--"+f, p)
+		}
+		return append(a, extra...)
+	}
+	// Late failure: no graph has the --outer nodes. Nothing is created.
+	if code, out, errs := runCmd(t, k5, args("--outer", "nope,nothere")...); code != exitBadInput || out != "" || errs == "" {
+		t.Fatalf("--outer nope: exit %d, stdout %q, stderr %q", code, out, errs)
+	}
+	for f, p := range side {
+		if _, err := os.Stat(p); !os.IsNotExist(err) {
+			t.Errorf("--%s file exists after a failed run (%v)", f, err)
+		}
+	}
+	// Existing side files stay as they were when -o cannot be written.
+	for _, p := range side {
+		if err := os.WriteFile(p, []byte("old\n"), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if code, _, _ := runCmd(t, k5, args("-o", filepath.Join(dir, "missing-dir", "out.dot"))...); code != exitBadInput {
+		t.Fatalf("-o into a missing directory: exit %d", code)
+	}
+	for f, p := range side {
+		if b, _ := os.ReadFile(p); string(b) != "old\n" {
+			t.Errorf("--%s file changed by a failed run: %q", f, b)
+		}
+	}
+	if entries, _ := os.ReadDir(dir); len(entries) != len(side) {
+		t.Errorf("%d entries in the directory, want the %d side files: temporaries left behind?", len(entries), len(side))
+	}
+	// And a good run writes them all.
+	if code, _, errs := runCmd(t, k5, args("-o", filepath.Join(dir, "out.dot"))...); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	for f, p := range side {
+		if b, _ := os.ReadFile(p); string(b) == "old\n" || len(b) == 0 {
+			t.Errorf("--%s file not written by a good run: %q", f, b)
+		}
 	}
 }

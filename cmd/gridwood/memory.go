@@ -1,0 +1,112 @@
+package main
+
+import (
+	"bufio"
+	"bytes"
+	"fmt"
+	"os"
+	"runtime/debug"
+	"strconv"
+	"strings"
+)
+
+// Peak memory per byte of DOT input, as measured (DEVELOPERS.md, Whole
+// filter against gonum): never below leastBytesPerByte, usually about
+// typicalBytesPerByte.
+const (
+	leastBytesPerByte   = 40
+	typicalBytesPerByte = 50
+)
+
+// availableMemory reports the memory this process can still use: the
+// kernel's estimate of memory available for new work (MemAvailable in
+// /proc/meminfo), lowered to what a cgroup v2 memory limit leaves. A
+// variable so that tests can pretend a small machine.
+var availableMemory = func() (int64, bool) {
+	avail, ok := memInfoAvailable()
+	if limit, used, ok2 := cgroupMemory(); ok2 && (!ok || limit-used < avail) {
+		avail, ok = max(0, limit-used), true
+	}
+	return avail, ok
+}
+
+func memInfoAvailable() (int64, bool) {
+	f, err := os.Open("/proc/meminfo")
+	if err != nil {
+		return 0, false
+	}
+	defer f.Close()
+	sc := bufio.NewScanner(f)
+	for sc.Scan() {
+		fields := strings.Fields(sc.Text())
+		if len(fields) >= 2 && fields[0] == "MemAvailable:" {
+			kb, err := strconv.ParseInt(fields[1], 10, 64)
+			return kb * 1024, err == nil
+		}
+	}
+	return 0, false
+}
+
+func cgroupMemory() (limit, used int64, ok bool) {
+	read := func(name string) (int64, bool) {
+		b, err := os.ReadFile("/sys/fs/cgroup/" + name)
+		if err != nil {
+			return 0, false
+		}
+		v, err := strconv.ParseInt(string(bytes.TrimSpace(b)), 10, 64)
+		return v, err == nil // "max" (no limit) does not parse
+	}
+	limit, ok1 := read("memory.max")
+	used, ok2 := read("memory.current")
+	return limit, used, ok1 && ok2
+}
+
+// memoryGuard refuses, before parsing, input that cannot fit in the memory
+// available even at the least measured cost per byte, so that the run
+// ends with a message instead of being killed; it warns when the typical
+// cost would not fit. It also sets the Go memory limit to what is
+// available, so that the collector works harder instead of failing
+// while the live data still fits.
+type memoryGuard struct {
+	avail  int64
+	known  bool
+	warned bool
+}
+
+func newMemoryGuard() *memoryGuard {
+	avail, ok := availableMemory()
+	if ok {
+		// Not below 64 MB: a limit the runtime itself nearly fills would
+		// only make the collector run without pause.
+		debug.SetMemoryLimit(max(avail, 64<<20))
+	}
+	return &memoryGuard{avail: avail, known: ok}
+}
+
+// admit checks input of size bytes (all inputs read so far, since their
+// output is kept until the end); note prints a warning.
+func (m *memoryGuard) admit(name string, size int64, note func(format string, args ...any)) error {
+	if !m.known {
+		return nil
+	}
+	if least := leastBytesPerByte * size; least > m.avail {
+		return &exitError{exitBadInput, fmt.Sprintf("%s: not enough memory: laying out %s of DOT takes at least %s (%d bytes per input byte), and %s is available", name, humanBytes(size), humanBytes(least), leastBytesPerByte, humanBytes(m.avail))}
+	}
+	if typical := typicalBytesPerByte * size; typical > m.avail && !m.warned {
+		m.warned = true
+		note("gridwood: %s: laying out %s of DOT usually takes about %s, and %s is available: the run may fail for lack of memory\n", name, humanBytes(size), humanBytes(typical), humanBytes(m.avail))
+	}
+	return nil
+}
+
+func humanBytes(n int64) string {
+	switch {
+	case n >= 1<<30:
+		return fmt.Sprintf("%.1f GB", float64(n)/(1<<30))
+	case n >= 1<<20:
+		return fmt.Sprintf("%.1f MB", float64(n)/(1<<20))
+	case n >= 1<<10:
+		return fmt.Sprintf("%.1f kB", float64(n)/(1<<10))
+	}
+	return fmt.Sprintf("%d bytes", n)
+}
