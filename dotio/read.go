@@ -44,6 +44,10 @@ type ReadOptions struct {
 	// with a subgraph operand, per file. 0 means DefaultMaxExpansion,
 	// negative means no cap.
 	MaxExpansion int
+	// Progress, if set, is called as each step of reading begins, with
+	// the step's name and roughly how far through reading it starts (0 to
+	// 1, from the steps' usual shares of the time).
+	Progress func(step string, done float64)
 }
 
 // File is a DOT file read by Read.
@@ -288,11 +292,17 @@ func Read(src []byte, opt ReadOptions) (*File, error) {
 	if len(src) >= math.MaxInt32-1 {
 		return nil, &Error{File: name, Msg: "input larger than 2 GiB"}
 	}
+	progress := opt.Progress
+	if progress == nil {
+		progress = func(string, float64) {}
+	}
+	progress("scanning", 0)
 	pm := newPosMap(src)
 	sc, err := scan(src, pm, name)
 	if err != nil {
 		return nil, err
 	}
+	progress("parsing", 0.15)
 	af, err := parse(sc.text)
 	if err != nil {
 		return nil, syntaxError(err, sc, pm, name, len(src))
@@ -304,6 +314,7 @@ func Read(src []byte, opt ReadOptions) (*File, error) {
 	// Every edge statement has an operator: len(sc.ops) bounds both.
 	f := &File{Name: name, ast: af, pm: pm, ops: make([]opInfo, 0, len(sc.ops)), stmts: make([]edgeStmtInfo, 0, len(sc.ops))}
 	w := &walker{f: f, sc: sc, limit: limit}
+	progress("collecting nodes and edges", 0.75)
 	if err := w.run(); err != nil {
 		return nil, err
 	}

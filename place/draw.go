@@ -20,6 +20,9 @@ var errNotPlanar = errors.New("place: internal error: kept subgraph is not plana
 type DrawOptions struct {
 	Layout   Options
 	Subgraph planarize.SubgraphOptions
+	// Progress, if set, is called as each stage of Draw begins, with the
+	// stage's name and roughly how far through Draw it starts (0 to 1).
+	Progress func(stage string, done float64)
 }
 
 // Result is a crossing-free straight-line grid drawing of a graph that may
@@ -65,6 +68,11 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	if err := checkInput(n, edges); err != nil {
 		return nil, err
 	}
+	progress := opt.Progress
+	if progress == nil {
+		progress = func(string, float64) {}
+	}
+	progress("renumbering", 0)
 	start := time.Now()
 	// Renumber first, so that even removing repeats runs on local data.
 	newID, renamed, rawOf := order.DepthFirst(n, edges)
@@ -87,8 +95,10 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	}
 	res := &Result{DistinctPairs: len(simple), Optimal: true, simple: simple, simpleOf: index}
 	kept := local
+	progress("planarity test", 0.25)
 	emb, ok := planarize.Embed(n, local)
 	if !ok {
+		progress("planar subgraph", 0.4)
 		sub := planarize.MaximalPlanar(n, local, opt.Subgraph)
 		res.Optimal, res.LowerBound = sub.Optimal, sub.LowerBound
 		res.RemovedPairs = len(sub.Removed)
@@ -139,6 +149,7 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 		lopt.Outer = outer
 	}
 	res.Times.Planarize = time.Since(start)
+	progress("placing", 0.7)
 	start = time.Now()
 	d, err := layout(emb, lopt) // emb is ours to augment
 	res.Times.Layout = time.Since(start)

@@ -11,8 +11,9 @@ import (
 // component of readableLimit vertices gets the clearance check (no node box
 // overlaps another, no edge passes through a box it does not end at, found
 // by geomcheck), one of readableLimit+1 is counted Unchecked and keeps
-// disjoint boxes; both drawings pass the crossing checker. The graph is a
-// wheel's rim with spokes to a hub, so the drawing has long edges to clear.
+// disjoint boxes; both drawings pass the crossing checker. The graphs are
+// the 50 x 100 grid and the same with a pendant vertex: drawings that need
+// stretching (or refinement) to clear their boxes, and can be cleared.
 func TestReadableLimit(t *testing.T) {
 	for _, tc := range []struct {
 		n         int

@@ -21,8 +21,9 @@ type SpaceOptions struct {
 	// Unit fixes the points per grid step and keeps every component on its
 	// grid (no smoothing, no extra spacing). 0 chooses it from the boxes.
 	Unit int64
-	// GridOnly keeps every component on its grid, with the unit chosen
-	// from the boxes, however crowded.
+	// GridOnly keeps every component's grid drawing, with the unit chosen
+	// from the boxes and stretched to clear them, but neither refined nor
+	// replaced by the barycentric drawing.
 	GridOnly bool
 }
 

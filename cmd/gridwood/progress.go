@@ -26,12 +26,18 @@ type progress struct {
 const progressDelay = time.Second
 
 func newProgress(w io.Writer, quiet bool) *progress {
-	p := &progress{w: w}
-	f, ok := w.(*os.File)
-	if quiet || !ok {
-		return p
+	terminal := false
+	if f, ok := w.(*os.File); ok {
+		fi, err := f.Stat()
+		terminal = err == nil && fi.Mode()&os.ModeCharDevice != 0
 	}
-	if fi, err := f.Stat(); err != nil || fi.Mode()&os.ModeCharDevice == 0 {
+	return newProgressAfter(w, terminal && !quiet, progressDelay)
+}
+
+// newProgressAfter shows progress on w after delay if show is set.
+func newProgressAfter(w io.Writer, show bool, delay time.Duration) *progress {
+	p := &progress{w: w}
+	if !show {
 		return p
 	}
 	p.done = make(chan struct{})
@@ -39,7 +45,7 @@ func newProgress(w io.Writer, quiet bool) *progress {
 	go func() {
 		defer p.wg.Done()
 		select {
-		case <-time.After(progressDelay):
+		case <-time.After(delay):
 		case <-p.done:
 			return
 		}

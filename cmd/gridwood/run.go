@@ -330,7 +330,9 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			return err
 		}
 		readStart := time.Now()
-		f, err := dotio.Read(src, dotio.ReadOptions{Name: name, MaxExpansion: cfg.maxExpansion})
+		f, err := dotio.Read(src, dotio.ReadOptions{Name: name, MaxExpansion: cfg.maxExpansion, Progress: func(step string, done float64) {
+			prog.set("reading "+name+": "+step, pct(ii, 0.4*done))
+		}})
 		if err != nil {
 			return err
 		}
@@ -344,9 +346,13 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			totalEdges += len(g.Edges) + 1
 		}
 		for gi, g := range f.Graphs {
-			prog.set(fmt.Sprintf("drawing %s in %s", graphName(g, gi), name), pct(ii, 0.4+0.5*float64(edgesDone)/float64(totalEdges)))
+			drawing := fmt.Sprintf("drawing %s in %s: ", graphName(g, gi), name)
+			before, share := float64(edgesDone), float64(len(g.Edges)+1)
 			edgesDone += len(g.Edges) + 1
-			res, lay, boxes, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)))
+			step := func(stage string, done float64) {
+				prog.set(drawing+stage, pct(ii, 0.4+0.5*(before+done*share)/float64(totalEdges)))
+			}
+			res, lay, boxes, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)), step)
 			if err != nil {
 				return err
 			}
@@ -489,7 +495,7 @@ func readInput(in string, stdin io.Reader, stdinUsed *bool) ([]byte, string, err
 
 // layoutGraph draws one graph, converts grid points to DOT positions, and
 // returns the node boxes it spaced for (the SVG draws the same ones).
-func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Result, dotio.Layout, place.Boxes, graphReport, error) {
+func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(stage string, done float64)) (*place.Result, dotio.Layout, place.Boxes, graphReport, error) {
 	edges := make([][2]int32, len(g.Edges))
 	for i, e := range g.Edges {
 		edges[i] = [2]int32{e.From, e.To}
@@ -506,6 +512,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Resu
 	res, err := place.Draw(len(g.Nodes), edges, place.DrawOptions{
 		Layout:   place.Options{Compact: true, Smooth: smoothSweeps, Outer: outer, Method: cfg.method},
 		Subgraph: planarize.SubgraphOptions{Effort: cfg.effort},
+		Progress: func(stage string, done float64) { step(stage, 0.85*done) },
 	})
 	if errors.Is(err, place.ErrOuter) {
 		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, &exitError{exitBadInput, fmt.Sprintf("%s: --outer %s: no drawing has all of these nodes on its outer boundary (they may lie in different components, or the planar part keeps them apart)", where, strings.Join(cfg.outer, ","))}
@@ -514,6 +521,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string) (*place.Resu
 		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
 	}
 	boxes := nodeBoxes(g)
+	step("spacing", 0.85)
 	spaceStart := time.Now()
 	sp, err := res.Space(boxes, place.SpaceOptions{Unit: int64(cfg.unit), GridOnly: cfg.gridOnly})
 	if err != nil {

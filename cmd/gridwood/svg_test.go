@@ -43,7 +43,7 @@ func layOut(t *testing.T, src string) []svgGraph {
 	}
 	var out []svgGraph
 	for _, g := range f.Graphs {
-		_, lay, boxes, _, err := layoutGraph(&config{}, g, 0, "test")
+		_, lay, boxes, _, err := layoutGraph(&config{}, g, 0, "test", func(string, float64) {})
 		if err != nil {
 			t.Fatal(err)
 		}
