@@ -426,7 +426,7 @@ func supportRank(s int32, order int) int32 {
 	if order == denseFirst || s == 0 || s > 2 {
 		return down
 	}
-	return s - 3 // -1 for two triangles, -2 for one: ahead of the rest
+	return -s // -2 for two triangles, -1 for one: ahead of the rest
 }
 
 // bySupport sorts order stably by supportRank.
