@@ -93,8 +93,10 @@ var errBoxes = errors.New("place: box sizes do not match the vertices")
 //     it is), and stretched by an integer factor to clear the boxes in the
 //     same way; it replaces the grid drawing unless it then needs more
 //     than twice the area;
-//   - stretching never exceeds 8 times; integer stretching keeps every
-//     orientation, so no crossing can appear;
+//   - stretching stops at maxExtent points across (Placed.Crowded counts
+//     the components that needed more); a rounded stretch is checked
+//     exactly to stay plane, else an integer one, which keeps every
+//     orientation, is used, so no crossing can appear;
 //   - components of more than readableLimit (5000) vertices keep the base
 //     unit, unchecked.
 //
