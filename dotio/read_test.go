@@ -92,6 +92,11 @@ func TestReadSemantics(t *testing.T) {
 		{"unicode IDs", `graph { café -- naïve }`, "graph ; nodes: café naïve; edges: café-naïve\n"},
 		{"semicolons and commas", `graph { a [x=1, y=2; z=3]; b; }`, "graph ; nodes: a b; edges:\n"},
 		{"edge subgraph keyword operand", `graph { a -- subgraph s { b c } -- d }`, "graph ; nodes: a b c d; edges: a-b a-c b-d c-d\n"},
+		{"reopened subgraph operand", `graph { subgraph s { a b } subgraph s { } -- c }`, "graph ; nodes: a b c; edges: a-c b-c\n"},
+		// The empty name is a name (found by FuzzFilter): "" reopens "".
+		{"reopened empty-named subgraph", `graph { subgraph "" { a b } subgraph "" { } -- c }`, "graph ; nodes: a b c; edges: a-c b-c\n"},
+		{"anonymous subgraphs never reopen", `graph { subgraph { a b } subgraph { } -- c }`, "graph ; nodes: a b c; edges:\n"},
+		{"HTML and quoted names differ", `graph { subgraph "x" { a } subgraph <x> { } -- c }`, "graph ; nodes: a c; edges:\n"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

@@ -181,12 +181,14 @@ func (w *walker) openList(sub *ast.Subgraph, isOperand bool) error {
 	if w.subCount >= len(w.sc.subNodes) {
 		return w.internal("more subgraphs parsed than scanned")
 	}
+	// id is "" for an anonymous subgraph only: a named one's key starts
+	// with a kind byte, so that the empty name `subgraph ""` is a name too.
 	id := ""
 	if sub.ID != "" {
 		name, html := canonical(sub.ID)
-		id = name
+		id = "s" + name
 		if html {
-			id = "\x00" + name
+			id = "h" + name
 		}
 		w.namedDepth++
 	}
