@@ -50,7 +50,7 @@ type Placed struct {
 	Convex int
 }
 
-// Limits of the spacing rule, as multiples of the base unit.
+// Limits of the spacing rule.
 const (
 	// maxExtent caps a component's extent in points, and so its stretch:
 	// with coordinate differences below 2^30 the orientation tests on them
