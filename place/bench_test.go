@@ -39,10 +39,7 @@ func BenchmarkCore(b *testing.B) {
 	} {
 		b.Run(tc.name, func(b *testing.B) {
 			g := tc.g() // here, so that a -bench filter generates only what it runs
-			boxes := Boxes{HalfW: make([]int64, g.N), HalfH: make([]int64, g.N), Gap: 18}
-			for i := range boxes.HalfW {
-				boxes.HalfW[i], boxes.HalfH[i] = 38, 18
-			}
+			boxes := equalBoxes(g.N, 38, 18)
 			b.ReportAllocs()
 			// The split: Draw per input edge, Space per kept pair (on a
 			// dense block the kept graph is far smaller than the input).

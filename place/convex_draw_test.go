@@ -58,10 +58,7 @@ func TestDrawConvexMethod(t *testing.T) {
 		if res.Width > int64(f-1) || res.Height > int64(f-1) {
 			t.Errorf("%s: grid %dx%d exceeds (f-1) = %d", g.Name, res.Width, res.Height, f-1)
 		}
-		b := Boxes{HalfW: make([]int64, g.N), HalfH: make([]int64, g.N), Gap: 18}
-		for i := range b.HalfW {
-			b.HalfW[i], b.HalfH[i] = 27, 18
-		}
+		b := equalBoxes(g.N, 27, 18)
 		sp, err := res.Space(b, SpaceOptions{})
 		if err != nil {
 			t.Fatal(err)

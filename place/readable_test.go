@@ -7,6 +7,16 @@ import (
 	"github.com/gridwood/gridwood/internal/graphgen"
 )
 
+// equalBoxes gives n nodes boxes of half sizes hw x hh points, 18 points
+// apart (the command's gap).
+func equalBoxes(n int, hw, hh int64) Boxes {
+	b := Boxes{HalfW: make([]int64, n), HalfH: make([]int64, n), Gap: 18}
+	for v := range b.HalfW {
+		b.HalfW[v], b.HalfH[v] = hw, hh
+	}
+	return b
+}
+
 // TestReadableLimit checks both sides of readableLimit on Space: a
 // component of readableLimit vertices gets the clearance check (no node box
 // overlaps another, no edge passes through a box it does not end at, found
@@ -34,10 +44,7 @@ func TestReadableLimit(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		b := Boxes{HalfW: make([]int64, g.N), HalfH: make([]int64, g.N), Gap: 18}
-		for i := range b.HalfW {
-			b.HalfW[i], b.HalfH[i] = 27, 18
-		}
+		b := equalBoxes(g.N, 27, 18)
 		sp, err := res.Space(b, SpaceOptions{})
 		if err != nil {
 			t.Fatal(err)

@@ -235,9 +235,9 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 		s2, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 		take := ok && !compare
 		if ok && compare {
-			g := min(gridStretch, stretchLimit(vs, px, py, hw, hh))
-			if !gridChecked {
-				g = stretchLimit(vs, px, py, hw, hh) // unknown: assume the grid as crowded as it may be
+			g := stretchLimit(vs, px, py, hw, hh) // unknown: assume the grid as crowded as it may be
+			if gridChecked {
+				g = min(gridStretch, g)
 			}
 			take = clearedArea(vs, tx, ty, min(s2, stretchLimit(vs, tx, ty, hw, hh)), hw, hh) <= barycentricAreaAllowance*clearedArea(vs, px, py, g, hw, hh)
 		}

@@ -47,10 +47,7 @@ func BenchmarkStage(b *testing.B) {
 			if err != nil {
 				b.Fatal(err)
 			}
-			boxes := Boxes{HalfW: make([]int64, g.N), HalfH: make([]int64, g.N), Gap: 18}
-			for i := range boxes.HalfW {
-				boxes.HalfW[i], boxes.HalfH[i] = 38, 18
-			}
+			boxes := equalBoxes(g.N, 38, 18)
 			b.Run(fmt.Sprintf("space/%s", g.Name), func(b *testing.B) {
 				stagebench.PerEdge(b, m, func() {
 					if _, err := res.Space(boxes, SpaceOptions{}); err != nil {

@@ -151,37 +151,29 @@ func traceFaces(t *testing.T, d outerDrawing) []drawnFace {
 func onOuterFace(t *testing.T, d outerDrawing) []bool {
 	t.Helper()
 	n := len(d.pts)
-	comp := make([]int, n)
-	for v := range comp {
-		comp[v] = v
+	pairs := make([][2]int, len(d.edges))
+	for i, e := range d.edges {
+		pairs[i] = [2]int{int(e[0]), int(e[1])}
 	}
-	var find func(int) int
-	find = func(v int) int {
-		if comp[v] != v {
-			comp[v] = find(comp[v])
-		}
-		return comp[v]
-	}
-	for _, e := range d.edges {
-		comp[find(int(e[0]))] = find(int(e[1]))
-	}
-	nv, ne := map[int]int{}, map[int]int{}
-	for v := range n {
-		nv[find(v)]++
+	comp, k := components(n, pairs) // report_test.go
+	nv, ne, first := make([]int, k), make([]int, k), make([]int, k)
+	for v := n - 1; v >= 0; v-- {
+		nv[comp[v]]++
+		first[comp[v]] = v
 	}
 	for _, e := range d.edges {
-		ne[find(int(e[0]))]++
+		ne[comp[e[0]]]++
 	}
-	byComp := map[int][]drawnFace{}
+	byComp := make([][]drawnFace, k)
 	for _, f := range traceFaces(t, d) {
-		c := find(f.verts[0])
+		c := comp[f.verts[0]]
 		byComp[c] = append(byComp[c], f)
 	}
 	on := make([]bool, n)
 	for c, vs := range nv {
 		faces := byComp[c]
 		if ne[c] == 0 { // a lone node: the whole plane is its face
-			on[c] = true
+			on[first[c]] = true
 			continue
 		}
 		if vs-ne[c]+len(faces) != 2 {

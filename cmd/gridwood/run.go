@@ -314,6 +314,11 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	outerUsed := false
 	memory := newMemoryGuard()
 	var readBytes int64
+	warn := func(format string, args ...any) {
+		if !cfg.quiet {
+			prog.note(format, args...)
+		}
+	}
 	for ii, in := range cfg.inputs {
 		prog.set("reading "+in, pct(ii, 0))
 		src, name, err := readInput(in, stdin, &stdinUsed)
@@ -321,12 +326,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			return err
 		}
 		readBytes += int64(len(src))
-		note := func(format string, args ...any) {
-			if !cfg.quiet {
-				prog.note(format, args...)
-			}
-		}
-		if err := memory.admit(name, readBytes, note); err != nil {
+		if err := memory.admit(name, readBytes, warn); err != nil {
 			return err
 		}
 		readStart := time.Now()
