@@ -153,3 +153,38 @@ func TestHostileBytes(t *testing.T) {
 		}
 	}
 }
+
+// TestChainLimit checks the cap on the operators of one edge statement
+// (maxChain, lowered here to 3): a chain of 3 edges is read, one of 4 is
+// refused at its fourth operator; semicolons, attribute lists, new
+// statements and braces end or open counts, so neither several short
+// chains nor a chain with subgraph operands holding chains is refused.
+func TestChainLimit(t *testing.T) {
+	defer func(old int32) { maxChain = old }(maxChain)
+	maxChain = 3
+	tests := []struct {
+		src string
+		col int // column of the refused operator; 0: read
+	}{
+		{"graph { a -- b -- c -- d }", 0},
+		{"graph { a -- b -- c -- d -- e }", 26},
+		{"graph { a -- b -- c -- d; e -- f -- g -- h }", 0},
+		{"graph { a -- b -- c -- d [w=1] e -- f -- g -- h }", 0},
+		{"graph { a -- b -- c -- d e -- f -- g -- h }", 0},
+		{"graph { a -- {b -- c -- d -- e} -- f -- g }", 0},
+		{"graph { a -- {b -- c -- d -- e -- x} }", 32},
+		{"graph { a:p -- b:q:n -- c -- d -- e }", 32},
+		{"graph { subgraph s { a -- b } -- c -- d -- e }", 0},
+		{"graph { subgraph s { a -- b } -- c -- d -- e -- f }", 46},
+	}
+	for _, tc := range tests {
+		_, err := Read([]byte(tc.src), ReadOptions{Name: "t.gv"})
+		var e *Error
+		switch {
+		case tc.col == 0 && err != nil:
+			t.Errorf("%s: %v", tc.src, err)
+		case tc.col > 0 && (!errors.As(err, &e) || e.Line != 1 || e.Col != tc.col || !strings.Contains(e.Msg, "chains more than 3 edges")):
+			t.Errorf("%s: error %v, want one at 1:%d", tc.src, err, tc.col)
+		}
+	}
+}

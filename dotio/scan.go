@@ -127,7 +127,16 @@ type scanner struct {
 	subOpen      []subOpen
 	res          scanned
 	sawToken     bool
+	// chain counts the edge operators of the edge statement open at each
+	// brace depth (see maxChain).
+	chain []int32
 }
+
+// maxChain is the most edge operators one edge statement may chain
+// (a -- b -- c ... at one level): gonum's parser recurses once per
+// operator, and ten million of them overflow the goroutine stack (one
+// million parse in about 4 s). A variable so that tests can lower it.
+var maxChain int32 = 1_000_000
 
 type subOpen struct {
 	index     int32 // into res.subNodes
@@ -654,6 +663,9 @@ func (s *scanner) token(kind tokKind, off int) error {
 	default:
 		s.portState = 0
 	}
+	if err := s.countChain(kind, off); err != nil {
+		return err
+	}
 	switch kind {
 	case tEdgeUndir, tEdgeDir:
 		s.res.ops = append(s.res.ops, int32(off))
@@ -693,6 +705,35 @@ func (s *scanner) token(kind tokKind, off int) error {
 		}
 	}
 	s.prev = kind
+	return nil
+}
+
+// countChain keeps the operator count of the edge statement at the
+// current brace depth: an operator adds one; a semicolon, an attribute
+// list, or a token that starts a new statement (an ID or keyword right
+// after an operand) ends the statement; a brace opens a fresh count for
+// its inside.
+func (s *scanner) countChain(kind tokKind, off int) error {
+	d := s.braceDepth
+	for len(s.chain) <= d+1 {
+		s.chain = append(s.chain, 0)
+	}
+	switch {
+	case kind == tEdgeUndir || kind == tEdgeDir:
+		if s.chain[d]++; s.chain[d] > maxChain {
+			return s.errorf(off, "edge statement chains more than %d edges; split it into several statements", maxChain)
+		}
+	case kind == tLBrace:
+		s.chain[d+1] = 0
+	case kind == tSemi || kind == tLBrack:
+		s.chain[d] = 0
+	case kind.isID() || kind >= tKwNode && kind <= tKwStrict:
+		switch s.prev {
+		case tEdgeUndir, tEdgeDir, tColon, tEq, tKwSubgraph:
+		default:
+			s.chain[d] = 0
+		}
+	}
 	return nil
 }
 

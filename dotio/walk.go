@@ -326,7 +326,7 @@ func (w *walker) mention(n *ast.Node) (int32, error) {
 		if len(g.Nodes) == cap(g.Nodes) {
 			// Double: append's gentler growth for large slices of this
 			// 160-byte struct allocates several times the final size.
-			grown := make([]Node, len(g.Nodes), max(2*cap(g.Nodes), 64))
+			grown := make([]Node, len(g.Nodes), max(2*cap(g.Nodes), 4))
 			copy(grown, g.Nodes)
 			g.Nodes = grown
 		}

@@ -74,6 +74,17 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	}
 	progress("renumbering", 0)
 	start := time.Now()
+	// Direction must not change the drawing: every pair is taken with its
+	// smaller end first, so a b and b a lay out alike. (The copy is ours,
+	// and later serves as the pair list.)
+	norm := make([][2]int32, len(edges))
+	for i, e := range edges {
+		if e[0] > e[1] {
+			e[0], e[1] = e[1], e[0]
+		}
+		norm[i] = e
+	}
+	edges = norm
 	// Renumber first, so that even removing repeats runs on local data.
 	newID, renamed, rawOf := order.DepthFirst(n, edges)
 	local, localIndex := planarize.Simplify(n, renamed)
@@ -85,7 +96,7 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 		// No loops and no repeats, the usual case: the pairs are the edges,
 		// local pair k is renamed edge k, so no scattered lookups are needed.
 		edgeOf = rawOf
-		simple = append([][2]int32(nil), edges...)
+		simple = edges
 		index = make([]int32, len(edges))
 		for i := range index {
 			index[i] = int32(i)

@@ -17,12 +17,17 @@ const refineRounds = 16
 // own and from edges that pass through its box, and the move is taken only
 // if every triangle of the augmented triangulation at that vertex keeps
 // the orientation of the inner faces (tested in integers), halving the
-// step until it does. The boundary of the drawing stays put. So the
-// drawing stays plane after every move (see planeDrawing), while the need
-// to stretch the whole drawing to clear its boxes shrinks.
-func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, meter *workMeter) {
+// step until it does. Boundary vertices move only as far as the boundary
+// stays a strictly convex polygon. So a drawing that starts plane (see
+// planeDrawing; refine checks it first, since the argument needs it) stays
+// plane after every move, while the need to stretch the whole drawing to
+// clear its boxes shrinks. seen is planeDrawing's scratch.
+func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, seen []bool, meter *workMeter) {
 	if len(vs) < 4 || len(vs) > readableLimit {
 		return // big components keep their drawing: many rounds would dominate the run
+	}
+	if !planeDrawing(emb, vs, outer, x, y, seen) {
+		return // not the triangulation's plane drawing: moves could not be judged locally
 	}
 	// Boundary vertices may move too, as long as the boundary stays a
 	// strictly convex polygon turning the same way.

@@ -225,13 +225,13 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 	gridStretch, gridChecked := 1.0, false
 	if compare || !bary {
 		if compare && gridRegion != nil && !gridOnly {
-			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp, seen, newWorkMeter(len(edges)))
 		}
 		gridStretch, gridChecked = neededStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 	}
 	stretch, checked, region := gridStretch, gridChecked, gridRegion
 	if bary {
-		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp, seen, newWorkMeter(len(edges)))
 		s2, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 		take := ok && !compare
 		if ok && compare {

@@ -8,6 +8,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/gridwood/gridwood/internal/graphgen"
 )
 
 // randomNonPlanarDOT writes G(n, m) (m distinct pairs drawn uniformly) as
@@ -147,4 +149,88 @@ func TestDeterministicAcrossProcesses(t *testing.T) {
 	if nonPlanar < 5 {
 		t.Errorf("only %d inputs lost edges", nonPlanar)
 	}
+}
+
+// TestDirectionDoesNotChangeLayout checks that edge direction is ignored
+// by the layout (README.md, "What is kept"): a random planar graph with
+// its nodes declared first, written with every edge one way, with each
+// single edge reversed in turn, with a seeded half of them reversed, and
+// as a digraph with arrows, gets the same positions every time; so does a
+// non-planar graph, whose set-aside edges must not depend on direction
+// either.
+func TestDirectionDoesNotChangeLayout(t *testing.T) {
+	for _, g := range []graphgen.Graph{graphgen.RandomPlanar(20, 0.6, 1), graphgen.RandomPlanar(200, 0.6, 2), graphgen.RandomGnm(40, 160, 3)} {
+		t.Run(g.Name, func(t *testing.T) {
+			rng := rand.New(rand.NewPCG(7, uint64(g.N)))
+			var forms [][]bool
+			forms = append(forms, nil)
+			half := make([]bool, len(g.Edges))
+			for i := range half {
+				half[i] = rng.IntN(2) == 0
+			}
+			forms = append(forms, half)
+			for i := range min(len(g.Edges), 40) {
+				one := make([]bool, len(g.Edges))
+				one[i] = true
+				forms = append(forms, one)
+			}
+			want := ""
+			for k, flip := range forms {
+				kind, op := "graph", "--"
+				if k%2 == 1 {
+					kind, op = "digraph", "->"
+				}
+				code, out, errs := runCmd(t, writeGraph(kind, op, g.N, g.Edges, flip), "-q")
+				if code != exitOK {
+					t.Fatalf("form %d: exit %d: %s", k, code, errs)
+				}
+				got := nodeLines(out)
+				if want == "" {
+					want = got
+				} else if got != want {
+					t.Fatalf("form %d (%s, %d edges reversed): positions differ", k, kind, countTrue(flip))
+				}
+			}
+		})
+	}
+}
+
+func countTrue(b []bool) int {
+	k := 0
+	for _, x := range b {
+		if x {
+			k++
+		}
+	}
+	return k
+}
+
+// writeGraph writes n declared nodes and the pairs as DOT, reversing the
+// pairs flip says.
+func writeGraph(kind, op string, n int, pairs [][2]int32, flip []bool) string {
+	var b strings.Builder
+	fmt.Fprintf(&b, "%s G {\n", kind)
+	for v := range n {
+		fmt.Fprintf(&b, "\tv%d\n", v)
+	}
+	for i, p := range pairs {
+		u, v := p[0], p[1]
+		if flip != nil && flip[i] {
+			u, v = v, u
+		}
+		fmt.Fprintf(&b, "\tv%d %s v%d\n", u, op, v)
+	}
+	b.WriteString("}\n")
+	return b.String()
+}
+
+// nodeLines keeps the node statements (with their positions) of output.
+func nodeLines(out string) string {
+	var b strings.Builder
+	for _, line := range strings.Split(out, "\n") {
+		if strings.Contains(line, "pos=") || strings.Contains(line, "bb=") {
+			b.WriteString(line + "\n")
+		}
+	}
+	return b.String()
 }

@@ -172,11 +172,50 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 			cfg.outer = append(cfg.outer, name)
 		}
 	}
+	if cfg.maxExpansion == 0 {
+		return nil, &usageError{"--max-expansion 0: want a positive number of edges, or a negative one for no limit", short}
+	}
 	cfg.inputs = fs.Args()
 	if len(cfg.inputs) == 0 {
 		cfg.inputs = []string{"-"}
 	}
+	if err := checkClashes(cfg); err != nil {
+		return nil, &usageError{err.Error(), short}
+	}
 	return cfg, nil
+}
+
+// checkClashes refuses a command line on which two outputs name the same
+// file, or an output names an input: one would overwrite the other.
+func checkClashes(cfg *config) error {
+	type named struct{ flag, path string }
+	var outs []named
+	for _, o := range []named{{"-o", cfg.output}, {"--removed", cfg.removedFile}, {"--explain", cfg.explainFile}, {"--svg", cfg.svgFile}, {"--report", cfg.reportFile}} {
+		if o.path != "" {
+			outs = append(outs, o)
+		}
+	}
+	same := func(a, b string) bool {
+		if filepath.Clean(a) == filepath.Clean(b) {
+			return true
+		}
+		fa, errA := os.Stat(a)
+		fb, errB := os.Stat(b)
+		return errA == nil && errB == nil && os.SameFile(fa, fb) && fa.Mode().IsRegular()
+	}
+	for i, o := range outs {
+		for _, p := range outs[:i] {
+			if same(o.path, p.path) {
+				return fmt.Errorf("%s and %s both name %s", p.flag, o.flag, o.path)
+			}
+		}
+		for _, in := range cfg.inputs {
+			if in != "-" && same(o.path, in) {
+				return fmt.Errorf("%s %s is also an input file", o.flag, o.path)
+			}
+		}
+	}
+	return nil
 }
 
 // shortUsage is the usage line and the flags by name, for a usage error.
@@ -357,7 +396,16 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 				return err
 			}
 			rep.Graphs = append(rep.Graphs, gr)
-			results[gi], layouts[gi], removed[gi], nodeBoxesOf[gi] = res, lay, res.Removed, boxes
+			layouts[gi], removed[gi] = lay, res.Removed
+			// The drawing's internals and the node boxes are kept only for
+			// the outputs that need them: a file of many small graphs
+			// would otherwise hold every graph's working state at once.
+			if cfg.explainFile != "" {
+				results[gi] = res
+			}
+			if cfg.svgFile != "" {
+				nodeBoxesOf[gi] = boxes
+			}
 			outerUsed = outerUsed || hasAll(g, cfg.outer)
 			if len(res.Removed) == 0 {
 				continue
@@ -620,11 +668,36 @@ type pendingFile struct {
 	data []byte
 }
 
+// followLinks returns the file a chain of symbolic links ends at, even
+// when that file does not exist yet (a dangling link gets its file
+// created), or path itself if it is not a link.
+func followLinks(path string) string {
+	for range 40 { // the usual system limit on links followed
+		fi, err := os.Lstat(path)
+		if err != nil || fi.Mode()&os.ModeSymlink == 0 {
+			return path
+		}
+		target, err := os.Readlink(path)
+		if err != nil {
+			return path
+		}
+		if !filepath.IsAbs(target) {
+			target = filepath.Join(filepath.Dir(path), target)
+		}
+		path = target
+	}
+	return path
+}
+
 // writeFilesAtomic writes each file to a temporary file next to it (with
 // the permissions of the file it replaces, or 0644) and, once all are
 // written, renames them into place in order. So readers never see a
 // half-written file, and a failure before the renames (a full disk, a
-// missing directory) leaves every existing file untouched.
+// missing directory) leaves every existing file untouched. A symbolic
+// link is followed (the link stays); a target that exists and is not a
+// regular file, such as a named pipe or /dev/null, is written to directly
+// once all the temporary files are written, since renaming would replace
+// it with a file.
 func writeFilesAtomic(files []pendingFile) error {
 	temps := make([]string, 0, len(files))
 	fail := func(err error) error {
@@ -633,7 +706,17 @@ func writeFilesAtomic(files []pendingFile) error {
 		}
 		return &exitError{exitBadInput, err.Error()}
 	}
+	var renamed, direct []pendingFile
 	for _, f := range files {
+		// A symbolic link stays: the file it names is replaced. Something
+		// that is not a regular file (a pipe, a terminal, /dev/null) is
+		// written to directly: a rename would put a file in its place.
+		f.path = followLinks(f.path)
+		if fi, err := os.Stat(f.path); err == nil && !fi.Mode().IsRegular() {
+			direct = append(direct, f)
+			continue
+		}
+		renamed = append(renamed, f)
 		tmp, err := os.CreateTemp(filepath.Dir(f.path), "."+filepath.Base(f.path)+".tmp*")
 		if err != nil {
 			return fail(err)
@@ -654,7 +737,12 @@ func writeFilesAtomic(files []pendingFile) error {
 			return fail(err)
 		}
 	}
-	for i, f := range files {
+	for _, f := range direct {
+		if err := os.WriteFile(f.path, f.data, 0); err != nil {
+			return fail(err)
+		}
+	}
+	for i, f := range renamed {
 		if err := os.Rename(temps[i], f.path); err != nil {
 			return fail(err) // the temporaries not yet renamed go
 		}

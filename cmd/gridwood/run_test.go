@@ -7,6 +7,7 @@ import (
 	"regexp"
 	"strconv"
 	"strings"
+	"syscall"
 	"testing"
 
 	"gonum.org/v1/gonum/graph/formats/dot"
@@ -189,6 +190,10 @@ func TestExitStatusesAndMessages(t *testing.T) {
 		{"non-planar reported", k5, nil, exitOK, `graph "K5": 1 of 10 edges set aside`},
 		{"quiet", k5, []string{"-q"}, exitOK, ""},
 		{"missing file", "", []string{"/no/such/file.dot"}, exitBadInput, "no such file"},
+		{"max expansion 0", "graph{}", []string{"--max-expansion", "0"}, exitBadInput, "--max-expansion 0: want a positive number"},
+		{"two outputs one file", "graph{}", []string{"-o", "x.dot", "--removed", "./x.dot"}, exitBadInput, "-o and --removed both name ./x.dot"},
+		{"output is an input", "", []string{"--svg", "in.dot", "./in.dot"}, exitBadInput, "--svg in.dot is also an input file"},
+		{"chain too long", "graph{a" + strings.Repeat("--a", 1_000_001) + "}", nil, exitBadInput, "<stdin>:1:3000008: edge statement chains more than 1000000 edges"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			code, out, errs := runCmd(t, tc.stdin, tc.args...)
@@ -297,6 +302,45 @@ func TestOutputFileIsReplacedAtomically(t *testing.T) {
 	entries, _ := os.ReadDir(dir)
 	if len(entries) != 1 {
 		t.Errorf("temporary files left behind: %v", entries)
+	}
+}
+
+// TestOutputThroughLinksAndPipes checks that -o keeps what is not a
+// regular file: a symbolic link stays a link (the file it names gets the
+// output, even when it does not exist yet), and a named pipe stays a pipe
+// (the output is written into it, not renamed over it).
+func TestOutputThroughLinksAndPipes(t *testing.T) {
+	dir := t.TempDir()
+	link := filepath.Join(dir, "link.dot")
+	if err := os.Symlink("target.dot", link); err != nil {
+		t.Skip("no symbolic links here:", err)
+	}
+	if code, _, errs := runCmd(t, "graph G { a -- b }", "-o", link); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	if fi, err := os.Lstat(link); err != nil || fi.Mode()&os.ModeSymlink == 0 {
+		t.Errorf("the link was replaced: %v %v", fi, err)
+	}
+	if b, err := os.ReadFile(filepath.Join(dir, "target.dot")); err != nil || !strings.Contains(string(b), `pos="`) {
+		t.Errorf("the link's file lacks the output: %q %v", b, err)
+	}
+	pipe := filepath.Join(dir, "pipe")
+	if err := syscall.Mkfifo(pipe, 0o600); err != nil {
+		t.Skip("no named pipes here:", err)
+	}
+	got := make(chan []byte)
+	go func() {
+		b, _ := os.ReadFile(pipe)
+		got <- b
+	}()
+	if code, _, errs := runCmd(t, "graph G { a -- b }", "-o", pipe); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	if b := <-got; !strings.Contains(string(b), `pos="`) {
+		t.Errorf("the pipe's reader got %q", b)
+	}
+	if fi, err := os.Lstat(pipe); err != nil || fi.Mode()&os.ModeNamedPipe == 0 {
+		t.Errorf("the pipe was replaced: %v %v", fi, err)
 	}
 }
 
