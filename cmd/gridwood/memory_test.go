@@ -6,29 +6,36 @@ import (
 )
 
 // TestMemoryGuard pretends a small machine (availableMemory replaced):
-// input that cannot fit even at the least measured cost per byte is
-// refused before parsing with a clear message, exit status 2 and nothing
-// on standard output; input that fits only below the typical cost runs
-// with a warning (none under -q); input that fits runs silently.
+// input that cannot fit even at the least measured cost per byte, brace
+// and graph is refused before parsing with a clear message, exit status 2
+// and nothing on standard output; input that fits only below the typical
+// cost runs with a warning (none under -q); input that fits runs
+// silently. A file of many tiny graphs is judged by its graphs, not only
+// its bytes.
 func TestMemoryGuard(t *testing.T) {
 	saved := availableMemory
 	defer func() { availableMemory = saved }()
-	src := "graph G { a -- b -- c -- a }\n" // 29 bytes
+	src := "graph G { a -- b -- c -- a }\n" // 29 bytes, one brace, one graph
+	least := 29*leastBytesPerByte + leastPerBrace + leastPerGraph
+	typical := 29*typicalBytesPerByte + typicalPerBrace + typicalPerGraph
+	tiny := strings.Repeat("graph{a--b}\n", 1000) // 12,000 bytes
 	for _, tc := range []struct {
 		name   string
+		src    string
 		avail  int64
 		args   []string
 		code   int
 		stderr string
 	}{
-		{"refused", 29*leastBytesPerByte - 1, nil, exitBadInput, "gridwood: <stdin>: not enough memory: laying out 29 bytes of DOT takes at least 1.1 kB (40 bytes per input byte), and 1.1 kB is available\n"},
-		{"warned", 29*typicalBytesPerByte - 1, nil, exitOK, "gridwood: <stdin>: laying out 29 bytes of DOT usually takes about 1.4 kB, and 1.4 kB is available: the run may fail for lack of memory\n"},
-		{"warned quietly", 29*typicalBytesPerByte - 1, []string{"-q"}, exitOK, ""},
-		{"fits", 1 << 30, nil, exitOK, ""},
+		{"refused", src, int64(least - 1), nil, exitBadInput, "gridwood: <stdin>: not enough memory: laying out 29 bytes of DOT in 1 braces takes at least 6.0 kB, and 6.0 kB is available\n"},
+		{"warned", src, int64(typical - 1), nil, exitOK, "gridwood: <stdin>: laying out 29 bytes of DOT usually takes about 7.9 kB, and 7.9 kB is available: the run may fail for lack of memory\n"},
+		{"warned quietly", src, int64(typical - 1), []string{"-q"}, exitOK, ""},
+		{"fits", src, 1 << 30, nil, exitOK, ""},
+		{"many tiny graphs refused", tiny, 5 << 20, nil, exitBadInput, "gridwood: <stdin>: not enough memory: laying out 11.7 kB of DOT in 1000 braces takes at least 5.2 MB, and 5.0 MB is available\n"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			availableMemory = func() (int64, bool) { return tc.avail, true }
-			code, out, errs := runCmd(t, src, tc.args...)
+			code, out, errs := runCmd(t, tc.src, tc.args...)
 			if code != tc.code || errs != tc.stderr {
 				t.Fatalf("exit %d, stderr %q; want %d, %q", code, errs, tc.code, tc.stderr)
 			}

@@ -352,7 +352,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	stdinUsed := false
 	outerUsed := false
 	memory := newMemoryGuard()
-	var readBytes int64
+	var read inputCost
 	warn := func(format string, args ...any) {
 		if !cfg.quiet {
 			prog.note(format, args...)
@@ -364,8 +364,8 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		if err != nil {
 			return err
 		}
-		readBytes += int64(len(src))
-		if err := memory.admit(name, readBytes, warn); err != nil {
+		read.add(costOf(src))
+		if err := memory.admit(name, read, warn); err != nil {
 			return err
 		}
 		readStart := time.Now()
