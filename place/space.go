@@ -48,6 +48,9 @@ type Placed struct {
 	Crowded int
 	// Convex counts the components drawn with every face convex.
 	Convex int
+	// Trees counts the components of three or more vertices that are
+	// trees, drawn in layers (see layeredTree) rather than on the grid.
+	Trees int
 }
 
 // Limits of the spacing rule.
@@ -155,6 +158,7 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 	}
 	px, py := make([]int64, n), make([]int64, n) // local numbering
 	tx, ty := make([]int64, n), make([]int64, n) // a second candidate
+	lx, ly := make([]int64, n), make([]int64, n) // a tree's layered drawing
 	stamp := make([]int32, n)
 	boxes := make([]Component, len(members))
 	var seen []bool
@@ -170,7 +174,7 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 		}
 		grid(unit)
 		if opt.Unit <= 0 {
-			r.spaceComponent(c, vs, edgesOf[c], unit, hw, hh, gap, opt.GridOnly, px, py, tx, ty, seen, stamp, out)
+			r.spaceComponent(c, vs, edgesOf[c], unit, hw, hh, gap, opt.GridOnly, px, py, tx, ty, lx, ly, seen, stamp, out)
 		}
 		// The component's box, node boxes included, moved to the origin.
 		minX, minY, maxX, maxY := int64(math.MaxInt64), int64(math.MaxInt64), int64(math.MinInt64), int64(math.MinInt64)
@@ -203,7 +207,36 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 // spaceComponent chooses and spaces one component's drawing. px, py hold
 // its grid drawing at the base unit on entry and the result on return; tx,
 // ty are scratch.
-func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, px, py, tx, ty []int64, seen []bool, stamp []int32, out *Placed) {
+func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, px, py, tx, ty, lx, ly []int64, seen []bool, stamp []int32, out *Placed) {
+	if gridOnly || len(vs) < 3 || len(edges) != len(vs)-1 || len(vs) > readableLimit {
+		r.spaceGrid(c, vs, edges, unit, hw, hh, gap, gridOnly, px, py, tx, ty, seen, stamp, out)
+		return
+	}
+	// A tree: its layered drawing, unless the grid's needs less area.
+	crowded, unchecked := spaceTree(vs, edges, hw, hh, gap, lx, ly, stamp)
+	var counts Placed
+	r.spaceGrid(c, vs, edges, unit, hw, hh, gap, false, px, py, tx, ty, seen, stamp, &counts)
+	if clearedArea(vs, lx, ly, 1, hw, hh) <= clearedArea(vs, px, py, 1, hw, hh) {
+		for _, v := range vs {
+			px[v], py[v] = lx[v], ly[v]
+		}
+		out.Trees++
+		if crowded {
+			out.Crowded++
+		}
+		if unchecked {
+			out.Unchecked++
+		}
+		return
+	}
+	out.Smoothed += counts.Smoothed
+	out.Unchecked += counts.Unchecked
+	out.Crowded += counts.Crowded
+}
+
+// spaceGrid spaces one component from its grid drawing, or from its
+// barycentric drawing where that reads better (see Space).
+func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, px, py, tx, ty []int64, seen []bool, stamp []int32, out *Placed) {
 	d := r.local
 	var gridRegion *outerRegion
 	if d.aug != nil && d.triOuter != nil && d.triOuter[c] >= 0 {
@@ -258,6 +291,64 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 		out.Crowded++
 	}
 	stretchComponent(d.aug, vs, region, px, py, stretch, tx, ty, seen)
+}
+
+// spaceTree draws a tree component in layers (see layeredTree) into x, y:
+// columns one box width plus the gap apart, layers one box height plus
+// twice the gap. Then the layers are pulled apart by the least factor
+// (found by doubling and halving) that keeps every edge off the boxes it
+// passes: only a shallow edge can pass a box, always one in a layer it
+// ends in, and taller layers make every edge steeper, so widening the
+// drawing never helps. Any such scaling keeps the drawing plane once
+// rounded: the proof needs only the order of the layers and of the
+// vertices within each.
+//
+// It reports how it ended: cleared, crowded (clearing would need more
+// than maxExtent points), or unchecked (the clearance check ran out of
+// work).
+func spaceTree(vs []int32, edges [][2]int32, hw, hh []int64, gap int64, x, y []int64, stamp []int32) (crowded, unchecked bool) {
+	var w, h int64
+	for _, v := range vs {
+		w, h = max(w, hw[v]), max(h, hh[v])
+	}
+	column := 2*w + gap
+	column += column & 1 // even: half columns are whole points
+	layer := max(1, 2*h+2*gap)
+	layeredTree(vs, edges, max(2, column), layer, x, y)
+	top := int64(0)
+	for _, v := range vs {
+		top = max(top, y[v])
+	}
+	depth := top / layer // layers below the root
+	clear := func(l int64) bool {
+		for _, v := range vs {
+			y[v] = y[v] / layer * l
+		}
+		layer = l
+		s, checked := neededStretch(vs, edges, x, y, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+		unchecked = !checked
+		return checked && s <= 1
+	}
+	lo, hi := layer, layer
+	for !clear(hi) {
+		if unchecked {
+			return false, true
+		}
+		lo, hi = hi, 2*hi
+		if hi*max(1, depth) > maxExtent {
+			return true, false // too tall to clear: the last try stands
+		}
+	}
+	for hi-lo > max(1, lo/64) { // within 1/64 of the least
+		mid := lo + (hi-lo)/2
+		if clear(mid) {
+			hi = mid
+		} else {
+			lo = mid
+		}
+	}
+	clear(hi)
+	return false, false
 }
 
 // stretchLimit is the largest stretch that keeps the component's extent,

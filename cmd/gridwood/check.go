@@ -30,6 +30,7 @@ const (
 	checkOnEdge                      // a node lies inside an edge it does not end at
 	checkSamePoint                   // two nodes at one point
 	checkBoxOverlap                  // two node boxes overlap with positive area
+	checkThroughBox                  // an edge passes through the box of a node it does not end at
 )
 
 // checkProblem is one line of checkFile's report.
@@ -65,14 +66,17 @@ const maxPosDecimals = 6
 //   - nodes lying inside an edge they do not end at;
 //   - pairs of nodes at one point;
 //   - pairs of node boxes overlapping with positive area (a pair already
-//     reported at one point is not reported again).
+//     reported at one point is not reported again);
+//   - edges passing through the box of a node they do not end at (a node
+//     already reported lying on that edge is not reported again).
 //
 // Edges are straight segments between node centres: edge pos (spline
 // points) and ports are ignored, the graph is taken as undirected, loops
-// are ignored and repeated edges count once. Boxes are the width x height
-// of each node (DOT's 0.75 x 0.5 inches when unset), centred on its pos;
-// DOT would enlarge a box to fit its label unless fixedsize is set, which
-// this check does not model.
+// are ignored and repeated edges count once. Boxes are the node boxes the
+// layout itself keeps clear (README, Spacing; nodeBoxes): the width x
+// height of each node (DOT's 0.75 x 0.5 inches when unset), grown to fit
+// its label unless fixedsize is set, centred on its pos; so a drawing
+// gridwood made passes unless its report counts it crowded or unchecked.
 //
 // The judgement is exact (package geomcheck): the coordinates of a graph
 // are scaled by 10^d, d the largest number of decimals any of its pos
@@ -148,6 +152,11 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 	pts := make([]geomcheck.Point, len(g.Nodes))
 	hw := make([]int64, len(g.Nodes))
 	hh := make([]int64, len(g.Nodes))
+	grown := nodeBoxes(g) // half sizes in whole points, labels included
+	unit := int64(1)
+	for range scale {
+		unit *= 10
+	}
 	limit := fmt.Sprintf("|x|, |y| <= %s", scaledLimit(scale))
 	for v, n := range g.Nodes {
 		if c := coords[v]; c.parsed {
@@ -172,6 +181,12 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 				add(checkBadSize, n.Line, n.Col, 0, 0, "node %s: %s %s %s", strconv.Quote(n.Name), s.name, strconv.Quote(s.attr), err)
 			}
 			*s.half = h
+		}
+		// A label the box is grown to fit (whole points, which the
+		// exact check needs in the scaled unit).
+		if !strings.EqualFold(strings.TrimSpace(n.Attrs.FixedSize), "true") {
+			hw[v] = max(hw[v], grown.HalfW[v]*unit)
+			hh[v] = max(hh[v], grown.HalfH[v]*unit)
 		}
 	}
 	if len(probs) > 0 {
@@ -214,6 +229,7 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 		return probs
 	}
 	samePoint := map[[2]int]bool{}
+	onEdge := map[[2]int]bool{} // node, pair
 	for _, p := range geo {
 		switch p.Kind {
 		case geomcheck.Crossing, geomcheck.Overlap:
@@ -231,6 +247,7 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 		case geomcheck.VertexOnEdge:
 			n := g.Nodes[p.A]
 			l2, c2 := edgePos(p.B)
+			onEdge[[2]int{p.A, p.B}] = true
 			add(checkOnEdge, n.Line, n.Col, l2, c2, "node %s lies on edge %s", nodeName(p.A), edgeName(p.B))
 		case geomcheck.SharedPoint:
 			a, b := g.Nodes[p.A], g.Nodes[p.B]
@@ -251,8 +268,25 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 		a, b := g.Nodes[pr[0]], g.Nodes[pr[1]]
 		add(checkBoxOverlap, a.Line, a.Col, b.Line, b.Col, "boxes of nodes %s and %s overlap", nodeName(pr[0]), nodeName(pr[1]))
 	}
+	through, err := geomcheck.EdgeThroughBox(pts, hw, hh, simple)
+	if err != nil {
+		add(checkRange, g.Line, g.Col, 0, 0, "%s: %v", graphName(g, index), err) // unreachable, as above
+		return probs
+	}
+	for _, pr := range through {
+		e := simple[pr[1]]
+		if onEdge[pr] || samePoint[ordered(pr[0], int(e[0]))] || samePoint[ordered(pr[0], int(e[1]))] {
+			continue // reported already: on the edge, or at one of its ends
+		}
+		l, c := edgePos(pr[1])
+		n := g.Nodes[pr[0]]
+		add(checkThroughBox, l, c, n.Line, n.Col, "edge %s passes through the box of node %s", edgeName(pr[1]), nodeName(pr[0]))
+	}
 	return probs
 }
+
+// ordered is the pair a, b, smaller first.
+func ordered(a, b int) [2]int { return [2]int{min(a, b), max(a, b)} }
 
 func sortCheckProblems(ps []checkProblem) {
 	slices.SortStableFunc(ps, func(p, q checkProblem) int {

@@ -31,6 +31,7 @@ type graphReport struct {
 	Components            int      `json:"components"`
 	BarycentricComponents int      `json:"barycentric_components"`
 	ConvexComponents      int      `json:"convex_components"`
+	TreeComponents        int      `json:"tree_components"`
 	UncheckedComponents   int      `json:"unchecked_components"`
 	CrowdedComponents     int      `json:"crowded_components"`
 	GridWidth             int64    `json:"grid_width"`
@@ -58,17 +59,17 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 		Graph: graphName(g, gi), Directed: g.Directed, Nodes: len(g.Nodes), Edges: len(g.Edges),
 		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
 		Method: method, Components: len(res.Components), BarycentricComponents: sp.Smoothed,
-		ConvexComponents: convexCount(res), UncheckedComponents: sp.Unchecked, CrowdedComponents: sp.Crowded,
+		ConvexComponents: convexCount(res), TreeComponents: sp.Trees, UncheckedComponents: sp.Unchecked, CrowdedComponents: sp.Crowded,
 		GridWidth: res.Width, GridHeight: res.Height, Unit: sp.Unit,
 		WidthPoints: sp.Width, HeightPoints: sp.Height,
 	}
 	if n := int64(len(g.Nodes)); n >= 3 {
 		r.AreaRatio = float64(res.Width*res.Height) / float64((n-2)*(n-2))
 	}
-	var full, compacted int64
+	var full, compacted int64 // grid area, width x height, as area_ratio
 	for _, c := range res.Components {
-		full += (c.FullW + 1) * (c.FullH + 1)
-		compacted += (c.W + 1) * (c.H + 1)
+		full += c.FullW * c.FullH
+		compacted += c.W * c.H
 	}
 	if full > 0 {
 		r.CompactionSaved = 1 - float64(compacted)/float64(full)

@@ -124,7 +124,7 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 	fs.IntVar(&cfg.effort, "effort", 0, "extra search for fewer set-aside edges: `N` seeded restarts and a larger exact\nsearch on small blocks; the result for a given N is always the same\nexample: --effort 8")
 	fs.IntVar(&cfg.maxExpansion, "max-expansion", dotio.DefaultMaxExpansion, "refuse input whose edge statements with subgraph operands ({a b} -- {c d})\nexpand to more than `N` edges; negative means no limit\nexample: --max-expansion 20000000")
 	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE` (set-aside\nedges dashed, underneath); open it in any browser\nexample: --svg preview.svg")
-	fs.BoolVar(&cfg.check, "check", false, "do not lay out: check the pos of every node already in the input and report,\none per line on standard output, crossing edges, nodes on edges they do not\nend at, and overlapping node boxes; exit status 1 if anything was found\nexample: gridwood --check drawn.dot")
+	fs.BoolVar(&cfg.check, "check", false, "do not lay out: check the pos of every node already in the input and report,\none per line on standard output, crossing edges, nodes on edges they do not\nend at, overlapping node boxes and edges through node boxes (boxes sized as\nthe layout sizes them, grown to fit labels); exit status 1 if anything was\nfound\nexample: gridwood --check drawn.dot")
 	method := fs.String("method", "schnyder", "drawing `METHOD`: schnyder (every planar graph, (n-2) x (n-2) grid per component,\nthen spaced and smoothed for reading) or convex (every face a convex polygon,\non the (f-1) x (f-1) grid, for 3-connected components; the others fall back\nto schnyder and standard error names them)\nexample: --method convex")
 	outer := fs.String("outer", "", "`NAMES` of nodes that must lie on the outer boundary of the drawing, comma\nseparated (as the names are written, without quotes); applies to every graph\nthat has all of them. Default: a largest face of the graph is the outside\nexample: --outer Refectory,Gym,Chapel")
 	fs.StringVar(&cfg.reportFile, "report", "", "write a JSON quality report to `FILE`: per graph its size, set-aside edges,\ngrid size, area, smallest angle, edge length ratio, node clearance and the\ntime of each stage (README, Quality report, explains the fields)\nexample: --report quality.json")
@@ -312,7 +312,9 @@ func versionString() string {
 		v = "(devel)"
 	}
 	for _, s := range bi.Settings {
-		if s.Key == "vcs.revision" && len(s.Value) >= 12 {
+		// A pseudo-version already ends in the revision; name it only
+		// when it does not.
+		if s.Key == "vcs.revision" && len(s.Value) >= 12 && !strings.HasSuffix(v, s.Value[:12]) {
 			v += " " + s.Value[:12]
 		}
 	}
