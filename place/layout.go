@@ -35,6 +35,9 @@ type Drawing struct {
 	triOuter     []int32 // the outer triangle of each Schnyder drawing, -1 if none
 	outer        []*outerRegion
 	fineX, fineY []int64
+	// convexAlt holds, per component (nil if none), a convex drawing to
+	// weigh against the Schnyder one: x and y in the order of members.
+	convexAlt [][2][]int64
 }
 
 // Component describes one connected component of a drawing.
@@ -181,6 +184,32 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 				extra -= 3*len(vs) - 6 - edgesIn[c]/2
 			}
 			full[c] = true // no augmentation
+		}
+	}
+	// For the picture (Options.Smooth), each 3-connected component of the
+	// default method also gets Felsner's convex drawing, which Space
+	// weighs against the Schnyder one: on triangulations it often needs
+	// far less room to clear the node boxes.
+	var convexAlt [][2][]int64
+	if opt.Smooth > 0 && opt.Method == Schnyder {
+		for c, vs := range members {
+			if len(vs) < 4 || len(vs) > readableLimit || chosen[c] < 0 {
+				continue
+			}
+			sub, oldDart := work.Restrict(vs)
+			outer := int32(-1)
+			for nd, od := range oldDart {
+				if od == chosen[c] {
+					outer = int32(nd)
+					break
+				}
+			}
+			if x, y, _, _, err := convexDrawing(sub, outer); err == nil {
+				if convexAlt == nil {
+					convexAlt = make([][2][]int64, len(members))
+				}
+				convexAlt[c] = [2][]int64{x, y}
+			}
 		}
 	}
 	skip := func(v int32) bool { return full[comp[v]] }
@@ -351,6 +380,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	d.members = members
 	if opt.Smooth > 0 {
 		d.aug = work
+		d.convexAlt = convexAlt
 	}
 	return d, nil
 }

@@ -46,7 +46,9 @@ type Placed struct {
 	// maxExtent to clear every box: stretched to that extent, some edge
 	// may still pass through a box.
 	Crowded int
-	// Convex counts the components drawn with every face convex.
+	// Convex counts the components of the Schnyder method drawn from their
+	// convex drawing instead, which needed less area (Method Convex's own
+	// are marked in Drawing.Components).
 	Convex int
 	// Trees counts the components of three or more vertices that are
 	// trees, drawn in layers (see layeredTree) rather than on the grid.
@@ -263,6 +265,7 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 		gridStretch, gridChecked = neededStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 	}
 	stretch, checked, region := gridStretch, gridChecked, gridRegion
+	smoothed := false
 	if bary {
 		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp, seen, newWorkMeter(len(edges)))
 		s2, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
@@ -279,8 +282,15 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 				px[v], py[v] = tx[v], ty[v]
 			}
 			stretch, checked, region = s2, true, d.outer[c]
-			out.Smoothed++
+			smoothed = true
 		}
+	}
+	if !gridOnly && d.convexAlt != nil && d.convexAlt[c][0] != nil && r.convexWins(c, vs, edges, unit, hw, hh, gap, px, py, tx, ty, stamp, stretch, checked) {
+		out.Convex++
+		return
+	}
+	if smoothed {
+		out.Smoothed++
 	}
 	if !checked {
 		out.Unchecked++
@@ -291,6 +301,31 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 		out.Crowded++
 	}
 	stretchComponent(d.aug, vs, region, px, py, stretch, tx, ty, seen)
+}
+
+// convexWins weighs component c's convex drawing (Drawing.convexAlt, at
+// the base unit, stretched by the least whole factor that clears the
+// boxes: a whole factor keeps every orientation) against the drawing in
+// px, py, which needs the given stretch (checked false: unknown). If the
+// convex one needs less area, it is written to px, py, stretched, and
+// convexWins reports true. tx, ty are scratch.
+func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, px, py, tx, ty []int64, stamp []int32, stretch float64, checked bool) bool {
+	alt := r.local.convexAlt[c]
+	for i, v := range vs {
+		tx[v], ty[v] = alt[0][i]*unit, alt[1][i]*unit
+	}
+	s, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+	if !ok || s > stretchLimit(vs, tx, ty, hw, hh) {
+		return false // unknown, or crowded: not a clear win
+	}
+	k := math.Ceil(s)
+	if checked && clearedArea(vs, tx, ty, k, hw, hh) >= clearedArea(vs, px, py, min(stretch, stretchLimit(vs, px, py, hw, hh)), hw, hh) {
+		return false
+	}
+	for _, v := range vs {
+		px[v], py[v] = tx[v]*int64(k), ty[v]*int64(k)
+	}
+	return true
 }
 
 // spaceTree draws a tree component in layers (see layeredTree) into x, y:
@@ -437,12 +472,24 @@ func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64
 	grid := newBucketGrid(vs, x, y, clearanceCell(vs, hw, hh, gap))
 	// Box pairs: only vertices in neighbouring cells can be that close.
 	nearVertexPairs(vs, grid, x, y, c.boxPair)
-	// Vertex-edge pairs alongside each other.
+	// Vertex-edge pairs alongside each other. Long edges can make walking
+	// their cells cost more than the meter allows; then every pair is
+	// tried instead, if there are few enough (a drawing is only called
+	// checked when every pair was).
 	if !nearPairs(vs, edges, x, y, grid, stamp, meter, c.edgePair) {
-		return 1, false
+		if int64(len(vs))*int64(len(edges)) > checkAllPairs {
+			return 1, false
+		}
+		c.s = 1
+		nearVertexPairs(vs, grid, x, y, c.boxPair)
+		allPairs(vs, edges, x, y, grid.cell, c.edgePair)
 	}
 	return c.s, true
 }
+
+// checkAllPairs is the most vertex-edge pairs neededStretch tries one by
+// one when walking the edges' cells ran out of work: about 200 ms.
+const checkAllPairs = 80_000_000
 
 // clearanceCell is the cell of the bucket grid the clearance passes use:
 // twice the largest grown half size of a box, so that everything that can
@@ -558,17 +605,7 @@ func nearPairs(vs []int32, edges [][2]int32, x, y []int64, grid *bucketGrid, sta
 		if !meter.spend(len(vs) * len(edges) / 8) {
 			return false
 		}
-		r := grid.cell // twice any reach: a safe margin around the edge
-		for _, e := range edges {
-			x0, x1 := min(x[e[0]], x[e[1]])-r, max(x[e[0]], x[e[1]])+r
-			y0, y1 := min(y[e[0]], y[e[1]])-r, max(y[e[0]], y[e[1]])+r
-			for _, w := range vs {
-				if x[w] < x0 || x[w] > x1 || y[w] < y0 || y[w] > y1 || w == e[0] || w == e[1] {
-					continue
-				}
-				fn(w, e)
-			}
-		}
+		allPairs(vs, edges, x, y, grid.cell, fn)
 		return true
 	}
 	for _, v := range vs {
@@ -600,6 +637,21 @@ func nearPairs(vs []int32, edges [][2]int32, x, y []int64, grid *bucketGrid, sta
 		}
 	}
 	return true
+}
+
+// allPairs calls fn for every vertex w and edge e not ending at w whose
+// bounding box, grown by r on every side, holds w.
+func allPairs(vs []int32, edges [][2]int32, x, y []int64, r int64, fn func(w int32, e [2]int32)) {
+	for _, e := range edges {
+		x0, x1 := min(x[e[0]], x[e[1]])-r, max(x[e[0]], x[e[1]])+r
+		y0, y1 := min(y[e[0]], y[e[1]])-r, max(y[e[0]], y[e[1]])+r
+		for _, w := range vs {
+			if x[w] < x0 || x[w] > x1 || y[w] < y0 || y[w] > y1 || w == e[0] || w == e[1] {
+				continue
+			}
+			fn(w, e)
+		}
+	}
 }
 
 // workMeter counts down the cell visits a component's spacing may make.
