@@ -105,7 +105,9 @@ func costOf(src []byte) inputCost {
 	return inputCost{int64(len(src)), int64(bytes.Count(src, []byte("{"))), int64(bytes.Count(src, []byte("graph")) + bytes.Count(src, []byte("GRAPH")))}
 }
 
-func (c *inputCost) add(d inputCost) { c.bytes, c.braces, c.graphs = c.bytes+d.bytes, c.braces+d.braces, c.graphs+d.graphs }
+func (c *inputCost) add(d inputCost) {
+	c.bytes, c.braces, c.graphs = c.bytes+d.bytes, c.braces+d.braces, c.graphs+d.graphs
+}
 
 // admit checks the inputs read so far (all of them, since their output is
 // kept until the end); note prints a warning.
