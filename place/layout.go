@@ -343,6 +343,25 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		}
 		coord = append(coord[:0], make([][3]int32, len(vs))...)
 		ww.barycentric(order, coord, index)
+		if opt.Smooth > 0 && opt.Method == Schnyder && len(vs) >= 4 && len(vs) <= readableLimit && (convexAlt == nil || convexAlt[c][0] == nil) {
+			// No convex drawing of the input's own faces (not
+			// 3-connected): Felsner's drawing of the triangulation, with
+			// the same outer triangle, is a candidate still; its face
+			// counts crowd far less than the vertex counts above.
+			sub, oldDart := work.Restrict(vs)
+			for nd, od := range oldDart {
+				if od != outer {
+					continue
+				}
+				if x, y, _, _, err := convexDrawing(sub, int32(nd)); err == nil {
+					if convexAlt == nil {
+						convexAlt = make([][2][]int64, len(members))
+					}
+					convexAlt[c] = [2][]int64{x, y}
+				}
+				break
+			}
+		}
 		// Tutte's drawing inside a triangle squeezes a big triangulation's
 		// interior exponentially; it is worth computing for a larger
 		// outer face, or for small components.

@@ -211,13 +211,13 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 // ty are scratch.
 func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, px, py, tx, ty, lx, ly []int64, seen []bool, stamp []int32, out *Placed) {
 	if gridOnly || len(vs) < 3 || len(edges) != len(vs)-1 || len(vs) > readableLimit {
-		r.spaceGrid(c, vs, edges, unit, hw, hh, gap, gridOnly, px, py, tx, ty, seen, stamp, out)
+		r.spaceGrid(c, vs, edges, unit, hw, hh, gap, gridOnly, px, py, tx, ty, lx, ly, seen, stamp, out)
 		return
 	}
 	// A tree: its layered drawing, unless the grid's needs less area.
-	crowded, unchecked := spaceTree(vs, edges, hw, hh, gap, lx, ly, stamp)
 	var counts Placed
-	r.spaceGrid(c, vs, edges, unit, hw, hh, gap, false, px, py, tx, ty, seen, stamp, &counts)
+	r.spaceGrid(c, vs, edges, unit, hw, hh, gap, false, px, py, tx, ty, lx, ly, seen, stamp, &counts)
+	crowded, unchecked := spaceTree(vs, edges, hw, hh, gap, lx, ly, stamp) // after: spaceGrid uses lx, ly
 	if clearedArea(vs, lx, ly, 1, hw, hh) <= clearedArea(vs, px, py, 1, hw, hh) {
 		for _, v := range vs {
 			px[v], py[v] = lx[v], ly[v]
@@ -234,11 +234,12 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 	out.Smoothed += counts.Smoothed
 	out.Unchecked += counts.Unchecked
 	out.Crowded += counts.Crowded
+	out.Convex += counts.Convex
 }
 
 // spaceGrid spaces one component from its grid drawing, or from its
 // barycentric drawing where that reads better (see Space).
-func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, px, py, tx, ty []int64, seen []bool, stamp []int32, out *Placed) {
+func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, px, py, tx, ty, lx, ly []int64, seen []bool, stamp []int32, out *Placed) {
 	d := r.local
 	var gridRegion *outerRegion
 	if d.aug != nil && d.triOuter != nil && d.triOuter[c] >= 0 {
@@ -285,7 +286,7 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 			smoothed = true
 		}
 	}
-	if !gridOnly && d.convexAlt != nil && d.convexAlt[c][0] != nil && r.convexWins(c, vs, edges, unit, hw, hh, gap, px, py, tx, ty, stamp, stretch, checked) {
+	if !gridOnly && d.convexAlt != nil && d.convexAlt[c][0] != nil && r.convexWins(c, vs, edges, unit, hw, hh, gap, gridRegion, px, py, tx, ty, lx, ly, seen, stamp, stretch, checked) {
 		out.Convex++
 		return
 	}
@@ -304,27 +305,40 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 }
 
 // convexWins weighs component c's convex drawing (Drawing.convexAlt, at
-// the base unit, stretched by the least whole factor that clears the
-// boxes: a whole factor keeps every orientation) against the drawing in
-// px, py, which needs the given stretch (checked false: unknown). If the
-// convex one needs less area, it is written to px, py, stretched, and
-// convexWins reports true. tx, ty are scratch.
-func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, px, py, tx, ty []int64, stamp []int32, stretch float64, checked bool) bool {
-	alt := r.local.convexAlt[c]
+// the base unit) against the drawing in px, py, which needs the given
+// stretch (checked false: unknown). The convex drawing is refined and
+// stretched as the grid one is when it is a plane drawing of the whole
+// triangulation with the grid's outer triangle (Felsner's drawing of the
+// triangulation), else stretched by the least whole factor that clears
+// the boxes, which keeps every orientation. If it then needs less area,
+// it is written to px, py and convexWins reports true. tx, ty, lx, ly are
+// scratch.
+func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, region *outerRegion, px, py, tx, ty, lx, ly []int64, seen []bool, stamp []int32, stretch float64, checked bool) bool {
+	d := r.local
+	alt := d.convexAlt[c]
 	for i, v := range vs {
 		tx[v], ty[v] = alt[0][i]*unit, alt[1][i]*unit
+	}
+	if region != nil && !planeDrawing(d.aug, vs, region, tx, ty, seen) {
+		region = nil
+	}
+	if region != nil {
+		refine(d.aug, vs, region, edges, tx, ty, hw, hh, gap, stamp, seen, newWorkMeter(len(edges)))
 	}
 	s, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 	if !ok || s > stretchLimit(vs, tx, ty, hw, hh) {
 		return false // unknown, or crowded: not a clear win
 	}
-	k := math.Ceil(s)
-	if checked && clearedArea(vs, tx, ty, k, hw, hh) >= clearedArea(vs, px, py, min(stretch, stretchLimit(vs, px, py, hw, hh)), hw, hh) {
+	if region == nil {
+		s = math.Ceil(s)
+	}
+	if checked && clearedArea(vs, tx, ty, s, hw, hh) >= clearedArea(vs, px, py, min(stretch, stretchLimit(vs, px, py, hw, hh)), hw, hh) {
 		return false
 	}
 	for _, v := range vs {
-		px[v], py[v] = tx[v]*int64(k), ty[v]*int64(k)
+		px[v], py[v] = tx[v], ty[v]
 	}
+	stretchComponent(d.aug, vs, region, px, py, s, lx, ly, seen)
 	return true
 }
 
