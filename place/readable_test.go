@@ -122,3 +122,45 @@ func TestSpacingRule(t *testing.T) {
 		}
 	}
 }
+
+// TestDrawingSizeBound checks that the candidates Space weighs keep
+// drawings of typical graphs within the face-count grid at the base unit:
+// at most (2n-4) base units across (Felsner 2001: f - 1 <= 2n - 5 grid
+// steps, plus a box), where the Schnyder grid alone, stretched to clear
+// the boxes, grows past a hundred times that on these graphs (README,
+// Spacing). Every drawing still passes geomcheck and clears every box.
+func TestDrawingSizeBound(t *testing.T) {
+	for _, g := range []graphgen.Graph{
+		graphgen.RandomMaximalPlanar(300, 1),
+		graphgen.RandomPlanar(300, 0.6, 1),
+		graphgen.NestedTriangles(100),
+		graphgen.RandomMaximalPlanar(1000, 2),
+	} {
+		res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		b := equalBoxes(g.N, 27, 18)
+		sp, err := res.Space(b, SpaceOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if limit := int64(2*g.N-4) * sp.Unit; sp.Width > limit || sp.Height > limit {
+			t.Errorf("%s: %d x %d points, more than %d across", g.Name, sp.Width, sp.Height, limit)
+		}
+		pts := make([]geomcheck.Point, g.N)
+		for v := range pts {
+			pts[v] = geomcheck.Point{X: sp.X[v], Y: sp.Y[v]}
+		}
+		kept := res.Kept()
+		if p, err := geomcheck.First(pts, kept, 1); err != nil || len(p) > 0 {
+			t.Fatalf("%s: drawing problems %v %v", g.Name, p, err)
+		}
+		if o, err := geomcheck.BoxOverlaps(pts, b.HalfW, b.HalfH); err != nil || len(o) > 0 {
+			t.Errorf("%s: %d box overlaps (%v)", g.Name, len(o), err)
+		}
+		if th, err := geomcheck.EdgeThroughBox(pts, b.HalfW, b.HalfH, kept); err != nil || len(th) > 0 || sp.Unchecked+sp.Crowded > 0 {
+			t.Errorf("%s: %d edges through boxes, unchecked %d, crowded %d (%v)", g.Name, len(th), sp.Unchecked, sp.Crowded, err)
+		}
+	}
+}

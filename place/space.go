@@ -300,8 +300,53 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 	if limit := stretchLimit(vs, px, py, hw, hh); stretch > limit {
 		stretch = limit
 		out.Crowded++
+	} else {
+		defer shrinkComponent(d.aug, vs, region, edges, px, py, hw, hh, gap, tx, ty, seen, stamp)
 	}
 	stretchComponent(d.aug, vs, region, px, py, stretch, tx, ty, seen)
+}
+
+// shrinkComponent scales a cleared component down by the least factor
+// (found by halving the interval from 1/4 to 1 four times) at which it
+// still rounds to a plane drawing of the triangulation and clears every
+// box: drawings that start on a base-unit grid are often roomier than
+// they need be (a face-count drawing has about two grid lines per node).
+// Without a region to check the rounding against it does nothing, and
+// past gridCompareLimit vertices neither: each try costs a clearance check.
+func shrinkComponent(aug *planarize.Embedding, vs []int32, region *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, tx, ty []int64, seen []bool, stamp []int32) {
+	if aug == nil || region == nil || len(vs) < 3 || len(vs) > gridCompareLimit {
+		return
+	}
+	fits := func(f float64) bool {
+		for _, v := range vs {
+			tx[v] = int64(math.Round(float64(float64(x[v]) * f)))
+			ty[v] = int64(math.Round(float64(float64(y[v]) * f)))
+		}
+		if !planeDrawing(aug, vs, region, tx, ty, seen) {
+			return false
+		}
+		// Only the bounded check: trying every pair at each step would
+		// cost more than the room is worth.
+		s, checked := stretchNeeded(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)), false)
+		return checked && s <= 1
+	}
+	lo, hi := 0.25, 1.0 // hi fits: the drawing as it is
+	if fits(lo) {
+		hi = lo
+	} else {
+		for range 4 {
+			if mid := (lo + hi) / 2; fits(mid) {
+				hi = mid
+			} else {
+				lo = mid
+			}
+		}
+	}
+	if hi < 1 && fits(hi) {
+		for _, v := range vs {
+			x[v], y[v] = tx[v], ty[v]
+		}
+	}
 }
 
 // convexWins weighs component c's convex drawing (Drawing.convexAlt, at
@@ -339,6 +384,7 @@ func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw,
 		px[v], py[v] = tx[v], ty[v]
 	}
 	stretchComponent(d.aug, vs, region, px, py, s, lx, ly, seen)
+	shrinkComponent(d.aug, vs, region, edges, px, py, hw, hh, gap, lx, ly, seen, stamp)
 	return true
 }
 
@@ -479,6 +525,12 @@ func stretchComponent(aug *planarize.Embedding, vs []int32, region *outerRegion,
 // strictly inside the edge). checked is false when the work bound stopped
 // the search (s is then 1).
 func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, meter *workMeter) (s float64, checked bool) {
+	return stretchNeeded(vs, edges, x, y, hw, hh, gap, stamp, meter, true)
+}
+
+// stretchNeeded is neededStretch; everyPair says whether it may fall back
+// to trying every pair when the meter runs out.
+func stretchNeeded(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, meter *workMeter, everyPair bool) (s float64, checked bool) {
 	if len(vs) < 2 {
 		return 1, true
 	}
@@ -491,7 +543,7 @@ func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64
 	// tried instead, if there are few enough (a drawing is only called
 	// checked when every pair was).
 	if !nearPairs(vs, edges, x, y, grid, stamp, meter, c.edgePair) {
-		if int64(len(vs))*int64(len(edges)) > checkAllPairs {
+		if !everyPair || int64(len(vs))*int64(len(edges)) > checkAllPairs {
 			return 1, false
 		}
 		c.s = 1
