@@ -35,9 +35,12 @@ type Drawing struct {
 	triOuter     []int32 // the outer triangle of each Schnyder drawing, -1 if none
 	outer        []*outerRegion
 	fineX, fineY []int64
-	// convexAlt holds, per component (nil if none), a convex drawing to
-	// weigh against the Schnyder one: x and y in the order of members.
+	// convexAlt holds, per component (nil if none), a face-count drawing
+	// to weigh against the Schnyder one: x and y in the order of members;
+	// convexOwn says it is of the component's own faces (3-connected:
+	// every face convex), not of its triangulation's.
 	convexAlt [][2][]int64
+	convexOwn []bool
 }
 
 // Component describes one connected component of a drawing.
@@ -191,6 +194,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	// weighs against the Schnyder one: on triangulations it often needs
 	// far less room to clear the node boxes.
 	var convexAlt [][2][]int64
+	convexOwn := make([]bool, len(members))
 	if opt.Smooth > 0 && opt.Method == Schnyder {
 		for c, vs := range members {
 			if len(vs) < 4 || len(vs) > readableLimit || chosen[c] < 0 {
@@ -208,7 +212,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 				if convexAlt == nil {
 					convexAlt = make([][2][]int64, len(members))
 				}
-				convexAlt[c] = [2][]int64{x, y}
+				convexAlt[c], convexOwn[c] = [2][]int64{x, y}, true
 			}
 		}
 	}
@@ -343,7 +347,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		}
 		coord = append(coord[:0], make([][3]int32, len(vs))...)
 		ww.barycentric(order, coord, index)
-		if opt.Smooth > 0 && opt.Method == Schnyder && len(vs) >= 4 && len(vs) <= readableLimit && (convexAlt == nil || convexAlt[c][0] == nil) {
+		if opt.Smooth > 0 && len(vs) >= 4 && len(vs) <= readableLimit && (convexAlt == nil || convexAlt[c][0] == nil) {
 			// No convex drawing of the input's own faces (not
 			// 3-connected): Felsner's drawing of the triangulation, with
 			// the same outer triangle, is a candidate still; its face
@@ -399,7 +403,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	d.members = members
 	if opt.Smooth > 0 {
 		d.aug = work
-		d.convexAlt = convexAlt
+		d.convexAlt, d.convexOwn = convexAlt, convexOwn
 	}
 	return d, nil
 }

@@ -48,8 +48,10 @@ type Placed struct {
 	Crowded int
 	// Convex counts the components of the Schnyder method drawn from their
 	// convex drawing instead, which needed less area (Method Convex's own
-	// are marked in Drawing.Components).
-	Convex int
+	// are marked in Drawing.Components); FaceCounts those drawn from
+	// Felsner's face-count drawing of their triangulation (not
+	// 3-connected, so their own faces need not be convex).
+	Convex, FaceCounts int
 	// Trees counts the components of three or more vertices that are
 	// trees, drawn in layers (see layeredTree) rather than on the grid.
 	Trees int
@@ -235,6 +237,7 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 	out.Unchecked += counts.Unchecked
 	out.Crowded += counts.Crowded
 	out.Convex += counts.Convex
+	out.FaceCounts += counts.FaceCounts
 }
 
 // spaceGrid spaces one component from its grid drawing, or from its
@@ -287,7 +290,11 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 		}
 	}
 	if !gridOnly && d.convexAlt != nil && d.convexAlt[c][0] != nil && r.convexWins(c, vs, edges, unit, hw, hh, gap, gridRegion, px, py, tx, ty, lx, ly, seen, stamp, stretch, checked) {
-		out.Convex++
+		if d.convexOwn[c] {
+			out.Convex++
+		} else {
+			out.FaceCounts++
+		}
 		return
 	}
 	if smoothed {

@@ -1,6 +1,8 @@
 // Command quality lays out a fixed corpus (the shipped examples and seeded
 // generated graphs) with each drawing method and prints the quality figures
-// as a Markdown table, for README.md:
+// as a Markdown table, for README.md ("barycentric", "convex", "face
+// counts" and "layered tree" name the drawings some components were taken
+// from; see README, Spacing):
 //
 //	go build -o /tmp/gridwood ./cmd/gridwood
 //	go run ./bench/quality /tmp/gridwood
@@ -28,6 +30,8 @@ type report struct {
 			Components      int      `json:"components"`
 			Bary            int      `json:"barycentric_components"`
 			Convex          int      `json:"convex_components"`
+			Trees           int      `json:"tree_components"`
+			FaceCounts      int      `json:"face_count_components"`
 			AreaRatio       float64  `json:"area_ratio"`
 			CompactionSaved float64  `json:"compaction_saved"`
 			W               int64    `json:"width_pt"`
@@ -102,6 +106,10 @@ func main() {
 				switch {
 				case g.Convex > 0:
 					method += fmt.Sprintf(" (%d of %d convex)", g.Convex, g.Components)
+				case g.Trees > 0:
+					method += " (layered tree)"
+				case g.FaceCounts > 0:
+					method += fmt.Sprintf(" (%d of %d by face counts)", g.FaceCounts, g.Components)
 				case m.name == "convex":
 					method += " (fell back)"
 				case g.Bary > 0:

@@ -49,6 +49,7 @@ type graphRecord struct {
 	BarycentricComponents int                `json:"barycentric_components"`
 	ConvexComponents      int                `json:"convex_components"`
 	TreeComponents        int                `json:"tree_components"`
+	FaceCountComponents   int                `json:"face_count_components"`
 	GridWidth             int64              `json:"grid_width"`
 	GridHeight            int64              `json:"grid_height"`
 	AreaRatio             float64            `json:"area_ratio"`
@@ -460,8 +461,8 @@ func checkRecord(t *testing.T, rec graphRecord, out *ast.Graph, d drawn, unitFla
 	if rec.Components != ncomp || rec.BarycentricComponents < 0 || rec.ConvexComponents != 0 || rec.BarycentricComponents > ncomp {
 		t.Errorf("%s: components %d (barycentric %d, convex %d), output has %d", id, rec.Components, rec.BarycentricComponents, rec.ConvexComponents, ncomp)
 	}
-	if rec.TreeComponents < 0 || rec.TreeComponents+rec.BarycentricComponents > ncomp || unitFlag > 0 && rec.TreeComponents != 0 {
-		t.Errorf("%s: tree_components %d (barycentric %d) of %d components, --unit %d", id, rec.TreeComponents, rec.BarycentricComponents, ncomp, unitFlag)
+	if rec.TreeComponents < 0 || rec.FaceCountComponents < 0 || rec.TreeComponents+rec.BarycentricComponents+rec.FaceCountComponents > ncomp || unitFlag > 0 && rec.TreeComponents+rec.FaceCountComponents != 0 {
+		t.Errorf("%s: tree_components %d, face_count_components %d (barycentric %d) of %d components, --unit %d", id, rec.TreeComponents, rec.FaceCountComponents, rec.BarycentricComponents, ncomp, unitFlag)
 	}
 	if unitFlag > 0 && rec.BarycentricComponents != 0 {
 		t.Errorf("%s: --unit skips the barycentric drawing (README, Spacing), but barycentric_components %d", id, rec.BarycentricComponents)
