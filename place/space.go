@@ -313,47 +313,66 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 	stretchComponent(d.aug, vs, region, px, py, stretch, tx, ty, seen)
 }
 
-// shrinkComponent scales a cleared component down by the least factor
-// (found by halving the interval from 1/4 to 1 four times) at which it
-// still rounds to a plane drawing of the triangulation and clears every
-// box: drawings that start on a base-unit grid are often roomier than
-// they need be (a face-count drawing has about two grid lines per node).
+// shrinkComponent scales a cleared component down as far as it stays
+// clear, to no less than a quarter: drawings that start on a base-unit
+// grid are often roomier than they need be (a face-count drawing has
+// about two grid lines per node). Every ratio of need to distance scales
+// with the drawing, so one pass over the pairs that a quarter-size drawing
+// could bring near (shrinkNeed) gives the factor; the result is then
+// checked exactly to round to a plane drawing of the triangulation that
+// clears every box, a little above the factor if rounding needs it.
 // Without a region to check the rounding against it does nothing, and
-// past gridCompareLimit vertices neither: each try costs a clearance check.
+// past gridCompareLimit vertices neither.
 func shrinkComponent(aug *planarize.Embedding, vs []int32, region *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, tx, ty []int64, seen []bool, stamp []int32) {
 	if aug == nil || region == nil || len(vs) < 3 || len(vs) > gridCompareLimit {
 		return
 	}
-	fits := func(f float64) bool {
+	f, ok := shrinkNeed(vs, edges, x, y, hw, hh, gap, stamp)
+	if !ok || f >= 1 {
+		return
+	}
+	for _, try := range []float64{max(f*1.01, 0.25), max(f*1.1, 0.25)} {
+		if try >= 1 {
+			return
+		}
 		for _, v := range vs {
-			tx[v] = int64(math.Round(float64(float64(x[v]) * f)))
-			ty[v] = int64(math.Round(float64(float64(y[v]) * f)))
+			tx[v] = int64(math.Round(float64(float64(x[v]) * try)))
+			ty[v] = int64(math.Round(float64(float64(y[v]) * try)))
 		}
 		if !planeDrawing(aug, vs, region, tx, ty, seen) {
-			return false
+			continue
 		}
-		// Only the bounded check: trying every pair at each step would
-		// cost more than the room is worth.
-		s, checked := stretchNeeded(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)), false)
-		return checked && s <= 1
-	}
-	lo, hi := 0.25, 1.0 // hi fits: the drawing as it is
-	if fits(lo) {
-		hi = lo
-	} else {
-		for range 4 {
-			if mid := (lo + hi) / 2; fits(mid) {
-				hi = mid
-			} else {
-				lo = mid
+		if s, checked := stretchNeeded(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)), false); checked && s <= 1 {
+			for _, v := range vs {
+				x[v], y[v] = tx[v], ty[v]
 			}
+			return
 		}
 	}
-	if hi < 1 && fits(hi) {
-		for _, v := range vs {
-			x[v], y[v] = tx[v], ty[v]
+}
+
+// shrinkNeed is the least factor, down to a quarter, by which the
+// component's drawing can be scaled and still clear every box: the largest
+// ratio of need to distance over the pairs within reach of a drawing a
+// quarter the size (a bucket grid of four times the cell). ok is false
+// when the work bound stopped it.
+func shrinkNeed(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32) (f float64, ok bool) {
+	c := clearance{x: x, y: y, hw: hw, hh: hh, gap: gap, s: 0.25}
+	grid := newBucketGrid(vs, x, y, 4*clearanceCell(vs, hw, hh, gap))
+	nearVertexPairs(vs, grid, x, y, func(u, w int32) {
+		dx, dy := abs64(x[u]-x[w]), abs64(y[u]-y[w])
+		needX, needY := hw[u]+hw[w]+gap, hh[u]+hh[w]+gap
+		r := math.Inf(1) // scaled by less, they overlap
+		if dx > 0 {
+			r = float64(needX) / float64(dx)
 		}
-	}
+		if dy > 0 {
+			r = min(r, float64(needY)/float64(dy))
+		}
+		c.s = max(c.s, r)
+	})
+	ok = nearPairs(vs, edges, x, y, grid, stamp, newWorkMeter(len(edges)), c.edgePair)
+	return c.s, ok
 }
 
 // convexWins weighs component c's convex drawing (Drawing.convexAlt, at
@@ -674,17 +693,32 @@ const bruteForcePairs = 100_000
 // those met walking each edge's cells. It reports false when the meter ran
 // out first.
 func nearPairs(vs []int32, edges [][2]int32, x, y []int64, grid *bucketGrid, stamp []int32, meter *workMeter, fn func(w int32, e [2]int32)) bool {
-	if int64(len(vs))*int64(len(edges)) <= bruteForcePairs {
+	pairs := int64(len(vs)) * int64(len(edges))
+	if pairs <= bruteForcePairs {
 		if !meter.spend(len(vs) * len(edges) / 8) {
 			return false
 		}
 		allPairs(vs, edges, x, y, grid.cell, fn)
 		return true
 	}
+	// Walking costs about 9 cell visits per cell an edge crosses; on a
+	// sparse drawing with long edges trying every pair is cheaper.
+	cell := grid.cell
+	walk := int64(0)
+	for _, e := range edges {
+		ex, ey := x[e[1]]-x[e[0]], y[e[1]]-y[e[0]]
+		walk += 9 * (int64(math.Sqrt(float64(float64(ex)*float64(ex))+float64(float64(ey)*float64(ey))))/cell + 2)
+	}
+	if pairs <= checkAllPairs && pairs/8 < walk {
+		if !meter.spend(int(pairs / 8)) {
+			return false
+		}
+		allPairs(vs, edges, x, y, cell, fn)
+		return true
+	}
 	for _, v := range vs {
 		stamp[v] = -1
 	}
-	cell := grid.cell
 	for ei, e := range edges {
 		u, v := e[0], e[1]
 		ex, ey := x[v]-x[u], y[v]-y[u]
