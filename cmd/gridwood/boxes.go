@@ -52,10 +52,20 @@ func nodeBoxes(g *dotio.Graph) place.Boxes {
 }
 
 func attrInches(s string, def float64) float64 {
-	if v, err := strconv.ParseFloat(strings.TrimSpace(s), 64); err == nil && v >= 0 && v < 1000 {
+	if sizeTaken(s) {
+		v, _ := strconv.ParseFloat(strings.TrimSpace(s), 64)
 		return v
 	}
 	return def
+}
+
+// sizeTaken reports whether a width, height or fontsize value is used as
+// given: a number from 0 up to, not including, 1000 (inches or points). The
+// others fall back to the default (and the command says so, warnSizes):
+// bigger ones would make absurd drawings.
+func sizeTaken(s string) bool {
+	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
+	return err == nil && v >= 0 && v < 1000
 }
 
 // labelSize estimates the label's text extent in points, from the same
@@ -63,8 +73,10 @@ func attrInches(s string, def float64) float64 {
 // resolved).
 func labelSize(n dotio.Node, g *dotio.Graph) (float64, float64) {
 	font := defaultFont
-	if v, err := strconv.ParseFloat(strings.TrimSpace(n.Attrs.FontSize), 64); err == nil && v > 0 && v < 1000 {
-		font = v
+	if sizeTaken(n.Attrs.FontSize) {
+		if v, _ := strconv.ParseFloat(strings.TrimSpace(n.Attrs.FontSize), 64); v > 0 {
+			font = v
+		}
 	}
 	lines := nodeLabel(n, g)
 	widest := 0

@@ -426,6 +426,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		}
 		if !cfg.quiet {
 			warnPinned(prog, name, f)
+			warnSizes(prog, name, f)
 		}
 		opt := dotio.WriteOptions{DropRemoved: cfg.dropRemoved, MarkRemoved: cfg.markRemoved}
 		prog.set("writing "+name, pct(ii, 0.9))
@@ -660,6 +661,32 @@ func warnPinned(p *progress, name string, f *dotio.File) {
 		}
 		if pinned > 0 {
 			p.note("gridwood: %s:%d:%d: %s: %d pinned positions (pos=\"...!\") replaced by the layout\n", name, g.Line, g.Col, graphName(g, gi), pinned)
+		}
+	}
+}
+
+// warnSizes names, one line per graph at its first such node, the node
+// sizes the box rule does not take (see attrInches): not silently dropped.
+func warnSizes(p *progress, name string, f *dotio.File) {
+	for gi, g := range f.Graphs {
+		count, first, what := 0, -1, ""
+		for v, n := range g.Nodes {
+			for _, a := range [...]struct{ attr, name string }{{n.Attrs.Width, "width"}, {n.Attrs.Height, "height"}, {n.Attrs.FontSize, "fontsize"}} {
+				if val := strings.TrimSpace(a.attr); val != "" && !sizeTaken(val) {
+					if count == 0 {
+						first, what = v, fmt.Sprintf("%s %s", a.name, strconv.Quote(val))
+					}
+					count++
+				}
+			}
+		}
+		if count > 0 {
+			n := g.Nodes[first]
+			more := ""
+			if count > 1 {
+				more = fmt.Sprintf(" (and %d more sizes in %s)", count-1, graphName(g, gi))
+			}
+			p.note("gridwood: %s:%d:%d: node %s: %s is not a size below 1000 and was taken as the default%s\n", name, n.Line, n.Col, strconv.Quote(n.Name), what, more)
 		}
 	}
 }

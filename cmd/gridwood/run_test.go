@@ -190,6 +190,8 @@ func TestExitStatusesAndMessages(t *testing.T) {
 		{"non-planar reported", k5, nil, exitOK, `graph "K5": 1 of 10 edges set aside`},
 		{"quiet", k5, []string{"-q"}, exitOK, ""},
 		{"missing file", "", []string{"/no/such/file.dot"}, exitBadInput, "no such file"},
+		{"size not taken", "graph G { a [width=1000]; a -- b }", nil, exitOK, `<stdin>:1:11: node "a": width "1000" is not a size below 1000 and was taken as the default` + "\n"},
+		{"size not taken, quiet", "graph G { a [width=1000]; a -- b }", []string{"-q"}, exitOK, ""},
 		{"max expansion 0", "graph{}", []string{"--max-expansion", "0"}, exitBadInput, "--max-expansion 0: want a positive number"},
 		{"two outputs one file", "graph{}", []string{"-o", "x.dot", "--removed", "./x.dot"}, exitBadInput, "-o and --removed both name ./x.dot"},
 		{"output is an input", "", []string{"--svg", "in.dot", "./in.dot"}, exitBadInput, "--svg in.dot is also an input file"},
