@@ -49,7 +49,7 @@ func mustRead(t testing.TB, src string) *File {
 }
 
 // The expected semantics follow the DOT conventions listed in
-// shared/REFERENCES.md ("DOT conventions", from memory of the language
+// SOURCES.md ("DOT conventions", from memory of the language
 // documentation): first mention creates a node, 1 and "1" are one node,
 // a subgraph operand stands for all nodes mentioned in it.
 func TestReadSemantics(t *testing.T) {

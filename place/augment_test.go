@@ -155,7 +155,7 @@ func (a *augmentCheck) checkBiconnected(t *testing.T, work *planarize.Embedding)
 }
 
 // checkTriangulated checks the end result: 3n-6 edges per component with
-// n >= 3 (Euler's bound met exactly, REFERENCES), every face a triangle,
+// n >= 3 (Euler's bound met exactly, SOURCES.md), every face a triangle,
 // V - E + F = 2 per component (Euler).
 func (a *augmentCheck) checkTriangulated(t *testing.T, work *planarize.Embedding) {
 	t.Helper()

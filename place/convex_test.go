@@ -407,7 +407,7 @@ func cvxFamilies() []graphgen.Graph {
 
 func TestConvexPlatonic(t *testing.T) {
 	// (V, E, F) of the Platonic solids: handbook values
-	// (graphgen.PlatonicSolids, REFERENCES.md).
+	// (graphgen.PlatonicSolids, SOURCES.md).
 	for _, tc := range graphgen.PlatonicSolids() {
 		emb := mustEmbed(t, tc.Graph)
 		if emb.N() != tc.V || emb.M() != tc.E || emb.Faces() != tc.F {

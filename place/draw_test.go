@@ -131,7 +131,7 @@ func checkDraw(t *testing.T, c drawCase) *Result {
 		return r
 	}
 	// Maximality: adding back any removed pair makes Kept() non-planar
-	// (the definition of a maximal planar subgraph, REFERENCES: Cai, Han
+	// (the definition of a maximal planar subgraph, SOURCES.md: Cai, Han
 	// and Tarjan 1993). Pairs are taken in PairList order.
 	var removedPairs [][2]int32
 	for _, p := range pairs {
@@ -145,7 +145,7 @@ func checkDraw(t *testing.T, c drawCase) *Result {
 		}
 	}
 	// Counting bounds. Euler: a simple planar graph on n >= 3 vertices has
-	// at most 3n-6 edges (REFERENCES), so at least len(pairs)-(3n-6) go.
+	// at most 3n-6 edges (SOURCES.md), so at least len(pairs)-(3n-6) go.
 	if c.n >= 3 && r.RemovedPairs < len(pairs)-(3*c.n-6) {
 		t.Errorf("%s: %d pairs removed, Euler needs at least %d", c.name, r.RemovedPairs, len(pairs)-(3*c.n-6))
 	}
@@ -153,7 +153,7 @@ func checkDraw(t *testing.T, c drawCase) *Result {
 		t.Errorf("%s: LowerBound %d, RemovedPairs %d", c.name, r.LowerBound, r.RemovedPairs)
 	}
 	if c.skew >= 0 {
-		// Known skewness (REFERENCES: K_n, K_{m,n}, Petersen).
+		// Known skewness (SOURCES.md: K_n, K_{m,n}, Petersen).
 		if r.RemovedPairs < c.skew || r.LowerBound > c.skew {
 			t.Errorf("%s: RemovedPairs %d, LowerBound %d, but the skewness is %d", c.name, r.RemovedPairs, r.LowerBound, c.skew)
 		}
@@ -347,8 +347,8 @@ func TestDrawMultigraphsPlanar(t *testing.T) {
 
 // TestDrawNonPlanar draws non-planar multigraphs.
 func TestDrawNonPlanar(t *testing.T) {
-	kn := func(n int) int { return n*(n-1)/2 - (3*n - 6) } // REFERENCES: skewness of K_n
-	kmn := func(m, n int) int { return m*n - 2*(m+n) + 4 } // REFERENCES: skewness of K_{m,n}
+	kn := func(n int) int { return n*(n-1)/2 - (3*n - 6) } // SOURCES.md: skewness of K_n
+	kmn := func(m, n int) int { return m*n - 2*(m+n) + 4 } // SOURCES.md: skewness of K_{m,n}
 	var cases []drawCase
 	add := func(g graphgen.Graph, skew int, seed uint64, explain int) {
 		cases = append(cases, drawCase{name: g.Name, n: g.N, raw: g.Edges, skew: skew, explain: explain})
@@ -360,7 +360,7 @@ func TestDrawNonPlanar(t *testing.T) {
 	for _, mn := range [][2]int{{3, 3}, {3, 4}, {4, 4}, {3, 7}, {5, 5}} {
 		add(graphgen.CompleteBipartite(mn[0], mn[1]), kmn(mn[0], mn[1]), uint64(mn[0]*10+mn[1]), 10)
 	}
-	add(graphgen.Petersen(), 2, 1, 10) // REFERENCES: skewness of Petersen is 2
+	add(graphgen.Petersen(), 2, 1, 10) // SOURCES.md: skewness of Petersen is 2
 	add(graphgen.Relabel(graphgen.Petersen(), 4), 2, 2, 10)
 	for i, nm := range [][2]int{{8, 20}, {12, 40}, {30, 100}, {60, 250}, {200, 700}, {500, 2000}} {
 		add(graphgen.RandomGnm(nm[0], nm[1], uint64(50+i)), -1, uint64(60+i), 6)
@@ -397,7 +397,7 @@ func TestDrawPlanarPlusExtraBound(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		// Euler: at most 3n-6 of the 3n-6+extra pairs stay (REFERENCES).
+		// Euler: at most 3n-6 of the 3n-6+extra pairs stay (SOURCES.md).
 		if r.RemovedPairs < ne[1] || r.LowerBound > r.RemovedPairs {
 			t.Errorf("%s: RemovedPairs %d, LowerBound %d; Euler needs >= %d", g.Name, r.RemovedPairs, r.LowerBound, ne[1])
 		}

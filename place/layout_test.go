@@ -302,7 +302,7 @@ func countFaces(emb *planarize.Embedding, label []int, comps int) []int {
 }
 
 // checkEuler checks Euler's formula V - E + F = 2 for every component of
-// emb with at least one edge (REFERENCES: Euler), counting faces by walking
+// emb with at least one edge (SOURCES.md: Euler), counting faces by walking
 // them; an isolated vertex has no darts.
 func checkEuler(tb testing.TB, name string, emb *planarize.Embedding) {
 	tb.Helper()

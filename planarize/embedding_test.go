@@ -22,7 +22,7 @@ func faceOf(emb *Embedding, d int32) []int32 {
 
 // TestAddEdgeByHand builds a quadrilateral with a diagonal dart by dart.
 // Expected face counts follow from Euler's formula F = E - V + 2 for a
-// connected plane graph (REFERENCES.md): a tree has 1 face, a 4-cycle 2, and
+// connected plane graph (SOURCES.md): a tree has 1 face, a 4-cycle 2, and
 // a 4-cycle with a diagonal 3.
 func TestAddEdgeByHand(t *testing.T) {
 	emb := NewEmbedding(4)

@@ -232,7 +232,7 @@ func TestWagnerBruteForceKnownGraphs(t *testing.T) {
 // comes with a valid rotation system (every dart of a vertex in one cycle
 // of Next, Prev its inverse) whose faces satisfy Euler's formula
 // V - E + F = 1 + C counted per component, i.e. Faces() = 2C - V + E
-// (REFERENCES.md); the faces are traced here independently of Faces().
+// (SOURCES.md); the faces are traced here independently of Faces().
 func FuzzEmbed(f *testing.F) {
 	f.Add([]byte{5, 0, 1, 0, 2, 0, 3, 0, 4, 1, 2, 1, 3, 1, 4, 2, 3, 2, 4, 3, 4})             // K5
 	f.Add([]byte{6, 0, 3, 0, 4, 0, 5, 1, 3, 1, 4, 1, 5, 2, 3, 2, 4, 2, 5})                   // K3,3

@@ -250,7 +250,7 @@ func countPlanar(n, workers int) planarityCount {
 // graphs on n vertices.
 func TestPlanarCountsOEIS(t *testing.T) {
 	// OEIS A066537, number of labelled planar graphs on n nodes (also listed
-	// in REFERENCES.md, confirmed there for n = 5..7 with an outside library).
+	// in SOURCES.md, confirmed there for n = 5..7 with an outside library).
 	want := []int{1: 1, 2: 2, 3: 8, 4: 64, 5: 1023, 6: 32071, 7: 1823707}
 	for n := 1; n <= 7; n++ {
 		t.Run(fmt.Sprintf("n=%d", n), func(t *testing.T) {
@@ -297,7 +297,7 @@ func TestKuratowskiGraphs(t *testing.T) {
 	// non-planar (deleting any edge leaves a planar graph; common practice:
 	// an edge-minimal non-planar graph is exactly a subdivision of one of
 	// them). Petersen graph: girth 5, 15 edges > 5(n-2)/3 = 13.3, so Euler's
-	// bound for girth 5 (REFERENCES.md) rules out planarity.
+	// bound for girth 5 (SOURCES.md) rules out planarity.
 	tests := []testCase{
 		{"K5", graphgen.Complete(5), false},
 		{"K3,3", graphgen.CompleteBipartite(3, 3), false},
@@ -363,7 +363,7 @@ func TestDenseNotPlanar(t *testing.T) {
 			t.Errorf("%s: left-right core says planar, but %s", g.Name, why)
 		}
 	}
-	// Euler (REFERENCES.md): a simple planar graph on n >= 3 vertices has
+	// Euler (SOURCES.md): a simple planar graph on n >= 3 vertices has
 	// at most 3n-6 edges. For n = 3, 4 that is already every pair, so the
 	// random graphs start at n = 5.
 	for n := 5; n <= 40; n++ {
@@ -376,7 +376,7 @@ func TestDenseNotPlanar(t *testing.T) {
 	check(graphgen.Complete(5), "K5 has 10 > 9 edges")
 	check(graphgen.Complete(12), "K12 has 66 > 30 edges")
 	check(graphgen.PlanarPlusExtra(500, 1, 4), "it has 3n-5 edges")
-	// Euler (REFERENCES.md): a triangle-free planar graph has at most 2n-4
+	// Euler (SOURCES.md): a triangle-free planar graph has at most 2n-4
 	// edges. Bipartite graphs are triangle-free and stay below the 3n-6
 	// shortcut, so only the core can reject them.
 	for a := 3; a <= 12; a++ {
@@ -396,7 +396,7 @@ func TestDenseNotPlanar(t *testing.T) {
 // TestPlatonicSolids checks the skeletons of the five Platonic solids.
 func TestPlatonicSolids(t *testing.T) {
 	// (V, E, F) of the Platonic solids, handbook values
-	// (graphgen.PlatonicSolids, REFERENCES.md); V - E + F = 2 (Euler).
+	// (graphgen.PlatonicSolids, SOURCES.md); V - E + F = 2 (Euler).
 	for _, tt := range graphgen.PlatonicSolids() {
 		if tt.N != tt.V || len(tt.Edges) != tt.E {
 			t.Errorf("%s: generator gives V=%d E=%d, handbook %d and %d", tt.Name, tt.N, len(tt.Edges), tt.V, tt.E)
@@ -494,7 +494,7 @@ func TestPlanarFamilies(t *testing.T) {
 }
 
 // TestPlanarPlusExtraNotPlanar checks triangulations with extra edges: by
-// Euler's bound 3n-6 (REFERENCES.md; graphgen documents that
+// Euler's bound 3n-6 (SOURCES.md; graphgen documents that
 // PlanarPlusExtra exceeds it), none is planar.
 func TestPlanarPlusExtraNotPlanar(t *testing.T) {
 	var l lr

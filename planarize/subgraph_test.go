@@ -150,7 +150,7 @@ func TestSubgraphCheckerRejects(t *testing.T) {
 }
 
 // TestMaximalPlanarSkewness checks families with a known skewness
-// (REFERENCES.md, "Skewness"): K_n keeps a triangulation, 3n-6 edges (the
+// (SOURCES.md, "Skewness"): K_n keeps a triangulation, 3n-6 edges (the
 // Euler bound, reached since K_n contains a triangulation); K_{m,n} keeps
 // 2(m+n)-4 edges (the bipartite Euler bound, reached), so it is planar for
 // m or n = 2; the Petersen graph loses 2 (girth 5 allows 13 of 15 edges).
@@ -255,7 +255,7 @@ func TestMaximalPlanarRandom(t *testing.T) {
 			t.Errorf("%s: %v", g.Name, err)
 			continue
 		}
-		// Euler (REFERENCES.md): at most 3n-6 edges can stay.
+		// Euler (SOURCES.md): at most 3n-6 edges can stay.
 		if need := len(g.Edges) - (3*g.N - 6); len(res.Removed) < need {
 			t.Errorf("%s: %d removed, Euler needs at least %d", g.Name, len(res.Removed), need)
 		}
@@ -268,7 +268,7 @@ func TestMaximalPlanarRandom(t *testing.T) {
 // maximal, on K_n it must be the skewness n(n-1)/2 - (3n-6) (the Euler
 // bound, reached by any triangulation), and on K_{m,n} it must be
 // mn - 2(m+n) + 4 (the bound for triangle-free planar graphs, reached by a
-// quadrangulation; REFERENCES.md gives both formulas).
+// quadrangulation; SOURCES.md gives both formulas).
 func TestMaximalPlanarDense(t *testing.T) {
 	for _, tc := range []struct {
 		g     graphgen.Graph

@@ -14,7 +14,7 @@ import (
 
 // randomNonPlanarDOT writes G(n, m) (m distinct pairs drawn uniformly) as
 // DOT with attributes, a subgraph and a repeated edge; for m > 3n - 6 it
-// is not planar (Euler's bound, REFERENCES.md).
+// is not planar (Euler's bound, SOURCES.md).
 func randomNonPlanarDOT(seed uint64, n, m int) string {
 	rng := rand.New(rand.NewPCG(seed, 42))
 	var b strings.Builder

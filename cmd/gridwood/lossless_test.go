@@ -25,7 +25,7 @@ import (
 // output is the input with exactly the documented changes. Both texts are
 // parsed with gonum's parser and given a meaning by the small DOT
 // interpreter below, written from the DOT conventions in
-// ../../../shared/REFERENCES.md and independent of dotio's walk; the two
+// SOURCES.md and independent of dotio's walk; the two
 // meanings must agree except where README.md says they differ.
 
 // ---------------------------------------------------------------------------
@@ -66,7 +66,7 @@ func (m attrMap) String() string {
 
 // canonicalID returns the value a DOT ID lexeme stands for: a quoted
 // string without its quotes, \" read as a quote and a backslash-newline
-// removed (REFERENCES.md, "IDs"); an HTML string keeps its brackets and is
+// removed (SOURCES.md, "IDs"); an HTML string keeps its brackets and is
 // marked with a leading NUL so that it never equals a quoted string; an
 // unquoted ID or numeral stands for itself, so `1` and `"1"` are equal.
 func canonicalID(lex string) string {
@@ -131,13 +131,13 @@ type subMeaning struct {
 }
 
 // scope is what a statement list sees: its subgraph and the node and edge
-// defaults in force. Defaults set in a list end with it (REFERENCES.md).
+// defaults in force. Defaults set in a list end with it (SOURCES.md).
 type scope struct {
 	sub              int
 	nodeDef, edgeDef attrMap
 }
 
-// interpretGraph gives g its meaning under the REFERENCES.md conventions:
+// interpretGraph gives g its meaning under the SOURCES.md conventions:
 // a node is created at its first mention with the node defaults then in
 // scope, and node statements add attributes (later wins); it belongs to
 // every subgraph enclosing a mention. A named subgraph reopened in the same
@@ -412,7 +412,7 @@ func writeAttrText(b *strings.Builder, attrs []*ast.Attr, drop string) bool {
 // normalization makes parseable (concatenation, a byte order mark) fall
 // back to the syntax tree dotio hands to gonum, and so do inputs where
 // gonum read a keyword in unusual case (edgE) as an ID: DOT keywords are
-// case-insensitive (REFERENCES.md) and gonum knows only some casings.
+// case-insensitive (SOURCES.md) and gonum knows only some casings.
 func parseInput(src []byte) (*ast.File, error) {
 	if f, err := dot.ParseBytes(src); err == nil && !keywordAsID(f) {
 		return f, nil
@@ -541,7 +541,7 @@ func appendedLayout(out *ast.Graph, in *graphMeaning) (body []ast.Stmt, pos [][2
 }
 
 // nodeHalfSize returns half the box of a node in points from its width and
-// height in inches, DOT's defaults 0.75 and 0.5 (REFERENCES.md) when unset;
+// height in inches, DOT's defaults 0.75 and 0.5 (SOURCES.md) when unset;
 // ok is false when a value is set but not a plain size gridwood could
 // honour (then nothing is checked for that node).
 func nodeHalfSize(a attrMap) (hw, hh float64, ok bool) {
@@ -1327,7 +1327,7 @@ func TestLosslessCheckerCatchesChanges(t *testing.T) {
 }
 
 // TestInterpreterMeaning pins the interpreter itself on small cases whose
-// meaning follows directly from REFERENCES.md.
+// meaning follows directly from SOURCES.md.
 func TestInterpreterMeaning(t *testing.T) {
 	f, err := dot.ParseString(`digraph {
 		node [shape=box]
@@ -1370,7 +1370,7 @@ func TestInterpreterMeaning(t *testing.T) {
 
 // TestReopenedSubgraphOperandMeansWholeSubgraph: an edge statement with a
 // subgraph operand "makes an edge to every node of that subgraph"
-// (REFERENCES.md). When the operand reopens a named subgraph that already
+// (SOURCES.md). When the operand reopens a named subgraph that already
 // has nodes, those nodes are nodes of that subgraph too (a named subgraph
 // is one subgraph however often it is opened; common DOT practice, from
 // memory). Here a through e form K5 as DOT defines it. dotio used to take

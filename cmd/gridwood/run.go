@@ -619,7 +619,7 @@ func fellBackNames(g *dotio.Graph, least []int) string {
 }
 
 // DOT's default node size in inches (from memory of its documentation, see
-// ../shared/REFERENCES.md).
+// SOURCES.md).
 const defaultWidth, defaultHeight = 0.75, 0.5
 
 // hasAll reports whether g has a node of every name.

@@ -110,7 +110,7 @@ func Icosahedron() Graph {
 }
 
 // Solid is a Platonic solid's skeleton with its handbook counts (H. S. M.
-// Coxeter, Regular Polytopes, table I; also in REFERENCES.md): V vertices,
+// Coxeter, Regular Polytopes, table I; also in SOURCES.md): V vertices,
 // E edges and F faces, every face a P-gon and every vertex of degree Q
 // (Schläfli symbol {P, Q}). Tests check the generators and the embeddings
 // against these numbers, which are not computed from the graphs.
