@@ -740,11 +740,13 @@ func writeFilesAtomic(files []pendingFile) error {
 		// A symbolic link stays: the file it names is replaced. Something
 		// that is not a regular file (a pipe, a terminal, /dev/null) is
 		// written to directly: a rename would put a file in its place.
-		f.path = followLinks(f.path)
+		// Through the links first: /dev/stdout or a shell's >(...) is a
+		// link to something that is no file name at all.
 		if fi, err := os.Stat(f.path); err == nil && !fi.Mode().IsRegular() {
 			direct = append(direct, f)
 			continue
 		}
+		f.path = followLinks(f.path)
 		renamed = append(renamed, f)
 		tmp, err := os.CreateTemp(filepath.Dir(f.path), "."+filepath.Base(f.path)+".tmp*")
 		if err != nil {

@@ -344,6 +344,25 @@ func TestOutputThroughLinksAndPipes(t *testing.T) {
 	if fi, err := os.Lstat(pipe); err != nil || fi.Mode()&os.ModeNamedPipe == 0 {
 		t.Errorf("the pipe was replaced: %v %v", fi, err)
 	}
+	// A link to a pipe, as /dev/stdout or a shell's >(...) is: written
+	// into, the link kept.
+	toPipe := filepath.Join(dir, "stdout")
+	if err := os.Symlink(pipe, toPipe); err != nil {
+		t.Fatal(err)
+	}
+	go func() {
+		b, _ := os.ReadFile(pipe)
+		got <- b
+	}()
+	if code, _, errs := runCmd(t, "graph G { a -- b }", "-o", toPipe); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	if b := <-got; !strings.Contains(string(b), `pos="`) {
+		t.Errorf("the pipe's reader, through a link, got %q", b)
+	}
+	if fi, err := os.Lstat(toPipe); err != nil || fi.Mode()&os.ModeSymlink == 0 {
+		t.Errorf("the link to the pipe was replaced: %v %v", fi, err)
+	}
 }
 
 func TestRemovedFileListsExactlyTheSetAsideEdges(t *testing.T) {
