@@ -74,19 +74,16 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	}
 	progress("renumbering", 0)
 	start := time.Now()
-	// Direction must not change the drawing: every pair is taken with its
-	// smaller end first, so a b and b a lay out alike. (The copy is ours,
-	// and later serves as the pair list.)
-	norm := make([][2]int32, len(edges))
-	for i, e := range edges {
-		if e[0] > e[1] {
-			e[0], e[1] = e[1], e[0]
-		}
-		norm[i] = e
-	}
-	edges = norm
 	// Renumber first, so that even removing repeats runs on local data.
+	// The new numbers do not depend on the edges' directions, and each
+	// renamed pair is then taken with its smaller end first, so that
+	// direction cannot change the drawing: a b and b a lay out alike.
 	newID, renamed, rawOf := order.DepthFirst(n, edges)
+	for i, e := range renamed {
+		if e[0] > e[1] {
+			renamed[i] = [2]int32{e[1], e[0]}
+		}
+	}
 	local, localIndex := planarize.Simplify(n, renamed)
 	// Number the pairs in order of first occurrence in the input, as
 	// PairList promises: edgeOf maps a local pair to that number.
@@ -96,7 +93,7 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 		// No loops and no repeats, the usual case: the pairs are the edges,
 		// local pair k is renamed edge k, so no scattered lookups are needed.
 		edgeOf = rawOf
-		simple = edges
+		simple = append([][2]int32(nil), edges...)
 		index = make([]int32, len(edges))
 		for i := range index {
 			index[i] = int32(i)
