@@ -307,7 +307,7 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 	if limit := stretchLimit(vs, px, py, hw, hh); stretch > limit {
 		stretch = limit
 		out.Crowded++
-	} else {
+	} else if !gridOnly {
 		defer shrinkComponent(d.aug, vs, region, edges, px, py, hw, hh, gap, tx, ty, seen, stamp)
 	}
 	stretchComponent(d.aug, vs, region, px, py, stretch, tx, ty, seen)
