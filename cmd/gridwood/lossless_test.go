@@ -542,8 +542,9 @@ func appendedLayout(out *ast.Graph, in *graphMeaning) (body []ast.Stmt, pos [][2
 
 // nodeHalfSize returns half the box of a node in points from its width and
 // height in inches, DOT's defaults 0.75 and 0.5 (SOURCES.md) when unset;
-// ok is false when a value is set but not a plain size gridwood could
-// honour (then nothing is checked for that node).
+// ok is false when a value is set but not a plain size gridwood honours
+// (README, Spacing: from 0 to below 1000; then nothing is checked for that
+// node).
 func nodeHalfSize(a attrMap) (hw, hh float64, ok bool) {
 	size := func(key string, def float64) (float64, bool) {
 		s, set := a[key]
@@ -551,7 +552,7 @@ func nodeHalfSize(a attrMap) (hw, hh float64, ok bool) {
 			return def, true
 		}
 		v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-		if err != nil || math.IsNaN(v) || v <= 0 || v >= 1e4 {
+		if err != nil || math.IsNaN(v) || v <= 0 || v >= 1000 {
 			return 0, false
 		}
 		return v, true
