@@ -168,15 +168,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			if len(vs) < 3 || chosen[c] < 0 {
 				continue
 			}
-			sub, oldDart := work.Restrict(vs)
-			outer := int32(-1)
-			for nd, od := range oldDart {
-				if od == chosen[c] {
-					outer = int32(nd)
-					break
-				}
-			}
-			x, y, w, h, err := convexDrawing(sub, outer)
+			x, y, w, h, err := convexComponent(work, vs, chosen[c])
 			if err != nil {
 				notConvex++
 				fellBack[c] = true
@@ -200,15 +192,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			if len(vs) < 4 || len(vs) > readableLimit || chosen[c] < 0 {
 				continue
 			}
-			sub, oldDart := work.Restrict(vs)
-			outer := int32(-1)
-			for nd, od := range oldDart {
-				if od == chosen[c] {
-					outer = int32(nd)
-					break
-				}
-			}
-			if x, y, _, _, err := convexDrawing(sub, outer); err == nil {
+			if x, y, _, _, err := convexComponent(work, vs, chosen[c]); err == nil {
 				if convexAlt == nil {
 					convexAlt = make([][2][]int64, len(members))
 				}
@@ -352,18 +336,11 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			// 3-connected): Felsner's drawing of the triangulation, with
 			// the same outer triangle, is a candidate still; its face
 			// counts crowd far less than the vertex counts above.
-			sub, oldDart := work.Restrict(vs)
-			for nd, od := range oldDart {
-				if od != outer {
-					continue
+			if x, y, _, _, err := convexComponent(work, vs, outer); err == nil {
+				if convexAlt == nil {
+					convexAlt = make([][2][]int64, len(members))
 				}
-				if x, y, _, _, err := convexDrawing(sub, int32(nd)); err == nil {
-					if convexAlt == nil {
-						convexAlt = make([][2][]int64, len(members))
-					}
-					convexAlt[c] = [2][]int64{x, y}
-				}
-				break
+				convexAlt[c] = [2][]int64{x, y}
 			}
 		}
 		// Tutte's drawing inside a triangle squeezes a big triangulation's
@@ -406,6 +383,21 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		d.convexAlt, d.convexOwn = convexAlt, convexOwn
 	}
 	return d, nil
+}
+
+// convexComponent draws the component of emb with vertices vs convex (see
+// convexDrawing), with the face left of emb's dart outer as its outer face;
+// the coordinates are in the order of vs.
+func convexComponent(emb *planarize.Embedding, vs []int32, outer int32) (x, y []int64, w, h int64, err error) {
+	sub, oldDart := emb.Restrict(vs)
+	inSub := int32(-1)
+	for nd, od := range oldDart {
+		if od == outer {
+			inSub = int32(nd)
+			break
+		}
+	}
+	return convexDrawing(sub, inSub)
 }
 
 // components labels vertices by connected component, numbering components

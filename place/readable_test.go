@@ -1,6 +1,7 @@
 package place
 
 import (
+	"fmt"
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/geomcheck"
@@ -15,6 +16,40 @@ func equalBoxes(n int, hw, hh int64) Boxes {
 		b.HalfW[v], b.HalfH[v] = hw, hh
 	}
 	return b
+}
+
+// variedBoxes gives n nodes boxes of five widths (half widths 20 to 56
+// points) and one height, 18 points apart, so that spacing is not only
+// exercised on equal boxes.
+func variedBoxes(n int) Boxes {
+	b := equalBoxes(n, 0, 18)
+	for v := range b.HalfW {
+		b.HalfW[v] = 20 + int64(v%5)*9
+	}
+	return b
+}
+
+// checkSpaced checks a spaced drawing with geomcheck, the independent
+// crossing checker: its edges neither cross nor touch (fatal), no two node
+// boxes overlap, and no edge passes through a box it does not end at, which
+// strict demands outright and otherwise only of components Space did not
+// count unchecked or crowded.
+func checkSpaced(t *testing.T, name string, sp *Placed, b Boxes, edges [][2]int32, strict bool) {
+	t.Helper()
+	pts := make([]geomcheck.Point, len(sp.X))
+	for v := range pts {
+		pts[v] = geomcheck.Point{X: sp.X[v], Y: sp.Y[v]}
+	}
+	if p, err := geomcheck.First(pts, edges, 1); err != nil || len(p) > 0 {
+		t.Fatalf("%s: drawing problems %v %v", name, p, err)
+	}
+	if o, err := geomcheck.BoxOverlaps(pts, b.HalfW, b.HalfH); err != nil || len(o) > 0 {
+		t.Errorf("%s: %d box overlaps (%v)", name, len(o), err)
+	}
+	through, err := geomcheck.EdgeThroughBox(pts, b.HalfW, b.HalfH, edges)
+	if err != nil || len(through) > 0 && (strict || sp.Unchecked+sp.Crowded == 0) {
+		t.Errorf("%s: %d edges through boxes, unchecked %d, crowded %d, strict %v (%v)", name, len(through), sp.Unchecked, sp.Crowded, strict, err)
+	}
 }
 
 // TestReadableLimit checks both sides of readableLimit on Space: a
@@ -52,22 +87,7 @@ func TestReadableLimit(t *testing.T) {
 		if sp.Unchecked != tc.unchecked {
 			t.Errorf("n=%d: Unchecked %d, want %d", tc.n, sp.Unchecked, tc.unchecked)
 		}
-		pts := make([]geomcheck.Point, g.N)
-		for v := range pts {
-			pts[v] = geomcheck.Point{X: sp.X[v], Y: sp.Y[v]}
-		}
-		if p, err := geomcheck.First(pts, g.Edges, 1); err != nil || len(p) > 0 {
-			t.Fatalf("n=%d: drawing problems %v %v", tc.n, p, err)
-		}
-		if o, err := geomcheck.BoxOverlaps(pts, b.HalfW, b.HalfH); err != nil || len(o) > 0 {
-			t.Errorf("n=%d: %d box overlaps (%v)", tc.n, len(o), err)
-		}
-		if tc.unchecked == 0 {
-			through, err := geomcheck.EdgeThroughBox(pts, b.HalfW, b.HalfH, g.Edges)
-			if err != nil || len(through) > 0 {
-				t.Errorf("n=%d: %d edges through boxes (%v)", tc.n, len(through), err)
-			}
-		}
+		checkSpaced(t, fmt.Sprintf("n=%d", tc.n), sp, b, g.Edges, tc.unchecked == 0)
 	}
 }
 
@@ -94,30 +114,12 @@ func TestSpacingRule(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			b := Boxes{HalfW: make([]int64, g.N), HalfH: make([]int64, g.N), Gap: 18}
-			for v := range b.HalfW {
-				b.HalfW[v], b.HalfH[v] = 20+int64(v%5)*9, 18
-			}
+			b := variedBoxes(g.N)
 			sp, err := res.Space(b, SpaceOptions{GridOnly: grid})
 			if err != nil {
 				t.Fatal(err)
 			}
-			kept := res.Kept()
-			pts := make([]geomcheck.Point, g.N)
-			for v := range pts {
-				pts[v] = geomcheck.Point{X: sp.X[v], Y: sp.Y[v]}
-			}
-			if p, err := geomcheck.First(pts, kept, 1); err != nil || len(p) > 0 {
-				t.Fatalf("%s grid=%v: drawing problems %v %v", g.Name, grid, p, err)
-			}
-			o, err := geomcheck.BoxOverlaps(pts, b.HalfW, b.HalfH)
-			if err != nil || len(o) > 0 {
-				t.Errorf("%s grid=%v: %d box overlaps (%v)", g.Name, grid, len(o), err)
-			}
-			through, err := geomcheck.EdgeThroughBox(pts, b.HalfW, b.HalfH, kept)
-			if err != nil || (len(through) > 0 && sp.Unchecked+sp.Crowded == 0) {
-				t.Errorf("%s grid=%v: %d edges through boxes, none counted unchecked or crowded (%v)", g.Name, grid, len(through), err)
-			}
+			checkSpaced(t, fmt.Sprintf("%s grid=%v", g.Name, grid), sp, b, res.Kept(), false)
 			t.Logf("%s grid=%v: %d x %d points, unchecked %d, crowded %d", g.Name, grid, sp.Width, sp.Height, sp.Unchecked, sp.Crowded)
 		}
 	}
@@ -148,19 +150,9 @@ func TestDrawingSizeBound(t *testing.T) {
 		if limit := int64(2*g.N-4) * sp.Unit; sp.Width > limit || sp.Height > limit {
 			t.Errorf("%s: %d x %d points, more than %d across", g.Name, sp.Width, sp.Height, limit)
 		}
-		pts := make([]geomcheck.Point, g.N)
-		for v := range pts {
-			pts[v] = geomcheck.Point{X: sp.X[v], Y: sp.Y[v]}
+		if sp.Unchecked+sp.Crowded > 0 {
+			t.Errorf("%s: unchecked %d, crowded %d", g.Name, sp.Unchecked, sp.Crowded)
 		}
-		kept := res.Kept()
-		if p, err := geomcheck.First(pts, kept, 1); err != nil || len(p) > 0 {
-			t.Fatalf("%s: drawing problems %v %v", g.Name, p, err)
-		}
-		if o, err := geomcheck.BoxOverlaps(pts, b.HalfW, b.HalfH); err != nil || len(o) > 0 {
-			t.Errorf("%s: %d box overlaps (%v)", g.Name, len(o), err)
-		}
-		if th, err := geomcheck.EdgeThroughBox(pts, b.HalfW, b.HalfH, kept); err != nil || len(th) > 0 || sp.Unchecked+sp.Crowded > 0 {
-			t.Errorf("%s: %d edges through boxes, unchecked %d, crowded %d (%v)", g.Name, len(th), sp.Unchecked, sp.Crowded, err)
-		}
+		checkSpaced(t, g.Name, sp, b, res.Kept(), true)
 	}
 }

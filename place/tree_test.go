@@ -3,7 +3,6 @@ package place
 import (
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/internal/graphgen"
 )
 
@@ -27,28 +26,12 @@ func TestLayeredTrees(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		b := Boxes{HalfW: make([]int64, g.N), HalfH: make([]int64, g.N), Gap: 18}
-		for v := range b.HalfW {
-			b.HalfW[v], b.HalfH[v] = 20+int64(v%5)*9, 18
-		}
+		b := variedBoxes(g.N)
 		sp, err := res.Space(b, SpaceOptions{})
 		if err != nil {
 			t.Fatal(err)
 		}
-		pts := make([]geomcheck.Point, g.N)
-		for v := range pts {
-			pts[v] = geomcheck.Point{X: sp.X[v], Y: sp.Y[v]}
-		}
-		if p, err := geomcheck.First(pts, g.Edges, 1); err != nil || len(p) > 0 {
-			t.Fatalf("%s: drawing problems %v %v", g.Name, p, err)
-		}
-		if o, err := geomcheck.BoxOverlaps(pts, b.HalfW, b.HalfH); err != nil || len(o) > 0 {
-			t.Fatalf("%s: %d box overlaps (%v)", g.Name, len(o), err)
-		}
-		through, err := geomcheck.EdgeThroughBox(pts, b.HalfW, b.HalfH, g.Edges)
-		if err != nil || len(through) > 0 && sp.Unchecked+sp.Crowded == 0 {
-			t.Fatalf("%s: %d edges through boxes, none counted (%v)", g.Name, len(through), err)
-		}
+		checkSpaced(t, g.Name, sp, b, g.Edges, false)
 		if sp.Trees == 0 {
 			continue
 		}

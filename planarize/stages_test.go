@@ -2,7 +2,6 @@ package planarize
 
 import (
 	"fmt"
-	"math/rand/v2"
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/graphgen"
@@ -38,13 +37,7 @@ func BenchmarkStage(b *testing.B) {
 			if g.Name[:4] != "grid" && g.Name[:6] != "planar" {
 				continue
 			}
-			rng := rand.New(rand.NewPCG(1, uint64(g.N)))
-			raw := append([][2]int32(nil), g.Edges...)
-			for range 10 {
-				raw = append(raw, [2]int32{int32(rng.IntN(g.N)), int32(rng.IntN(g.N))})
-			}
-			_, local, _ := order.DepthFirst(g.N, raw)
-			simple, _ := Simplify(g.N, local)
+			simple := withStrays(g, 10, 1)
 			b.Run(fmt.Sprintf("subgraph/%s-plus-10", g.Name), func(b *testing.B) {
 				stagebench.PerEdge(b, len(simple), func() { MaximalPlanar(g.N, simple, SubgraphOptions{}) })
 			})

@@ -330,6 +330,20 @@ func TestMaximalPlanarMeshWithCluster(t *testing.T) {
 	}
 }
 
+// withStrays returns g's edges with k seeded random pairs added (loops and
+// repeats possible), renumbered depth-first and simplified as the command
+// gives them to MaximalPlanar.
+func withStrays(g graphgen.Graph, k int, seed uint64) [][2]int32 {
+	rng := rand.New(rand.NewPCG(seed, uint64(g.N)))
+	raw := append([][2]int32(nil), g.Edges...)
+	for range k {
+		raw = append(raw, [2]int32{int32(rng.IntN(g.N)), int32(rng.IntN(g.N))})
+	}
+	_, renamed, _ := order.DepthFirst(g.N, raw)
+	edges, _ := Simplify(g.N, renamed)
+	return edges
+}
+
 // TestMaximalPlanarMeshWithStrays checks a planar mesh with a few stray
 // long edges, in the vertex order a depth-first search gives (the
 // command's renumbering, which puts strays among the mesh's edges): the
@@ -339,13 +353,7 @@ func TestMaximalPlanarMeshWithCluster(t *testing.T) {
 // edges on no triangle and no 4-cycle were taken last).
 func TestMaximalPlanarMeshWithStrays(t *testing.T) {
 	for _, g := range []graphgen.Graph{graphgen.Grid(50, 50), graphgen.RandomPlanar(3000, 0.6, 3)} {
-		rng := rand.New(rand.NewPCG(5, uint64(g.N)))
-		raw := append([][2]int32(nil), g.Edges...)
-		for range 10 {
-			raw = append(raw, [2]int32{int32(rng.IntN(g.N)), int32(rng.IntN(g.N))})
-		}
-		_, renamed, _ := order.DepthFirst(g.N, raw)
-		edges, _ := Simplify(g.N, renamed)
+		edges := withStrays(g, 10, 5)
 		res := MaximalPlanar(g.N, edges, SubgraphOptions{})
 		if err := checkSubgraph(g.N, edges, res, -1); err != nil {
 			t.Fatal(err)

@@ -330,15 +330,20 @@ func TestOutputThroughLinksAndPipes(t *testing.T) {
 	if err := syscall.Mkfifo(pipe, 0o600); err != nil {
 		t.Skip("no named pipes here:", err)
 	}
-	got := make(chan []byte)
-	go func() {
-		b, _ := os.ReadFile(pipe)
-		got <- b
-	}()
-	if code, _, errs := runCmd(t, "graph G { a -- b }", "-o", pipe); code != exitOK {
-		t.Fatalf("exit %d: %s", code, errs)
+	// intoPipe runs the command with -o target and returns what a reader
+	// of the pipe got.
+	intoPipe := func(target string) string {
+		got := make(chan []byte)
+		go func() {
+			b, _ := os.ReadFile(pipe)
+			got <- b
+		}()
+		if code, _, errs := runCmd(t, "graph G { a -- b }", "-o", target); code != exitOK {
+			t.Fatalf("exit %d: %s", code, errs)
+		}
+		return string(<-got)
 	}
-	if b := <-got; !strings.Contains(string(b), `pos="`) {
+	if b := intoPipe(pipe); !strings.Contains(b, `pos="`) {
 		t.Errorf("the pipe's reader got %q", b)
 	}
 	if fi, err := os.Lstat(pipe); err != nil || fi.Mode()&os.ModeNamedPipe == 0 {
@@ -350,14 +355,7 @@ func TestOutputThroughLinksAndPipes(t *testing.T) {
 	if err := os.Symlink(pipe, toPipe); err != nil {
 		t.Fatal(err)
 	}
-	go func() {
-		b, _ := os.ReadFile(pipe)
-		got <- b
-	}()
-	if code, _, errs := runCmd(t, "graph G { a -- b }", "-o", toPipe); code != exitOK {
-		t.Fatalf("exit %d: %s", code, errs)
-	}
-	if b := <-got; !strings.Contains(string(b), `pos="`) {
+	if b := intoPipe(toPipe); !strings.Contains(b, `pos="`) {
 		t.Errorf("the pipe's reader, through a link, got %q", b)
 	}
 	if fi, err := os.Lstat(toPipe); err != nil || fi.Mode()&os.ModeSymlink == 0 {
