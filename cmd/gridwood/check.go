@@ -185,6 +185,10 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 		// A label the box is grown to fit (whole points, which the
 		// exact check needs in the scaled unit).
 		if !strings.EqualFold(strings.TrimSpace(n.Attrs.FixedSize), "true") {
+			if grown.HalfW[v] > geomcheck.MaxCoord/unit || grown.HalfH[v] > geomcheck.MaxCoord/unit {
+				add(checkBadSize, n.Line, n.Col, 0, 0, "node %s: its label makes the box too large to be checked exactly", strconv.Quote(n.Name))
+				continue
+			}
 			hw[v] = max(hw[v], grown.HalfW[v]*unit)
 			hh[v] = max(hh[v], grown.HalfH[v]*unit)
 		}
