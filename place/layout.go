@@ -186,7 +186,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	// weighs against the Schnyder one: on triangulations it often needs
 	// far less room to clear the node boxes.
 	var convexAlt [][2][]int64
-	convexOwn := make([]bool, len(members))
+	var convexOwn []bool // made with convexAlt
 	if opt.Smooth > 0 && opt.Method == Schnyder {
 		for c, vs := range members {
 			if len(vs) < 4 || len(vs) > readableLimit || chosen[c] < 0 {
@@ -194,7 +194,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			}
 			if x, y, _, _, err := convexComponent(work, vs, chosen[c]); err == nil {
 				if convexAlt == nil {
-					convexAlt = make([][2][]int64, len(members))
+					convexAlt, convexOwn = make([][2][]int64, len(members)), make([]bool, len(members))
 				}
 				convexAlt[c], convexOwn[c] = [2][]int64{x, y}, true
 			}
@@ -338,7 +338,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			// counts crowd far less than the vertex counts above.
 			if x, y, _, _, err := convexComponent(work, vs, outer); err == nil {
 				if convexAlt == nil {
-					convexAlt = make([][2][]int64, len(members))
+					convexAlt, convexOwn = make([][2][]int64, len(members)), make([]bool, len(members))
 				}
 				convexAlt[c] = [2][]int64{x, y}
 			}
