@@ -162,7 +162,7 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 	}
 	px, py := make([]int64, n), make([]int64, n) // local numbering
 	tx, ty := make([]int64, n), make([]int64, n) // a second candidate
-	var lx, ly []int64 // a tree's layered drawing, and scratch: only readable components use them
+	var lx, ly []int64                           // a tree's layered drawing, and scratch: only readable components use them
 	for _, vs := range members {
 		if opt.Unit <= 0 && len(vs) >= 3 && len(vs) <= readableLimit {
 			lx, ly = make([]int64, n), make([]int64, n)
