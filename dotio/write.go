@@ -287,8 +287,9 @@ func printedAttrs(attrs []*ast.Attr, drop string) int {
 }
 
 // attrs prints " [k=v, ...]" without the attributes whose canonical key is
-// drop, followed by extra. Nothing is printed for an empty list unless
-// always is set.
+// drop or the key of one in extra, followed by extra: a mark replaces an
+// attribute of the same name rather than repeating its key. Nothing is
+// printed for an empty list unless always is set.
 func (p *printer) attrs(attrs []*ast.Attr, drop string, extra []Attr, always bool) {
 	if !always && printedAttrs(attrs, drop)+len(extra) == 0 {
 		return
@@ -299,7 +300,8 @@ func (p *printer) attrs(attrs []*ast.Attr, drop string, extra []Attr, always boo
 	p.ws("[")
 	sep := false
 	for _, a := range attrs {
-		if key, _ := canonical(a.Key); key == drop {
+		key, _ := canonical(a.Key)
+		if key == drop || slices.ContainsFunc(extra, func(x Attr) bool { k, _ := canonical(x.Key); return k == key }) {
 			continue
 		}
 		if sep {

@@ -352,6 +352,21 @@ func TestMarkWholeStatement(t *testing.T) {
 	}
 }
 
+// TestMarkReplacesSameKey checks that a mark of a key the edge statement
+// already has replaces it, not repeats it, in both the whole-statement and
+// the split form.
+func TestMarkReplacesSameKey(t *testing.T) {
+	f := mustRead(t, "graph {\n\ta -- b [color=blue, w=2]\n\tc -- d -- e [\"color\"=green]\n}\n")
+	lays := synthLayout(f)
+	lays[0].Removed = []bool{true, false, true}
+	got := string(writeString(t, f, lays, WriteOptions{MarkRemoved: []Attr{{"color", "red"}}}))
+	want := "graph {\n\ta -- b [w=2, color=red]\n\tc\n\td\n\tc -- d [\"color\"=green]\n\te\n\td -- e [color=red]\n" +
+		"\ta [pos=\"0,3\"]\n\tb [pos=\"10,10\"]\n\tc [pos=\"20,17\"]\n\td [pos=\"30,24\"]\n\te [pos=\"40,31\"]\n\tgraph [bb=\"0,0,50,38\"]\n}\n"
+	if got != want {
+		t.Errorf("got\n%s\nwant\n%s", got, want)
+	}
+}
+
 func TestParseAttrList(t *testing.T) {
 	tests := []struct {
 		in   string

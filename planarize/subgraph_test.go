@@ -2,7 +2,6 @@ package planarize
 
 import (
 	"fmt"
-	"math/rand/v2"
 	"slices"
 	"testing"
 
@@ -334,13 +333,9 @@ func TestMaximalPlanarMeshWithCluster(t *testing.T) {
 // repeats possible), renumbered depth-first and simplified as the command
 // gives them to MaximalPlanar.
 func withStrays(g graphgen.Graph, k int, seed uint64) [][2]int32 {
-	rng := rand.New(rand.NewPCG(seed, uint64(g.N)))
-	raw := append([][2]int32(nil), g.Edges...)
-	for range k {
-		raw = append(raw, [2]int32{int32(rng.IntN(g.N)), int32(rng.IntN(g.N))})
-	}
-	_, renamed, _ := order.DepthFirst(g.N, raw)
-	edges, _ := Simplify(g.N, renamed)
+	x := graphgen.WithStrays(g, k, seed)
+	_, renamed, _ := order.DepthFirst(x.N, x.Edges)
+	edges, _ := Simplify(x.N, renamed)
 	return edges
 }
 

@@ -118,7 +118,7 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 	fs.BoolVarP(&cfg.quiet, "quiet", "q", false, "print nothing on standard error except errors (no summary lines, no progress)\nexample: -q")
 	fs.StringVar(&cfg.removedFile, "removed", "", "write the edges set aside to make a graph planar to `FILE`, as DOT:\none graph per input graph, one edge per line, with its attributes\nexample: --removed removed.dot")
 	fs.BoolVar(&cfg.dropRemoved, "drop-removed", false, "leave the set-aside edges out of the main output\nexample: --drop-removed --removed removed.dot")
-	mark := fs.String("mark-removed", "", "add these `ATTRS` to the set-aside edges in the main output\nexample: --mark-removed 'style=dashed,color=gray'")
+	mark := fs.String("mark-removed", "", "add these `ATTRS` to the set-aside edges in the main output\n(replacing any of the same name on their statement)\nexample: --mark-removed 'style=dashed,color=gray'")
 	fs.BoolVar(&cfg.planarOnly, "planar-only", false, "treat a non-planar graph as an error (exit status 3, nothing written)\nexample: --planar-only")
 	fs.StringVar(&cfg.explainFile, "explain", "", "write to `FILE`, for each set-aside edge, a Kuratowski subgraph (a subdivision\nof K5 or K3,3 made of it and kept edges) proving it could not stay, as DOT\nexample: --explain why.dot")
 	fs.IntVar(&cfg.effort, "effort", 0, "extra search for fewer set-aside edges: `N` seeded restarts and a larger exact\nsearch on small blocks; the result for a given N is always the same\nexample: --effort 8")

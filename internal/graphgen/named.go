@@ -4,6 +4,8 @@ import (
 	"bufio"
 	"fmt"
 	"io"
+	"math/rand/v2"
+	"slices"
 )
 
 // SquareGrid is the largest k x k grid with at most n vertices.
@@ -18,7 +20,8 @@ func SquareGrid(n int) Graph {
 // Named builds the benchmark family with the given name at about n
 // vertices: tri (RandomMaximalPlanar), grid (SquareGrid), tree, planar
 // (RandomPlanar keeping 60%), extra (PlanarPlusExtra with extra edges),
-// star, path or nested (NestedTriangles of n/3 levels). ok is false for an
+// planar-extra (the random planar graph WithStrays, extra of them), star,
+// path or nested (NestedTriangles of n/3 levels). ok is false for an
 // unknown name.
 func Named(family string, n, extra int, seed uint64) (g Graph, ok bool) {
 	switch family {
@@ -32,6 +35,8 @@ func Named(family string, n, extra int, seed uint64) (g Graph, ok bool) {
 		return RandomPlanar(n, 0.6, seed), true
 	case "extra":
 		return PlanarPlusExtra(n, extra, seed), true
+	case "planar-extra":
+		return WithStrays(RandomPlanar(n, 0.6, seed), extra, seed), true
 	case "star":
 		return Star(n - 1), true
 	case "path":
@@ -40,6 +45,21 @@ func Named(family string, n, extra int, seed uint64) (g Graph, ok bool) {
 		return NestedTriangles(n / 3), true
 	}
 	return Graph{}, false
+}
+
+// WithStrays returns g with k random vertex pairs appended to its edges, as
+// a user's stray long edges in a mesh: uniform and independent, so a pair
+// may repeat an edge or be a loop.
+func WithStrays(g Graph, k int, seed uint64) Graph {
+	rng := rand.New(rand.NewPCG(seed, streamStrays^uint64(g.N)))
+	out := Graph{Name: fmt.Sprintf("%s-plus-%d", g.Name, k), N: g.N, Edges: slices.Clip(g.Edges)}
+	if g.N == 0 {
+		return out
+	}
+	for range k {
+		out.Edges = append(out.Edges, [2]int32{int32(rng.IntN(g.N)), int32(rng.IntN(g.N))})
+	}
+	return out
 }
 
 // WriteDOT writes g as an undirected DOT graph named after it: one node

@@ -205,6 +205,7 @@ const (
 	streamTree          = 0x72616e6474726565
 	streamGnm           = 0x72616e64676e6d31
 	streamRelabel       = 0x72656c6162656c31
+	streamStrays        = 0x7374726179733031
 )
 
 // maximalPlanar returns RandomMaximalPlanar(n, seed) together with the
