@@ -49,6 +49,15 @@ type tester struct {
 	lr     lr
 }
 
+// pick returns the edges with the given indices, in a new slice.
+func (t *tester) pick(idx []int32) [][2]int32 {
+	out := make([][2]int32, len(idx))
+	for i, e := range idx {
+		out[i] = t.edges[e]
+	}
+	return out
+}
+
 // planar tests the union of the given index sets; ok is false when the
 // budget ran out (the verdict is then meaningless).
 func (t *tester) planar(sets ...[]int32) (planar, ok bool) {
@@ -78,6 +87,12 @@ func (t *tester) planar(sets ...[]int32) (planar, ok bool) {
 // or K3,3. The second result is false if the graph is planar or the budget
 // ran out.
 func FindKuratowski(n int, edges [][2]int32, subset, must []int32, budget *Budget) (*Kuratowski, bool) {
+	return findKuratowskiIn(n, edges, subset, must, budget, true)
+}
+
+// findKuratowskiIn is FindKuratowski; narrow says whether a large subset
+// may first be narrowed to a tube around must[0] (see nearFirst).
+func findKuratowskiIn(n int, edges [][2]int32, subset, must []int32, budget *Budget, narrow bool) (*Kuratowski, bool) {
 	if subset == nil {
 		subset = make([]int32, len(edges))
 		for i := range subset {
@@ -111,7 +126,7 @@ func FindKuratowski(n int, edges [][2]int32, subset, must []int32, budget *Budge
 			mustLocal = append(mustLocal, i)
 		}
 	}
-	k, ok := findKuratowskiLocal(len(orig), sub, mustLocal, budget)
+	k, ok := findKuratowskiLocal(len(orig), sub, mustLocal, budget, narrow)
 	if !ok {
 		return nil, false
 	}
@@ -133,7 +148,7 @@ func FindKuratowski(n int, edges [][2]int32, subset, must []int32, budget *Budge
 
 // findKuratowskiLocal is FindKuratowski on a whole graph whose vertices
 // are all used: it searches all of edges, preferring the edges in must.
-func findKuratowskiLocal(n int, edges [][2]int32, must []int32, budget *Budget) (*Kuratowski, bool) {
+func findKuratowskiLocal(n int, edges [][2]int32, must []int32, budget *Budget, narrow bool) (*Kuratowski, bool) {
 	subset := make([]int32, len(edges))
 	for i := range subset {
 		subset[i] = int32(i)
@@ -154,6 +169,17 @@ func findKuratowskiLocal(n int, edges [][2]int32, must []int32, budget *Budget) 
 	rest := pruneLeaves(n, edges, subset, isMust)
 	var need []int32
 	fixed := append([]int32(nil), must...)
+	if narrow && len(must) > 0 && len(rest) > nearFirstSize {
+		tube, ok := nearFirst(t, n, edges, fixed, rest, must[0])
+		if !ok {
+			return nil, false
+		}
+		if len(tube) < len(rest) {
+			// Search the tube on its own vertices: every test then costs
+			// what the tube costs, not what the whole block does.
+			return findKuratowskiIn(n, edges, append(tube, fixed...), must, budget, false)
+		}
+	}
 	if p, ok := t.planar(fixed, rest); !ok || p {
 		return nil, false
 	}
@@ -193,6 +219,103 @@ func findKuratowskiLocal(n int, edges [][2]int32, must []int32, budget *Budget) 
 	}
 	sub := append(fixed, need...)
 	return classify(edges, sub)
+}
+
+// nearFirstSize is the least number of candidate edges for which the
+// group deletion of findKuratowskiLocal first narrows them to a tube
+// around the edge it must keep (see nearFirst).
+const nearFirstSize = 200
+
+// nearFirst returns the edges of rest inside the smallest tube of radius
+// 1, 2, 4, ... around a shortest path between the ends of edge e (in the
+// graph of rest) that, with fixed, is non-planar, or rest itself when no
+// smaller tube is (ok is false when the budget ran out). An edge set aside
+// from a big mesh has a Kuratowski subgraph along such a path: in a
+// triangulation, the wheel around one end, three disjoint paths from the
+// other end to that wheel, and the edge make a subdivision of K5, and the
+// tube of radius 1 holds one. The group deletion then works on the tube's
+// edges, farthest from the path first, instead of the whole block's; each
+// tube costs one test and a pass over rest.
+func nearFirst(t *tester, n int, edges [][2]int32, fixed, rest []int32, e int32) ([]int32, bool) {
+	if !t.budget.spend(2 * len(rest)) { // the adjacency and the path search
+		return nil, false
+	}
+	all := t.pick(rest)
+	g := newCSR(n, all)
+	other := func(d int32) int32 { return all[d>>1][1-d&1] }
+	dist := make([]int32, n)
+	for v := range dist {
+		dist[v] = -1
+	}
+	// A shortest path from one end of e to the other, without e (which
+	// is in fixed), by breadth-first search with parent darts.
+	from, to := edges[e][0], edges[e][1]
+	parent := make([]int32, n)
+	queue := make([]int32, 0, 64)
+	queue = append(queue, from)
+	dist[from] = 0
+	for head := 0; head < len(queue) && dist[to] < 0; head++ {
+		x := queue[head]
+		for _, d := range g.adj[g.start[x]:g.start[x+1]] {
+			if w := other(d); dist[w] < 0 {
+				dist[w], parent[w] = 0, d
+				queue = append(queue, w)
+			}
+		}
+	}
+	if dist[to] < 0 {
+		return rest, true // no such path: e is on no cycle of rest
+	}
+	for _, v := range queue {
+		dist[v] = -1
+	}
+	// The path's vertices are the sources of the tube's search.
+	queue = queue[:0]
+	for v := to; ; v = all[parent[v]>>1][parent[v]&1] { // the dart's own end
+		dist[v] = 0
+		queue = append(queue, v)
+		if v == from {
+			break
+		}
+	}
+	head := 0
+	var tube []int32
+	for radius := int32(1); ; radius *= 2 {
+		for head < len(queue) && dist[queue[head]] < radius {
+			x := queue[head]
+			head++
+			for _, d := range g.adj[g.start[x]:g.start[x+1]] {
+				if w := other(d); dist[w] < 0 {
+					dist[w] = dist[x] + 1
+					queue = append(queue, w)
+				}
+			}
+		}
+		if !t.budget.spend(len(rest)) {
+			return nil, false
+		}
+		tube = tube[:0]
+		for _, i := range rest {
+			if a, b := dist[edges[i][0]], dist[edges[i][1]]; a >= 0 && b >= 0 && a <= radius && b <= radius {
+				tube = append(tube, i)
+			}
+		}
+		if len(tube) == len(rest) || head == len(queue) {
+			return rest, true
+		}
+		p, ok := t.planar(fixed, tube)
+		if !ok {
+			return nil, false
+		}
+		if !p {
+			// Farthest first: the group deletion drops its leading
+			// edges first, and the far ones are the likeliest to go.
+			far := func(i int32) int32 { return max(dist[edges[i][0]], dist[edges[i][1]]) }
+			tube = slices.Clone(tube)
+			slices.SortStableFunc(tube, func(a, b int32) int { return int(far(b) - far(a)) })
+			return tube, true
+		}
+	}
 }
 
 // blockOf returns the edges of subset that lie in the same biconnected

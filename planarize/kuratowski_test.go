@@ -481,11 +481,17 @@ func TestExplainRemovedEdges(t *testing.T) {
 		joinAt(graphgen.Complete(5), 2, graphgen.CompleteBipartite(3, 3)),
 		graphgen.PlanarPlusExtra(300, 5, 1),
 		graphgen.PlanarPlusExtra(40, 30, 2),
+		// Past nearFirstSize: the search narrows to a ball first.
+		graphgen.PlanarPlusExtra(3000, 5, 3),
+		graphgen.WithStrays(graphgen.RandomPlanar(3000, 0.6, 3), 10, 3),
+		graphgen.WithStrays(graphgen.Grid(40, 40), 10, 3),
+		graphgen.RandomGnm(400, 1200, 7),
 	}
 	for seed := range uint64(6) {
 		gs = append(gs, graphgen.RandomGnm(30+10*int(seed), 90+40*int(seed), seed))
 	}
 	for _, g := range gs {
+		g.Edges, _ = Simplify(g.N, g.Edges) // strays may repeat an edge or be loops
 		res := MaximalPlanar(g.N, g.Edges, SubgraphOptions{})
 		gone := make([]bool, len(g.Edges))
 		for _, e := range res.Removed {
@@ -512,6 +518,45 @@ func TestExplainRemovedEdges(t *testing.T) {
 				t.Errorf("%s: removed edge %d: %v", g.Name, e, err)
 			}
 		}
+	}
+}
+
+// TestExplainWithinBudget checks that certificates for strays in a big
+// mesh come within the command's work bound for one certificate (20
+// million, cmd/gridwood explainBudgetEach): the search narrows to a ball
+// around the stray's ends before deleting edges. Before that, none of the
+// 8 certificates of a 10^5-vertex random planar graph plus 10 random pairs
+// was computed.
+func TestExplainWithinBudget(t *testing.T) {
+	const each = 20_000_000
+	g := graphgen.WithStrays(graphgen.RandomPlanar(30000, 0.6, 5), 10, 5)
+	edges, _ := Simplify(g.N, g.Edges)
+	res := MaximalPlanar(g.N, edges, SubgraphOptions{})
+	if len(res.Removed) == 0 {
+		t.Fatal("no edge set aside: the strays are planar with the mesh")
+	}
+	gone := make([]bool, len(edges))
+	for _, e := range res.Removed {
+		gone[e] = true
+	}
+	var kept []int32
+	for i := range edges {
+		if !gone[i] {
+			kept = append(kept, int32(i))
+		}
+	}
+	for _, e := range res.Removed {
+		subset := append(slices.Clone(kept), e)
+		budget := &Budget{Left: each}
+		k, ok, err := findKuratowski(g.N, edges, subset, []int32{e}, budget)
+		if err != nil || !ok {
+			t.Errorf("removed edge %d: ok=%v err=%v, want a certificate within %d", e, ok, err, each)
+			continue
+		}
+		if err := checkKuratowski(g.N, edges, subset, []int32{e}, k); err != nil {
+			t.Errorf("removed edge %d: %v", e, err)
+		}
+		t.Logf("edge %d: %s, %d edges, %d of the budget spent", e, k.Kind, len(k.Edges), each-budget.Left)
 	}
 }
 

@@ -20,7 +20,8 @@ func SquareGrid(n int) Graph {
 // Named builds the benchmark family with the given name at about n
 // vertices: tri (RandomMaximalPlanar), grid (SquareGrid), tree, planar
 // (RandomPlanar keeping 60%), extra (PlanarPlusExtra with extra edges),
-// planar-extra (the random planar graph WithStrays, extra of them), star,
+// planar-extra (the random planar graph WithStrays, extra of them), gnm
+// (RandomGnm with 3n edges), star,
 // path or nested (NestedTriangles of n/3 levels). ok is false for an
 // unknown name.
 func Named(family string, n, extra int, seed uint64) (g Graph, ok bool) {
@@ -37,6 +38,8 @@ func Named(family string, n, extra int, seed uint64) (g Graph, ok bool) {
 		return PlanarPlusExtra(n, extra, seed), true
 	case "planar-extra":
 		return WithStrays(RandomPlanar(n, 0.6, seed), extra, seed), true
+	case "gnm":
+		return RandomGnm(n, 3*n, seed), true
 	case "star":
 		return Star(n - 1), true
 	case "path":
