@@ -608,7 +608,19 @@ type greedySearch struct {
 	// first group; tookTriangles says that they passed together.
 	triangles     int
 	tookTriangles bool
+	proof         *localProof // made at the first single-edge test of a big block
+	proofMisses   int         // failed proofs in a row
+	proofSkip     int         // single-edge candidates to test without a proof
 }
+
+// localProofSize is the least kept graph, in edges, on which a single
+// candidate is first tried with a localProof: below it a whole test is as
+// cheap. localProofWork is the least work bound of its path search; it is
+// a quarter of the kept graph when that is more.
+const (
+	localProofSize = 2000
+	localProofWork = 4096
+)
 
 func newGreedySearch(n int, edges [][2]int32, adj csr, order, support []int32, by int, dense seeded, limit int) *greedySearch {
 	g := &greedySearch{support: support, by: by, limit: limit, t: &tester{n: n, edges: edges}, chunk: 1}
@@ -695,6 +707,26 @@ func (g *greedySearch) run() bool {
 			k = g.failing / 2
 		}
 		group := g.cand[g.i : g.i+k]
+		if k == 1 && g.failing == 0 && len(g.kept) >= localProofSize {
+			if g.proof == nil {
+				g.proof = newLocalProof(g.t.n, g.t.edges, g.kept)
+			}
+			if g.proofSkip > 0 {
+				g.proofSkip--
+			} else if g.proof.rejects(group[0], max(localProofWork, len(g.kept)/4)) {
+				g.rejected = append(g.rejected, group[0])
+				g.i++
+				g.proofMisses = 0
+				continue
+			} else {
+				// After m failed proofs in a row, skip the next m
+				// candidates: where tubes prove nothing (a random
+				// graph) the proofs cost little, where they do they
+				// are never skipped.
+				g.proofMisses++
+				g.proofSkip = g.proofMisses
+			}
+		}
 		p, ok := g.t.planar(g.kept, group)
 		if !ok {
 			return false
@@ -705,6 +737,9 @@ func (g *greedySearch) run() bool {
 				g.tookTriangles = true
 			}
 			g.kept = append(g.kept, group...)
+			if g.proof != nil {
+				g.proof.add(group)
+			}
 			g.i += k
 			g.good += k
 			if g.failing > 0 {

@@ -1,0 +1,91 @@
+package planarize
+
+import (
+	"math/rand/v2"
+	"testing"
+
+	"github.com/gridwood/gridwood/internal/graphgen"
+)
+
+// TestLocalProofSound checks localProof against the whole left-right test:
+// a proof must never call a planar graph non-planar. The kept graphs are
+// random triangulations (where every added edge between non-adjacent
+// vertices breaks planarity, by Euler's formula: 3n-6 edges is the most a
+// planar graph has) and random 60% parts of them (where many added edges
+// keep it planar); the candidates are random pairs. On the triangulations
+// nearly every candidate must be proved, as the tube around a shortest
+// path holds a subdivision of K5 (see localProof).
+func TestLocalProofSound(t *testing.T) {
+	for _, tc := range []struct {
+		g         graphgen.Graph
+		minProved float64 // the least share of non-planar candidates proved
+	}{
+		{graphgen.RandomMaximalPlanar(3000, 1), 0.95},
+		{graphgen.RandomMaximalPlanar(500, 2), 0.95},
+		{graphgen.RandomPlanar(3000, 0.6, 3), 0},
+		{graphgen.Grid(40, 40), 0},
+	} {
+		g := tc.g
+		edges, _ := Simplify(g.N, g.Edges)
+		adjacent := map[[2]int32]bool{}
+		for _, e := range edges {
+			adjacent[pairKey(e[0], e[1])] = true
+		}
+		kept := identity(len(edges))
+		rng := rand.New(rand.NewPCG(uint64(g.N), 7))
+		var cands [][2]int32
+		for len(cands) < 300 {
+			u, v := int32(rng.IntN(g.N)), int32(rng.IntN(g.N))
+			if u != v && !adjacent[pairKey(u, v)] {
+				cands = append(cands, [2]int32{u, v})
+			}
+		}
+		all := append(append([][2]int32(nil), edges...), cands...)
+		p := newLocalProof(g.N, all, kept)
+		nonPlanar, proved := 0, 0
+		for i, c := range cands {
+			e := int32(len(edges) + i)
+			planar := IsPlanar(g.N, append(append([][2]int32(nil), edges...), c))
+			if !planar {
+				nonPlanar++
+			}
+			if p.rejects(e, 1<<30) {
+				if planar {
+					t.Fatalf("%s: pair %v proved non-planar, but the graph with it is planar", g.Name, c)
+				}
+				proved++
+			}
+		}
+		t.Logf("%s: %d of %d non-planar candidates proved locally", g.Name, proved, nonPlanar)
+		if float64(proved) < tc.minProved*float64(nonPlanar) {
+			t.Errorf("%s: %d of %d non-planar candidates proved, want at least %.0f%%", g.Name, proved, nonPlanar, 100*tc.minProved)
+		}
+	}
+}
+
+// TestLocalProofWorkBound checks that a path search past its work bound
+// gives up instead of proving: a triangulation plus a pair, with a bound
+// too small to reach from one end to the other.
+func TestLocalProofWorkBound(t *testing.T) {
+	g := graphgen.RandomMaximalPlanar(2000, 4)
+	edges, _ := Simplify(g.N, g.Edges)
+	adjacent := map[[2]int32]bool{}
+	for _, e := range edges {
+		adjacent[pairKey(e[0], e[1])] = true
+	}
+	var c [2]int32
+	for v := int32(1); ; v++ {
+		if !adjacent[pairKey(0, v)] {
+			c = [2]int32{0, v}
+			break
+		}
+	}
+	all := append(append([][2]int32(nil), edges...), c)
+	p := newLocalProof(g.N, all, identity(len(edges)))
+	if p.rejects(int32(len(edges)), 1) {
+		t.Fatal("proved with a work bound of 1")
+	}
+	if !p.rejects(int32(len(edges)), 1<<30) {
+		t.Fatal("not proved without a bound")
+	}
+}
