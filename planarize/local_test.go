@@ -2,6 +2,7 @@ package planarize
 
 import (
 	"math/rand/v2"
+	"slices"
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/graphgen"
@@ -87,5 +88,28 @@ func TestLocalProofWorkBound(t *testing.T) {
 	}
 	if !p.rejects(int32(len(edges)), 1<<30) {
 		t.Fatal("not proved without a bound")
+	}
+}
+
+// TestLocalProofSameResult checks that the local proofs change the time
+// of MaximalPlanar and nothing else: on a triangulation plus as many random
+// pairs (where the proofs reject most strays) the set aside is the same
+// with them and without, planar and inclusion-minimal (checkSubgraph).
+func TestLocalProofSameResult(t *testing.T) {
+	g := graphgen.PlanarPlusExtra(1500, 1500, 9)
+	edges, _ := Simplify(g.N, g.Edges)
+	with := MaximalPlanar(g.N, edges, SubgraphOptions{})
+	saved := localProofSize
+	localProofSize = 1 << 30
+	without := MaximalPlanar(g.N, edges, SubgraphOptions{})
+	localProofSize = saved
+	if !slices.Equal(with.Removed, without.Removed) {
+		t.Fatalf("%d set aside with local proofs, %d without, or other edges", len(with.Removed), len(without.Removed))
+	}
+	if err := checkSubgraph(g.N, edges, with, -1); err != nil {
+		t.Fatal(err)
+	}
+	if len(with.Removed) < 1500 {
+		t.Fatalf("%d set aside: fewer than the Euler bound allows", len(with.Removed))
 	}
 }

@@ -617,10 +617,9 @@ type greedySearch struct {
 // candidate is first tried with a localProof: below it a whole test is as
 // cheap. localProofWork is the least work bound of its path search; it is
 // a quarter of the kept graph when that is more.
-const (
-	localProofSize = 2000
-	localProofWork = 4096
-)
+var localProofSize = 2000 // a variable for the test that turns the proofs off
+
+const localProofWork = 4096
 
 func newGreedySearch(n int, edges [][2]int32, adj csr, order, support []int32, by int, dense seeded, limit int) *greedySearch {
 	g := &greedySearch{support: support, by: by, limit: limit, t: &tester{n: n, edges: edges}, chunk: 1}
