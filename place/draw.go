@@ -20,8 +20,9 @@ var errNotPlanar = errors.New("place: internal error: kept subgraph is not plana
 type DrawOptions struct {
 	Layout   Options
 	Subgraph planarize.SubgraphOptions
-	// Progress, if set, is called as each stage of Draw begins, with the
-	// stage's name and roughly how far through Draw it starts (0 to 1).
+	// Progress, if set, is called as each stage of Draw begins, and now
+	// and then during the planar subgraph, with the stage's name and
+	// roughly how far through Draw the run is (0 to 1).
 	Progress func(stage string, done float64)
 }
 
@@ -107,7 +108,11 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	emb, ok := planarize.Embed(n, local)
 	if !ok {
 		progress("planar subgraph", 0.4)
-		sub := planarize.MaximalPlanar(n, local, opt.Subgraph)
+		subOpt := opt.Subgraph
+		if subOpt.Progress == nil {
+			subOpt.Progress = func(done float64) { progress("planar subgraph", 0.4+0.3*done) }
+		}
+		sub := planarize.MaximalPlanar(n, local, subOpt)
 		res.Optimal, res.LowerBound = sub.Optimal, sub.LowerBound
 		res.RemovedPairs = len(sub.Removed)
 		gone := make([]bool, len(simple)) // by original pair index

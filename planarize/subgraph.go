@@ -14,6 +14,10 @@ type SubgraphOptions struct {
 	// work bound for the exact search on small blocks. The result for a
 	// given Effort is deterministic.
 	Effort int
+	// Progress, if set, is called now and then with the share of the
+	// edges decided so far (0 to 1, never decreasing), for a progress
+	// display. It does not change the result.
+	Progress func(done float64)
 }
 
 // Subgraph is the result of MaximalPlanar.
@@ -91,8 +95,20 @@ func MaximalPlanar(n int, edges [][2]int32, opt SubgraphOptions) *Subgraph {
 	}
 	var vs []int32
 	var sub [][2]int32
+	shown := 0.0
+	report := func(decided int, share float64) {} // decided edges before the block, share of the block
+	if opt.Progress != nil {
+		report = func(decided int, share float64) {
+			if d := (float64(decided) + share*float64(len(edges))) / float64(len(edges)); d > shown {
+				shown = d
+				opt.Progress(d)
+			}
+		}
+	}
 	for b := range nb {
 		ids := byBlock[start[b]:start[b+1]]
+		decided := int(start[b])
+		report(decided, 0)
 		if len(ids) < 9 {
 			continue // fewer edges than K3,3 has: planar
 		}
@@ -113,13 +129,16 @@ func MaximalPlanar(n int, edges [][2]int32, opt SubgraphOptions) *Subgraph {
 		if len(ids) < len(edges) && IsPlanar(len(vs), sub) {
 			continue // (a block holding every edge is the graph: known non-planar)
 		}
-		r, lb, optimal := planarizeBlock(len(vs), sub, opt)
+		blockOpt := opt
+		blockOpt.Progress = func(done float64) { report(decided, done*float64(len(ids))/float64(len(edges))) }
+		r, lb, optimal := planarizeBlock(len(vs), sub, blockOpt)
 		for _, i := range r {
 			res.Removed = append(res.Removed, ids[i])
 		}
 		res.LowerBound += lb
 		res.Optimal = res.Optimal && optimal
 	}
+	report(len(edges), 0)
 	slices.Sort(res.Removed)
 	return res
 }
@@ -150,14 +169,14 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 		}
 	}
 	if alt == nil {
-		best = greedyPlanar(n, edges, g, order, support, dense, limit)
+		best = greedyPlanar(n, edges, g, order, support, dense, limit, opt.Progress)
 	} else {
-		best = bothOrders(n, edges, g, [2][]int32{order, alt}, support, dense, limit, lower)
+		best = bothOrders(n, edges, g, [2][]int32{order, alt}, support, dense, limit, lower, opt.Progress)
 	}
 	if dense.edges != nil && len(edges) <= bothSeedsLimit && len(best) > lower {
 		// Small dense blocks can afford the cactus seed as well; keep the
 		// better of the two.
-		if cand := greedyPlanar(n, edges, g, order, support, seeded{}, limit); len(cand) < len(best) {
+		if cand := greedyPlanar(n, edges, g, order, support, seeded{}, limit, nil); len(cand) < len(best) {
 			best = cand
 		}
 	}
@@ -173,7 +192,7 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 		} else {
 			sup = nil
 		}
-		if cand := greedyPlanar(n, edges, g, perm, sup, dense, limit); len(cand) < len(best) {
+		if cand := greedyPlanar(n, edges, g, perm, sup, dense, limit, nil); len(cand) < len(best) {
 			best = cand
 		}
 	}
@@ -206,7 +225,7 @@ func planarizeBlock(n int, edges [][2]int32, opt SubgraphOptions) (removed []int
 // reach the lower bound wins, and once one has finished, the other may
 // spend up to twice its work. That costs at most three times the faster
 // search, and the outcome depends on counted work only, never on timing.
-func bothOrders(n int, edges [][2]int32, g csr, orders [2][]int32, support []int32, dense seeded, limit, lower int) []int32 {
+func bothOrders(n int, edges [][2]int32, g csr, orders [2][]int32, support []int32, dense seeded, limit, lower int, report func(float64)) []int32 {
 	var search [2]*greedySearch
 	var done [2]bool
 	var work [2]int64
@@ -218,6 +237,7 @@ func bothOrders(n int, edges [][2]int32, g csr, orders [2][]int32, support []int
 			}
 			if search[i] == nil { // made when first needed: seeding costs O(m)
 				search[i] = newGreedySearch(n, edges, g, orders[i], support, by, dense, limit)
+				search[i].report = report
 			}
 			gs := search[i]
 			gs.t.budget = &Budget{Left: slice}
@@ -583,8 +603,9 @@ func bySupport(support, order []int32, by int) []int32 {
 // On a dense block (see denseSeed) the seed is a stacked triangulation or
 // a quadrangulation instead, and every edge between two of its vertices is
 // rejected without a test.
-func greedyPlanar(n int, edges [][2]int32, g csr, order, support []int32, dense seeded, limit int) []int32 {
+func greedyPlanar(n int, edges [][2]int32, g csr, order, support []int32, dense seeded, limit int, report func(float64)) []int32 {
 	gs := newGreedySearch(n, edges, g, order, support, denseFirst, dense, limit)
+	gs.report = report
 	gs.run() // no budget: runs to the end
 	return gs.result()
 }
@@ -611,6 +632,8 @@ type greedySearch struct {
 	proof         *localProof // made at the first single-edge test of a big block
 	proofMisses   int         // failed proofs in a row
 	proofSkip     int         // single-edge candidates to test without a proof
+	report        func(done float64)
+	nextReport    int // the candidate index at which to report next
 }
 
 // localProofSize is the least kept graph, in edges, on which a single
@@ -683,6 +706,10 @@ func (g *greedySearch) levelEnd(i int) int {
 // edges cost few tests and a cluster of bad ones about one test each.
 func (g *greedySearch) run() bool {
 	for g.i < len(g.cand) {
+		if g.report != nil && g.i >= g.nextReport {
+			g.report(float64(g.i) / float64(len(g.cand)))
+			g.nextReport = g.i + len(g.cand)/200 + 1
+		}
 		if len(g.kept) >= g.limit {
 			g.rejected = append(g.rejected, g.cand[g.i:]...)
 			g.i = len(g.cand)

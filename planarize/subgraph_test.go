@@ -479,3 +479,27 @@ func BenchmarkMaximalPlanar(b *testing.B) {
 		}
 	})
 }
+
+// TestMaximalPlanarProgress checks the progress reports: never falling,
+// between 0 and 1, ending at 1, and without effect on the result.
+func TestMaximalPlanarProgress(t *testing.T) {
+	g := graphgen.PlanarPlusExtra(2000, 300, 4)
+	edges, _ := Simplify(g.N, g.Edges)
+	plain := MaximalPlanar(g.N, edges, SubgraphOptions{})
+	var seen []float64
+	watched := MaximalPlanar(g.N, edges, SubgraphOptions{Progress: func(done float64) { seen = append(seen, done) }})
+	if !slices.Equal(plain.Removed, watched.Removed) {
+		t.Fatalf("%d set aside with progress reports, %d without", len(watched.Removed), len(plain.Removed))
+	}
+	if len(seen) < 3 {
+		t.Fatalf("%d progress reports: %v", len(seen), seen)
+	}
+	for i, d := range seen {
+		if d < 0 || d > 1 || i > 0 && d < seen[i-1] {
+			t.Fatalf("report %d of %d is %v after %v", i, len(seen), d, seen[max(0, i-1)])
+		}
+	}
+	if last := seen[len(seen)-1]; last != 1 {
+		t.Fatalf("last report %v, want 1", last)
+	}
+}
