@@ -15,8 +15,8 @@ import (
 // examples/Makefile and examples/*.dot (the tracked files are never touched):
 // one make lays out every example (DOT, SVG, removed edges), a second finds
 // nothing to do, touching one input rebuilds exactly that one, deleting one
-// output rebuilds it, and make check lints the built drawings and finds every
-// one clean.
+// output rebuilds it, make check lints the built drawings and finds every
+// one clean, and deleting an input removes its outputs.
 func TestExamplesMakefile(t *testing.T) {
 	if testing.Short() {
 		t.Skip("builds the command")
@@ -191,6 +191,22 @@ func TestExamplesMakefile(t *testing.T) {
 	if msg, err := mk("check"); err == nil || strings.Contains(msg, "--drop-removed") {
 		t.Errorf("make check with every node of %s at 0,0: %v (want a failure, without a new layout)\n%s", touched, err, msg)
 	}
+	// Deleting an input removes its outputs, and only those.
+	if err := os.Remove(filepath.Join(dir, other+".dot")); err != nil {
+		t.Fatal(err)
+	}
+	if msg, err := mk(); err != nil {
+		t.Fatalf("make after deleting %s.dot: %v\n%s", other, err, msg)
+	}
+	for _, name := range names {
+		for _, suffix := range append(suffixes, ".kept.dot") {
+			_, err := os.Stat(filepath.Join(out, name+suffix))
+			if gone := os.IsNotExist(err); gone != (name == other) {
+				t.Errorf("after deleting %s.dot: %s%s gone=%v", other, name, suffix, gone)
+			}
+		}
+	}
+	upToDate("after deleting an input")
 }
 
 // makefileNewer reports whether src is newer than every out/NAME+suffix.
