@@ -50,7 +50,7 @@ func TestLocalProofSound(t *testing.T) {
 			if !planar {
 				nonPlanar++
 			}
-			if p.rejects(e, 1<<30) {
+			if ok, _ := p.rejects(e, 1<<30); ok {
 				if planar {
 					t.Fatalf("%s: pair %v proved non-planar, but the graph with it is planar", g.Name, c)
 				}
@@ -83,11 +83,11 @@ func TestLocalProofWorkBound(t *testing.T) {
 	}
 	all := append(append([][2]int32(nil), edges...), c)
 	p := newLocalProof(g.N, all, identity(len(edges)))
-	if p.rejects(int32(len(edges)), 1) {
+	if proved, _ := p.rejects(int32(len(edges)), 1); proved {
 		t.Fatal("proved with a work bound of 1")
 	}
-	if !p.rejects(int32(len(edges)), 1<<30) {
-		t.Fatal("not proved without a bound")
+	if proved, spent := p.rejects(int32(len(edges)), 1<<30); !proved || spent == 0 {
+		t.Fatalf("not proved without a bound (proved=%v after %d steps)", proved, spent)
 	}
 }
 

@@ -248,9 +248,9 @@ func bothOrders(n int, edges [][2]int32, g csr, orders [2][]int32, support []int
 			}
 			if i == 0 && search[1] == nil && gs.tookTriangles {
 				// Every edge on a triangle went in at once: the
-				// mesh-first order, which differs only in the order of
-				// those edges (and through them in the cactus seed), is
-				// not worth its time.
+				// mesh-first order differs only in the order of those
+				// edges (and of the seed's, picked from the same order
+				// of the rest), so it would keep the same edges.
 				gs.t.budget = nil
 				gs.run()
 				return gs.result()
@@ -452,11 +452,12 @@ func meshLike(support []int32) bool {
 	return 2*k >= len(support)
 }
 
-// markLongCycles codes the edges on no triangle and no 4-cycle, in the
-// triangle counts, by the length l of a shortest cycle through them, as
-// 4-l (-1 for a 5-cycle and down), or as noShortCycle when none has up to
-// maxCycleLength edges. Such edges go last in both orders, by increasing
-// length, and those on no short cycle very last.
+// noShortCycle is the code, in the triangle counts, of an edge on no
+// triangle and on no cycle of up to maxCycleLength edges; markLongCycles
+// codes an edge on no triangle and no 4-cycle whose shortest cycle has l
+// edges, up to maxCycleLength, as 4-l (-1 for a 5-cycle and down). Such
+// edges go last in both orders, by increasing length, and those on no
+// short cycle very last.
 const noShortCycle = 3 - maxCycleLength
 
 // maxCycleLength is the longest cycle markLongCycles looks for through an
@@ -629,9 +630,10 @@ type greedySearch struct {
 	// first group; tookTriangles says that they passed together.
 	triangles     int
 	tookTriangles bool
-	proof         *localProof // made at the first single-edge test of a big block
+	proof         *localProof // made at the first single-candidate test once the kept graph has localProofSize edges
 	proofMisses   int         // failed proofs in a row
-	proofSkip     int         // single-edge candidates to test without a proof
+	proofSkip     int         // single candidates to test without a proof
+	proofTried    int         // the candidate index of the last proof step, or -1
 	report        func(done float64)
 	nextReport    int // the candidate index at which to report next
 }
@@ -645,7 +647,7 @@ var localProofSize = 2000 // a variable for the test that turns the proofs off
 const localProofWork = 4096
 
 func newGreedySearch(n int, edges [][2]int32, adj csr, order, support []int32, by int, dense seeded, limit int) *greedySearch {
-	g := &greedySearch{support: support, by: by, limit: limit, t: &tester{n: n, edges: edges}, chunk: 1}
+	g := &greedySearch{support: support, by: by, limit: limit, t: &tester{n: n, edges: edges}, chunk: 1, proofTried: -1}
 	// The dense seed is shared by every search of the block: each grows
 	// its own copy.
 	kept, spanned := slices.Clone(dense.edges), dense.spanned
@@ -733,18 +735,25 @@ func (g *greedySearch) run() bool {
 			k = g.failing / 2
 		}
 		group := g.cand[g.i : g.i+k]
-		if k == 1 && g.failing == 0 && len(g.kept) >= localProofSize {
+		if k == 1 && g.failing == 0 && len(g.kept) >= localProofSize && g.proofTried != g.i {
+			// g.proofTried: a test that did not fit the budget is repeated
+			// on re-entry, without a second proof or back-off step.
+			g.proofTried = g.i
 			if g.proof == nil {
 				g.proof = newLocalProof(g.t.n, g.t.edges, g.kept)
 			}
 			if g.proofSkip > 0 {
 				g.proofSkip--
-			} else if g.proof.rejects(group[0], max(localProofWork, len(g.kept)/4)) {
-				g.rejected = append(g.rejected, group[0])
-				g.i++
-				g.proofMisses = 0
-				continue
 			} else {
+				proved, spent := g.proof.rejects(group[0], max(localProofWork, len(g.kept)/4))
+				g.t.budget.spend(spent) // counted work, as the tests' (an overdraft stops the next test)
+				if proved {
+					g.rejected = append(g.rejected, group[0])
+					g.i++
+					g.good = 0
+					g.proofMisses = 0
+					continue
+				}
 				// After m failed proofs in a row, skip the next m
 				// candidates: where tubes prove nothing (a random
 				// graph) the proofs cost little, where they do they

@@ -503,3 +503,100 @@ func TestMaximalPlanarProgress(t *testing.T) {
 		t.Fatalf("last report %v, want 1", last)
 	}
 }
+
+// oneAtATime is the plain statement of the greedy search: from the same
+// seed and the same candidates, each candidate is kept if the kept graph
+// with it is planar (one whole test each), and rejected otherwise or once
+// the kept graph holds Euler's bound.
+func oneAtATime(gs *greedySearch, edges [][2]int32, n int) []int32 {
+	kept := slices.Clone(gs.kept)
+	rejected := slices.Clone(gs.rejected)
+	for _, e := range gs.cand {
+		if len(kept) >= gs.limit {
+			rejected = append(rejected, e)
+			continue
+		}
+		var with [][2]int32
+		for _, k := range kept {
+			with = append(with, edges[k])
+		}
+		if IsPlanar(n, append(with, edges[e])) {
+			kept = append(kept, e)
+		} else {
+			rejected = append(rejected, e)
+		}
+	}
+	slices.Sort(rejected)
+	return rejected
+}
+
+// TestGreedyMatchesOneAtATime checks that the group testing, the local
+// proofs and stopping and going on under a work budget (as bothOrders
+// runs the searches) change the cost of the greedy search and nothing
+// else: in both orders, from both seeds, with the proofs off and on from
+// small kept graphs, the rejected edges are those of oneAtATime.
+func TestGreedyMatchesOneAtATime(t *testing.T) {
+	gs := []graphgen.Graph{
+		graphgen.PlanarPlusExtra(300, 40, 1),
+		graphgen.PlanarPlusExtra(200, 200, 2),
+		graphgen.WithStrays(graphgen.RandomPlanar(400, 0.6, 3), 30, 3),
+		graphgen.WithStrays(graphgen.Grid(15, 15), 25, 3),
+		graphgen.RandomGnm(120, 360, 5),
+		graphgen.Complete(12),
+		graphgen.CompleteBipartite(6, 7),
+	}
+	saved := localProofSize
+	defer func() { localProofSize = saved }()
+	proofs := 0
+	for _, from := range []int{1 << 30, 5} {
+		localProofSize = from
+		for _, gg := range gs {
+			_, renamed, _ := order.DepthFirst(gg.N, gg.Edges)
+			edges, _ := Simplify(gg.N, renamed)
+			n := gg.N
+			adj := newCSR(n, edges)
+			limit := edgeLimit(n, edges, adj)
+			start, support := analyseBlock(n, edges, adj)
+			if support != nil {
+				markLongCycles(n, edges, adj, support)
+			}
+			dense := denseSeed(n, edges, adj, start)
+			for _, by := range []int{denseFirst, meshFirst} {
+				ord := identity(len(edges))
+				if support != nil {
+					ord = bySupport(support, ord, by)
+				}
+				for _, seed := range []seeded{dense, {}} {
+					search := func() *greedySearch { return newGreedySearch(n, edges, adj, ord, support, by, seed, limit) }
+					a := search()
+					want := oneAtATime(a, edges, n)
+					a.run()
+					if a.proof != nil {
+						proofs += int(a.proof.stamp)
+					}
+					if got := a.result(); !slices.Equal(got, want) {
+						t.Errorf("%s, proofs from %d, order %d: %d rejected, one at a time %d", gg.Name, from, by, len(got), len(want))
+					}
+					for _, slice := range []int64{int64(len(edges)) + 1, int64(2*len(edges)) + 3} {
+						b := search()
+						for rounds := 0; ; rounds++ {
+							b.t.budget = &Budget{Left: slice}
+							if b.run() {
+								break
+							}
+							if rounds > 1_000_000 {
+								t.Fatalf("%s: no progress with slices of %d", gg.Name, slice)
+							}
+						}
+						if got := b.result(); !slices.Equal(got, want) {
+							t.Errorf("%s, proofs from %d, order %d, slices of %d: %d rejected, one at a time %d", gg.Name, from, by, slice, len(got), len(want))
+						}
+					}
+				}
+			}
+		}
+	}
+	if proofs == 0 {
+		t.Error("no local proof was tried: the proofs are not tested")
+	}
+}

@@ -15,7 +15,7 @@ import (
 func main() {
 	family := flag.String("family", "tri", "tri (random triangulation), grid (k x k grid), tree, planar (random planar), extra (triangulation plus -extra edges), planar-extra (random planar plus -extra random pairs), gnm (random graph, 3n edges), star, path, nested")
 	n := flag.Int("n", 1000, "number of vertices (for grid: the side is the square root)")
-	extra := flag.Int("extra", 10, "extra edges for -family extra")
+	extra := flag.Int("extra", 10, "extra edges for -family extra and planar-extra")
 	seed := flag.Uint64("seed", 1, "random seed")
 	flag.Parse()
 	g, ok := graphgen.Named(*family, *n, *extra, *seed)
