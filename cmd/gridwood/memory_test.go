@@ -1,6 +1,8 @@
 package main
 
 import (
+	"math"
+	"runtime/debug"
 	"strings"
 	"testing"
 )
@@ -13,9 +15,11 @@ import (
 // silently. A file of many tiny graphs is judged by its graphs, not only
 // its bytes.
 func TestMemoryGuard(t *testing.T) {
-	saved := availableMemory
-	defer func() { availableMemory = saved }()
-	src := "graph G { a -- b -- c -- a }\n" // 29 bytes, one brace, one graph
+	saved, savedFloor := availableMemory, guardFloor
+	defer func() { availableMemory, guardFloor = saved, savedFloor }()
+	defer debug.SetMemoryLimit(math.MaxInt64) // the guard sets it for the pretended machine
+	guardFloor = 0                            // ask the pretended machine even for these small inputs
+	src := "graph G { a -- b -- c -- a }\n"   // 29 bytes, one brace, one graph
 	least := 29*leastBytesPerByte + leastPerBrace + leastPerGraph
 	typical := 29*typicalBytesPerByte + typicalPerBrace + typicalPerGraph
 	tiny := strings.Repeat("graph{a--b}\n", 1000) // 12,000 bytes
@@ -47,5 +51,29 @@ func TestMemoryGuard(t *testing.T) {
 	// The real machine's figure, where the system has one, is positive.
 	if avail, ok := saved(); ok && avail <= 0 {
 		t.Errorf("available memory %d", avail)
+	}
+}
+
+// TestMemoryGuardLazy checks that small input does not ask the machine
+// (the reads cost a tenth of a small graph's run) and big input does.
+func TestMemoryGuardLazy(t *testing.T) {
+	saved := availableMemory
+	defer func() { availableMemory = saved }()
+	defer debug.SetMemoryLimit(math.MaxInt64)
+	asked := 0
+	availableMemory = func() (int64, bool) { asked++; return 1 << 40, true }
+	m := newMemoryGuard()
+	note := func(string, ...any) {}
+	if err := m.admit("small", inputCost{bytes: 10_000, braces: 1, graphs: 1}, note); err != nil || asked != 0 {
+		t.Fatalf("small input: err %v, machine asked %d times, want 0", err, asked)
+	}
+	big := inputCost{bytes: guardFloor / typicalBytesPerByte, braces: 1, graphs: 1}
+	for range 2 {
+		if err := m.admit("big", big, note); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if asked != 1 {
+		t.Fatalf("big input: machine asked %d times, want once", asked)
 	}
 }
