@@ -21,9 +21,8 @@ func SquareGrid(n int) Graph {
 // vertices: tri (RandomMaximalPlanar), grid (SquareGrid), tree, planar
 // (RandomPlanar keeping 60%), extra (PlanarPlusExtra with extra edges),
 // planar-extra (the random planar graph WithStrays, extra of them), gnm
-// (RandomGnm with 3n edges), star,
-// path or nested (NestedTriangles of n/3 levels). ok is false for an
-// unknown name.
+// (RandomGnm with 3n edges), star, path or nested (NestedTriangles of n/3
+// levels). ok is false for an unknown name.
 func Named(family string, n, extra int, seed uint64) (g Graph, ok bool) {
 	switch family {
 	case "tri":
