@@ -16,7 +16,8 @@ import (
 // each stray that must go costs about log2 of its level's size in
 // whole-block tests, 41 tests in all on the random planar graph at 10^5,
 // DEVELOPERS.md, The usual traps) of the grid and the random planar graph
-// plus 10 random pairs.
+// plus 10 random pairs, and (up to 10^4) of blocks with many edges to set
+// aside.
 func BenchmarkStage(b *testing.B) {
 	for _, n := range stagebench.Sizes {
 		for _, g := range stagebench.Families(n) {
@@ -31,6 +32,23 @@ func BenchmarkStage(b *testing.B) {
 		b.Run(fmt.Sprintf("subgraph/%s", x.Name), func(b *testing.B) {
 			stagebench.PerEdge(b, len(xe), func() { MaximalPlanar(x.N, xe, SubgraphOptions{}) })
 		})
+		if n <= 10_000 {
+			// Many edges to set aside in one block: a triangulation plus as
+			// many random edges (local proofs reject most), and a random
+			// graph with 3n edges (they reject none): each rejection
+			// costs a test, so these grow with the square of the size.
+			many := []graphgen.Graph{graphgen.PlanarPlusExtra(n, n, 1)}
+			if n <= 1000 { // 28 s an iteration at 10^4
+				many = append(many, graphgen.RandomGnm(n, 3*n, 1))
+			}
+			for _, g := range many {
+				_, ge, _ := order.DepthFirst(g.N, g.Edges)
+				simple, _ := Simplify(g.N, ge)
+				b.Run(fmt.Sprintf("subgraph/%s", g.Name), func(b *testing.B) {
+					stagebench.PerEdge(b, len(simple), func() { MaximalPlanar(g.N, simple, SubgraphOptions{}) })
+				})
+			}
+		}
 		if n > 100_000 {
 			continue
 		}
