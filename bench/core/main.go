@@ -26,7 +26,7 @@ func maxRSS() int64 {
 }
 
 func main() {
-	family := flag.String("family", "tri", "tri, grid, tree, star, path, nested, extra")
+	family := flag.String("family", "tri", "tri, grid, tree, planar, star, path, nested, extra, planar-extra, gnm (see graphgen.Named)")
 	n := flag.Int("n", 1000000, "vertices")
 	runs := flag.Int("runs", 3, "timed runs (the best is reported)")
 	stages := flag.Bool("stages", false, "print each run's stage times")
