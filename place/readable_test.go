@@ -34,6 +34,21 @@ func variedBoxes(n int) Boxes {
 // boxes overlap, and no edge passes through a box it does not end at, which
 // strict demands outright and otherwise only of components Space did not
 // count unchecked or crowded.
+// drawSpaced draws g with the command's layout options and spaces the
+// drawing for boxes b, failing the test on an error.
+func drawSpaced(t *testing.T, g graphgen.Graph, b Boxes, opt SpaceOptions) (*Result, *Placed) {
+	t.Helper()
+	res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	sp, err := res.Space(b, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return res, sp
+}
+
 func checkSpaced(t *testing.T, name string, sp *Placed, b Boxes, edges [][2]int32, strict bool) {
 	t.Helper()
 	pts := make([]geomcheck.Point, len(sp.X))
@@ -75,15 +90,8 @@ func TestReadableLimit(t *testing.T) {
 		if g.N != tc.n {
 			t.Fatalf("%d vertices, want %d", g.N, tc.n)
 		}
-		res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
-		if err != nil {
-			t.Fatal(err)
-		}
 		b := equalBoxes(g.N, 27, 18)
-		sp, err := res.Space(b, SpaceOptions{})
-		if err != nil {
-			t.Fatal(err)
-		}
+		_, sp := drawSpaced(t, g, b, SpaceOptions{})
 		if sp.Unchecked != tc.unchecked {
 			t.Errorf("n=%d: Unchecked %d, want %d", tc.n, sp.Unchecked, tc.unchecked)
 		}
@@ -110,15 +118,8 @@ func TestSpacingRule(t *testing.T) {
 		graphgen.DisjointUnion(graphgen.Wheel(40), graphgen.Cube(), graphgen.Path(30)),
 	} {
 		for _, grid := range []bool{false, true} {
-			res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
-			if err != nil {
-				t.Fatal(err)
-			}
 			b := variedBoxes(g.N)
-			sp, err := res.Space(b, SpaceOptions{GridOnly: grid})
-			if err != nil {
-				t.Fatal(err)
-			}
+			res, sp := drawSpaced(t, g, b, SpaceOptions{GridOnly: grid})
 			checkSpaced(t, fmt.Sprintf("%s grid=%v", g.Name, grid), sp, b, res.Kept(), false)
 			t.Logf("%s grid=%v: %d x %d points, unchecked %d, crowded %d", g.Name, grid, sp.Width, sp.Height, sp.Unchecked, sp.Crowded)
 		}
@@ -138,15 +139,8 @@ func TestDrawingSizeBound(t *testing.T) {
 		graphgen.NestedTriangles(100),
 		graphgen.RandomMaximalPlanar(1000, 2),
 	} {
-		res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
-		if err != nil {
-			t.Fatal(err)
-		}
 		b := equalBoxes(g.N, 27, 18)
-		sp, err := res.Space(b, SpaceOptions{})
-		if err != nil {
-			t.Fatal(err)
-		}
+		res, sp := drawSpaced(t, g, b, SpaceOptions{})
 		if limit := int64(2*g.N-4) * sp.Unit; sp.Width > limit || sp.Height > limit {
 			t.Errorf("%s: %d x %d points, more than %d across", g.Name, sp.Width, sp.Height, limit)
 		}

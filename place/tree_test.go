@@ -22,15 +22,8 @@ func TestLayeredTrees(t *testing.T) {
 	}
 	taken := 0
 	for _, g := range graphs {
-		res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
-		if err != nil {
-			t.Fatal(err)
-		}
 		b := variedBoxes(g.N)
-		sp, err := res.Space(b, SpaceOptions{})
-		if err != nil {
-			t.Fatal(err)
-		}
+		res, sp := drawSpaced(t, g, b, SpaceOptions{})
 		checkSpaced(t, g.Name, sp, b, g.Edges, false)
 		if sp.Trees == 0 {
 			continue
