@@ -18,7 +18,10 @@
 // Draw runs the whole pipeline on any graph: loops and repeated edges are
 // ignored, and a non-planar graph first loses an inclusion-minimal set of
 // edges (planarize.MaximalPlanar). Result.Space then turns grid points into
-// positions in points that respect node boxes; every step that moves
-// vertices off the grid is checked exactly to keep the drawing plane.
+// positions in points that respect node boxes, choosing among candidate
+// drawings, refining and relaxing them (after F. Bertault, "A
+// force-directed algorithm that preserves edge-crossing properties",
+// Inform. Process. Lett. 74, 2000); every step that moves vertices off the
+// grid is checked exactly to keep the drawing plane.
 // DrawGraph does the same for any gonum graph.
 package place

@@ -29,11 +29,6 @@ func variedBoxes(n int) Boxes {
 	return b
 }
 
-// checkSpaced checks a spaced drawing with geomcheck, the independent
-// crossing checker: its edges neither cross nor touch (fatal), no two node
-// boxes overlap, and no edge passes through a box it does not end at, which
-// strict demands outright and otherwise only of components Space did not
-// count unchecked or crowded.
 // drawSpaced draws g with the command's layout options and spaces the
 // drawing for boxes b, failing the test on an error.
 func drawSpaced(t *testing.T, g graphgen.Graph, b Boxes, opt SpaceOptions) (*Result, *Placed) {
@@ -49,6 +44,11 @@ func drawSpaced(t *testing.T, g graphgen.Graph, b Boxes, opt SpaceOptions) (*Res
 	return res, sp
 }
 
+// checkSpaced checks a spaced drawing with geomcheck, the independent
+// crossing checker: its edges neither cross nor touch (fatal), no two node
+// boxes overlap, and no edge passes through a box it does not end at, which
+// strict demands outright and otherwise only of components Space did not
+// count unchecked or crowded.
 func checkSpaced(t *testing.T, name string, sp *Placed, b Boxes, edges [][2]int32, strict bool) {
 	t.Helper()
 	pts := make([]geomcheck.Point, len(sp.X))

@@ -55,6 +55,10 @@ type Placed struct {
 	// Trees counts the components of three or more vertices that are
 	// trees, drawn in layers (see layeredTree) rather than on the grid.
 	Trees int
+	// Relaxed counts the components whose drawing was then relaxed,
+	// nodes moved one at a time to where they have more room (see relax),
+	// which needed less area; they are counted here only.
+	Relaxed int
 }
 
 // Limits of the spacing rule.
@@ -87,19 +91,21 @@ const (
 var errBoxes = errors.New("place: box sizes do not match the vertices")
 
 // Space turns the grid drawing into positions in points that respect the
-// node boxes. The rule, per connected component:
+// node boxes (README, Spacing, states the rule for users). Per connected
+// component:
 //
 //   - the base unit is the largest box side plus the gap, so two boxes on
 //     distinct grid points never overlap;
-//   - the grid drawing at the base unit is stretched by the least factor
-//     that keeps every edge off the boxes of the nodes it does not end at
-//     (computed per vertex-edge pair near each other);
-//   - if a barycentric drawing was computed (Options.Smooth), it is scaled
-//     so its median edge is one base unit, rounded to integer points,
-//     checked exactly to still be a plane drawing (doubling the scale until
-//     it is), and stretched by an integer factor to clear the boxes in the
-//     same way; it replaces the grid drawing unless it then needs more
-//     than twice the area;
+//   - each candidate drawing (the grid drawing at the base unit; with
+//     Options.Smooth, Tutte's barycentric drawing and Felsner's face-count
+//     drawing; for trees, the layered drawing) is refined (refine) and
+//     stretched by the least factor that keeps every edge off the boxes of
+//     the nodes it does not end at, computed per vertex-edge pair near
+//     each other; the one needing the least area wins (the barycentric
+//     drawing unless it needs more than twice the grid's area);
+//   - the winner is stretched, shrunk while it stays clear (to no less
+//     than a quarter), then relaxed (relax) and kept relaxed when that
+//     needs less area;
 //   - stretching stops at maxExtent points across (Placed.Crowded counts
 //     the components that needed more); a rounded stretch is checked
 //     exactly to stay plane, else an integer one, which keeps every
@@ -244,6 +250,7 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 	out.Crowded += counts.Crowded
 	out.Convex += counts.Convex
 	out.FaceCounts += counts.FaceCounts
+	out.Relaxed += counts.Relaxed
 }
 
 // spaceGrid spaces one component from its grid drawing, or from its
@@ -295,28 +302,47 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 			smoothed = true
 		}
 	}
-	if !gridOnly && d.convexAlt != nil && d.convexAlt[c][0] != nil && r.convexWins(c, vs, edges, unit, hw, hh, gap, gridRegion, px, py, tx, ty, lx, ly, seen, stamp, stretch, checked) {
-		if d.convexOwn[c] {
-			out.Convex++
-		} else {
-			out.FaceCounts++
-		}
-		return
+	// Which candidate the component is counted under, last winner first.
+	counted := &out.Smoothed
+	if !smoothed {
+		counted = nil
 	}
-	if smoothed {
-		out.Smoothed++
+	if !gridOnly && d.convexAlt != nil && d.convexAlt[c][0] != nil {
+		if s, reg, ok := r.convexWins(c, vs, edges, unit, hw, hh, gap, gridRegion, px, py, tx, ty, seen, stamp, stretch, checked); ok {
+			stretch, checked, region = s, true, reg
+			counted = &out.FaceCounts
+			if d.convexOwn[c] {
+				counted = &out.Convex
+			}
+		}
 	}
 	if !checked {
+		if counted != nil {
+			*counted++
+		}
 		out.Unchecked++
 		return
 	}
+	crowded := false
 	if limit := stretchLimit(vs, px, py, hw, hh); stretch > limit {
-		stretch = limit
-		out.Crowded++
-	} else if !gridOnly {
-		defer shrinkComponent(d.aug, vs, region, edges, px, py, hw, hh, gap, tx, ty, seen, stamp)
+		stretch, crowded = limit, true
 	}
 	stretchComponent(d.aug, vs, region, px, py, stretch, tx, ty, seen)
+	if !crowded && !gridOnly {
+		shrinkComponent(d.aug, vs, region, edges, px, py, hw, hh, gap, tx, ty, seen, stamp)
+	}
+	// Trees are left out: their layered drawing (spaceComponent) won
+	// over the relaxed grid drawing on every random tree measured (30 to
+	// 1,000 nodes), and relaxing costs as much again.
+	if !gridOnly && region != nil && len(edges) != len(vs)-1 && relaxWins(d.aug, vs, region, edges, px, py, tx, ty, lx, ly, hw, hh, gap, seen, stamp, crowded) {
+		counted, crowded = &out.Relaxed, false
+	}
+	if counted != nil {
+		*counted++
+	}
+	if crowded {
+		out.Crowded++
+	}
 }
 
 // shrinkComponent scales a cleared component down as far as it stays
@@ -383,14 +409,14 @@ func shrinkNeed(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, s
 
 // convexWins weighs component c's convex drawing (Drawing.convexAlt, at
 // the base unit) against the drawing in px, py, which needs the given
-// stretch (checked false: unknown). The convex drawing is refined and
-// stretched as the grid one is when it is a plane drawing of the whole
-// triangulation with the grid's outer triangle (Felsner's drawing of the
-// triangulation), else stretched by the least whole factor that clears
-// the boxes, which keeps every orientation. If it then needs less area,
-// it is written to px, py and convexWins reports true. tx, ty, lx, ly are
-// scratch.
-func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, region *outerRegion, px, py, tx, ty, lx, ly []int64, seen []bool, stamp []int32, stretch float64, checked bool) bool {
+// stretch (checked false: unknown). The convex drawing is refined as the
+// grid one is when it is a plane drawing of the whole triangulation with
+// the grid's outer triangle (Felsner's drawing of the triangulation; region
+// is then that triangle), else (region nil) it is to be stretched by the
+// least whole factor that clears the boxes, which keeps every orientation.
+// If it then needs less area, it is written to px, py and convexWins
+// reports true with the stretch it needs. tx, ty are scratch.
+func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, region *outerRegion, px, py, tx, ty []int64, seen []bool, stamp []int32, stretch float64, checked bool) (float64, *outerRegion, bool) {
 	d := r.local
 	alt := d.convexAlt[c]
 	for i, v := range vs {
@@ -404,20 +430,18 @@ func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw,
 	}
 	s, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 	if !ok || s > stretchLimit(vs, tx, ty, hw, hh) {
-		return false // unknown, or crowded: not a clear win
+		return 0, nil, false // unknown, or crowded: not a clear win
 	}
 	if region == nil {
 		s = math.Ceil(s)
 	}
 	if checked && clearedArea(vs, tx, ty, s, hw, hh) >= clearedArea(vs, px, py, min(stretch, stretchLimit(vs, px, py, hw, hh)), hw, hh) {
-		return false
+		return 0, nil, false
 	}
 	for _, v := range vs {
 		px[v], py[v] = tx[v], ty[v]
 	}
-	stretchComponent(d.aug, vs, region, px, py, s, lx, ly, seen)
-	shrinkComponent(d.aug, vs, region, edges, px, py, hw, hh, gap, lx, ly, seen, stamp)
-	return true
+	return s, region, true
 }
 
 // spaceTree draws a tree component in layers (see layeredTree) into x, y:
@@ -890,4 +914,33 @@ func packSpaced(boxes []Component, gap int64) {
 		x += b.W + gap
 		rowH = max(rowH, b.H)
 	}
+}
+
+// relaxWins relaxes a copy of the finished drawing in px, py (see relax),
+// stretches and shrinks it as spacing does, and when it then clears every
+// box in less area than px, py (or at all, when px, py is crowded) writes
+// it to px, py and reports true. tx, ty, lx, ly are scratch.
+func relaxWins(aug *planarize.Embedding, vs []int32, region *outerRegion, edges [][2]int32, px, py, tx, ty, lx, ly, hw, hh []int64, gap int64, seen []bool, stamp []int32, crowded bool) bool {
+	if len(vs) > relaxLimit {
+		return false
+	}
+	for _, v := range vs {
+		tx[v], ty[v] = px[v], py[v]
+	}
+	if !relax(aug, vs, region, edges, tx, ty, hw, hh, gap, seen) {
+		return false
+	}
+	s, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+	if !ok || s > stretchLimit(vs, tx, ty, hw, hh) {
+		return false
+	}
+	stretchComponent(aug, vs, region, tx, ty, s, lx, ly, seen)
+	shrinkComponent(aug, vs, region, edges, tx, ty, hw, hh, gap, lx, ly, seen, stamp)
+	if !crowded && clearedArea(vs, tx, ty, 1, hw, hh) >= clearedArea(vs, px, py, 1, hw, hh) {
+		return false
+	}
+	for _, v := range vs {
+		px[v], py[v] = tx[v], ty[v]
+	}
+	return true
 }

@@ -2,7 +2,7 @@
 // generated graphs) with each drawing method and prints the quality figures
 // as a Markdown table, for README.md ("barycentric", "convex", "face
 // counts" and "layered tree" name the drawings some components were taken
-// from; see README, Spacing):
+// from, "relaxed" those relaxed after; see README, Spacing):
 //
 //	go build -o /tmp/gridwood ./cmd/gridwood
 //	go run ./bench/quality /tmp/gridwood
@@ -32,6 +32,7 @@ type report struct {
 			Convex          int      `json:"convex_components"`
 			Trees           int      `json:"tree_components"`
 			FaceCounts      int      `json:"face_count_components"`
+			Relaxed         int      `json:"relaxed_components"`
 			AreaRatio       float64  `json:"area_ratio"`
 			CompactionSaved float64  `json:"compaction_saved"`
 			W               int64    `json:"width_pt"`
@@ -104,6 +105,10 @@ func main() {
 				}
 				method := m.name
 				switch {
+				case m.name == "convex" && g.Convex == 0 && g.Relaxed > 0:
+					method += fmt.Sprintf(" (fell back, %d of %d relaxed)", g.Relaxed, g.Components)
+				case g.Relaxed > 0:
+					method += fmt.Sprintf(" (%d of %d relaxed)", g.Relaxed, g.Components)
 				case g.Convex > 0:
 					method += fmt.Sprintf(" (%d of %d convex)", g.Convex, g.Components)
 				case g.Trees > 0:

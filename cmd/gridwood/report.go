@@ -33,6 +33,7 @@ type graphReport struct {
 	ConvexComponents      int      `json:"convex_components"`
 	TreeComponents        int      `json:"tree_components"`
 	FaceCountComponents   int      `json:"face_count_components"`
+	RelaxedComponents     int      `json:"relaxed_components"`
 	UncheckedComponents   int      `json:"unchecked_components"`
 	CrowdedComponents     int      `json:"crowded_components"`
 	GridWidth             int64    `json:"grid_width"`
@@ -60,7 +61,7 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 		Graph: graphName(g, gi), Directed: g.Directed, Nodes: len(g.Nodes), Edges: len(g.Edges),
 		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
 		Method: method, Components: len(res.Components), BarycentricComponents: sp.Smoothed,
-		ConvexComponents: convexCount(res) + sp.Convex, TreeComponents: sp.Trees, FaceCountComponents: sp.FaceCounts, UncheckedComponents: sp.Unchecked, CrowdedComponents: sp.Crowded,
+		ConvexComponents: convexCount(res) + sp.Convex, TreeComponents: sp.Trees, FaceCountComponents: sp.FaceCounts, RelaxedComponents: sp.Relaxed, UncheckedComponents: sp.Unchecked, CrowdedComponents: sp.Crowded,
 		GridWidth: res.Width, GridHeight: res.Height, Unit: sp.Unit,
 		WidthPoints: sp.Width, HeightPoints: sp.Height,
 	}

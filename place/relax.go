@@ -1,0 +1,276 @@
+package place
+
+import (
+	"math"
+	"slices"
+
+	"github.com/gridwood/gridwood/planarize"
+)
+
+// Bounds of relax.
+const (
+	// relaxRounds bounds the rounds over the vertices; most of the gain
+	// comes in the first ten.
+	relaxRounds = 20
+	// relaxFrame is the extent, in integer steps, the drawing is scaled
+	// up to before it is relaxed, so that small moves are possible; well
+	// below 2^30, where orientation tests stop being exact.
+	relaxFrame = 1 << 27
+	// relaxEdgeUnits is the median edge length, in grown half boxes, the
+	// relaxed drawing is scaled to for the clearance check.
+	relaxEdgeUnits = 4
+)
+
+// relaxLimit is the largest component relaxed; a variable so that tests
+// can compare spacing without relaxation.
+var relaxLimit = gridCompareLimit
+
+// relaxDirections are the directions relax tries a vertex in.
+var relaxDirections = [...][2]float64{{1, 0}, {0.7071, 0.7071}, {0, 1}, {-0.7071, 0.7071}, {-1, 0}, {-0.7071, -0.7071}, {0, -1}, {0.7071, -0.7071}}
+
+// relax evens out a plane drawing of a component of the augmented
+// triangulation (see planeDrawing) by moving one inner vertex at a time to
+// where the room around it is largest: the combination of Laplacian and
+// optimization-based smoothing used on triangle meshes (L. A. Freitag,
+// "On combining Laplacian and optimization-based mesh smoothing
+// techniques", ASME AMD 220, 1997; cited from memory), with the exact guard
+// of F. Bertault's planarity-preserving refinement in place of his movement
+// zones (see refine).
+//
+// The room at a vertex is the least height of a triangle at it (any of its
+// three vertices over the opposite side) and half the larger axis distance
+// to a neighbour, measured in grown half boxes (x in units of the widest
+// box's half width plus gap, y of the tallest's half height), so that it
+// evens out the room boxes need. The least height over all triangles
+// bounds every distance from a vertex to an edge it does not end at (the
+// segment between them leaves the vertex's star through one of its far
+// sides), so raising the smallest room lowers the stretch the drawing needs
+// to clear its boxes. Each vertex tries the centroid of its neighbours,
+// then eight directions at steps from its room down; a move is taken when
+// it raises the room and keeps every triangle at the vertex turning the
+// way the inner faces do (moveGuard's test), so the drawing stays plane
+// throughout. The boundary stays where it is.
+//
+// On return x, y hold the relaxed drawing scaled so that its median input
+// edge is relaxEdgeUnits grown half boxes long, rounded and checked to be
+// a plane drawing (or at a larger scale where it rounds to one), and relax
+// reports true; when it cannot run it reports false and x, y are unusable.
+func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, seen []bool) bool {
+	n := len(vs)
+	if n < 4 || n > relaxLimit || len(edges) == 0 || !planeDrawing(emb, vs, outer, x, y, seen) {
+		return false
+	}
+	var reachX, reachY int64
+	for _, v := range vs {
+		reachX, reachY = max(reachX, hw[v]+gap), max(reachY, hh[v]+gap)
+	}
+	unitX, unitY := float64(max(1, reachX)), float64(max(1, reachY))
+	minX, minY := int64(math.MaxInt64), int64(math.MaxInt64)
+	maxX, maxY := int64(math.MinInt64), int64(math.MinInt64)
+	for _, v := range vs {
+		minX, maxX = min(minX, x[v]), max(maxX, x[v])
+		minY, maxY = min(minY, y[v]), max(maxY, y[v])
+	}
+	// Scale up by a whole factor, which keeps every orientation, and move
+	// the corner to the origin.
+	k := max(1, relaxFrame/max(1, maxX-minX, maxY-minY))
+	for _, v := range vs {
+		x[v], y[v] = (x[v]-minX)*k, (y[v]-minY)*k
+	}
+	guard, ok := newMoveGuard(emb, vs, outer, x, y)
+	if !ok {
+		return false
+	}
+	// The stars in local numbers: start[i]..start[i+1] are vertex i's
+	// neighbours in rotation order, and open says whether the triangle
+	// between a neighbour and the next one is drawn (not the outer face or
+	// its dummies).
+	local := make(map[int32]int32, n)
+	for i, v := range vs {
+		local[v] = int32(i)
+	}
+	start := make([]int32, n+1)
+	for i, v := range vs {
+		start[i+1] = start[i] + int32(emb.Degree(v))
+	}
+	nbr := make([]int32, start[n])
+	open := make([]bool, start[n])
+	boundary := make([]bool, n)
+	for i, v := range vs {
+		_, boundary[i] = guard.pos[v]
+		h := emb.First(v)
+		for j := start[i]; j < start[i+1]; j++ {
+			nbr[j] = local[emb.Head(h)]
+			open[j] = !guard.regionCorner(h)
+			h = emb.Next(h)
+		}
+	}
+	ix, iy := make([]int64, n), make([]int64, n)
+	fx, fy := make([]float64, n), make([]float64, n)
+	for i, v := range vs {
+		ix[i], iy[i] = x[v], y[v]
+		fx[i], fy[i] = float64(x[v])/unitX, float64(y[v])/unitY
+	}
+	// allowed is moveGuard.allows for inner vertex i, on the local arrays.
+	allowed := func(i int32, px, py int64) bool {
+		lo, hi := start[i], start[i+1]
+		for j := lo; j < hi; j++ {
+			if open[j] {
+				jb := j + 1
+				if jb == hi {
+					jb = lo
+				}
+				a, b := nbr[j], nbr[jb]
+				if orient(px, py, ix[a], iy[a], ix[b], iy[b]) != guard.innerSign {
+					return false
+				}
+			}
+		}
+		return true
+	}
+	// The star of the vertex being moved, gathered once per visit: its
+	// neighbours' positions in order, and for each whether the triangle
+	// with the next one is drawn.
+	var starX, starY []float64
+	var starOpen []bool
+	gather := func(i int) {
+		starX, starY, starOpen = starX[:0], starY[:0], starOpen[:0]
+		for j := start[i]; j < start[i+1]; j++ {
+			starX = append(starX, fx[nbr[j]])
+			starY = append(starY, fy[nbr[j]])
+			starOpen = append(starOpen, open[j])
+		}
+	}
+	// room2 is the square of the room at the gathered vertex placed at
+	// (vx, vy). Plain comparisons: the builtin min and max on floats pay
+	// for NaN and signed zeros, which cannot occur here, and this is the
+	// inner loop.
+	room2 := func(vx, vy float64) float64 {
+		q := math.Inf(1)
+		k := len(starX)
+		for j := range k {
+			ax, ay := starX[j]-vx, starY[j]-vy
+			c := ax
+			if c < 0 {
+				c = -c
+			}
+			if ay > c {
+				c = ay
+			} else if -ay > c {
+				c = -ay
+			}
+			if c*c < 4*q {
+				q = c * c / 4
+			}
+			if !starOpen[j] {
+				continue
+			}
+			jb := j + 1
+			if jb == k {
+				jb = 0
+			}
+			bx, by := starX[jb]-vx, starY[jb]-vy
+			cross := float64(ax*by) - float64(ay*bx)
+			cross *= cross
+			sx, sy := bx-ax, by-ay
+			long := float64(sx*sx) + float64(sy*sy)
+			if l := float64(ax*ax) + float64(ay*ay); l > long {
+				long = l
+			}
+			if l := float64(bx*bx) + float64(by*by); l > long {
+				long = l
+			}
+			if cross < q*long {
+				q = cross / long
+			}
+		}
+		return q
+	}
+	// Each round tries every vertex whose star changed in the round
+	// before (all of them at first): the others would find what they
+	// found then.
+	dirty, next := make([]bool, n), make([]bool, n)
+	for i := range dirty {
+		dirty[i] = !boundary[i]
+	}
+	for range relaxRounds {
+		moved := false
+		for i := range vs {
+			if !dirty[i] {
+				continue
+			}
+			li := int32(i)
+			gather(i)
+			cur := room2(fx[i], fy[i])
+			best, bx, by := cur, ix[i], iy[i]
+			// Steps from the room itself down: the best spot is usually
+			// within it.
+			// First the centroid of the neighbours (Laplacian smoothing),
+			// which evens out sizes where the room search alone would
+			// stop at a local best.
+			var cx, cy float64
+			for _, a := range nbr[start[i]:start[i+1]] {
+				cx, cy = cx+fx[a], cy+fy[a]
+			}
+			deg := float64(start[i+1] - start[i])
+			if px, py := int64(math.Round(cx/deg*unitX)), int64(math.Round(cy/deg*unitY)); true {
+				if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && allowed(li, px, py) {
+					best, bx, by = q, px, py
+				}
+			}
+			reach := math.Sqrt(cur)
+			for step := reach; step > reach/16 && best == cur; step /= 2 {
+				for _, d := range relaxDirections {
+					px := ix[i] + int64(math.Round(d[0]*step*unitX))
+					py := iy[i] + int64(math.Round(d[1]*step*unitY))
+					if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && allowed(li, px, py) {
+						best, bx, by = q, px, py
+					}
+				}
+			}
+			if best > cur {
+				ix[i], iy[i] = bx, by
+				fx[i], fy[i] = float64(bx)/unitX, float64(by)/unitY
+				moved = true
+				next[i] = true
+				for _, a := range nbr[start[i]:start[i+1]] {
+					next[a] = !boundary[a]
+				}
+			}
+		}
+		if !moved {
+			break
+		}
+		dirty, next = next, dirty
+		clear(next)
+	}
+	// Back to a scale where the clearance check is meaningful.
+	lengths := make([]float64, 0, len(edges))
+	for _, e := range edges {
+		a, b := local[e[0]], local[e[1]]
+		dx, dy := fx[b]-fx[a], fy[b]-fy[a]
+		lengths = append(lengths, math.Sqrt(float64(dx*dx)+float64(dy*dy)))
+	}
+	slices.Sort(lengths)
+	median := lengths[len(lengths)/2]
+	if !(median > 0) {
+		return false
+	}
+	big := make([][2]int64, n)
+	for i := range vs {
+		big[i] = [2]int64{ix[i], iy[i]}
+	}
+	for f := relaxEdgeUnits / median; f < 1; f *= 2 {
+		for i, v := range vs {
+			x[v] = int64(math.Round(float64(big[i][0]) * f))
+			y[v] = int64(math.Round(float64(big[i][1]) * f))
+		}
+		if planeDrawing(emb, vs, outer, x, y, seen) {
+			return true
+		}
+	}
+	for i, v := range vs {
+		x[v], y[v] = big[i][0], big[i][1]
+	}
+	return true
+}
