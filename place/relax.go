@@ -207,8 +207,6 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 			gather(i)
 			cur := room2(fx[i], fy[i])
 			best, bx, by := cur, ix[i], iy[i]
-			// Steps from the room itself down: the best spot is usually
-			// within it.
 			// First the centroid of the neighbours (Laplacian smoothing),
 			// which evens out sizes where the room search alone would
 			// stop at a local best.
@@ -217,11 +215,12 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 				cx, cy = cx+fx[a], cy+fy[a]
 			}
 			deg := float64(start[i+1] - start[i])
-			if px, py := int64(math.Round(cx/deg*unitX)), int64(math.Round(cy/deg*unitY)); true {
-				if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && allowed(li, px, py) {
-					best, bx, by = q, px, py
-				}
+			px, py := int64(math.Round(cx/deg*unitX)), int64(math.Round(cy/deg*unitY))
+			if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && allowed(li, px, py) {
+				best, bx, by = q, px, py
 			}
+			// Then steps from the room itself down: the best spot is
+			// usually within it.
 			reach := math.Sqrt(cur)
 			for step := reach; step > reach/16 && best == cur; step /= 2 {
 				for _, d := range relaxDirections {
