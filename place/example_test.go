@@ -116,11 +116,11 @@ func ExampleResult_Space() {
 		fmt.Printf("vertex %d at (%d,%d)\n", v, sp.X[v], sp.Y[v])
 	}
 	// Output:
-	// base unit: 72 size: 173 x 154
-	// vertex 0 at (74,77)
-	// vertex 1 at (101,136)
-	// vertex 2 at (146,77)
-	// vertex 3 at (101,18)
-	// vertex 4 at (27,23)
-	// vertex 5 at (27,131)
+	// base unit: 72 size: 166 x 148
+	// vertex 0 at (66,75)
+	// vertex 1 at (128,130)
+	// vertex 2 at (139,75)
+	// vertex 3 at (128,18)
+	// vertex 4 at (27,18)
+	// vertex 5 at (31,130)
 }

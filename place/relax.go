@@ -29,7 +29,7 @@ var relaxLimit = gridCompareLimit
 var relaxDirections = [...][2]float64{{1, 0}, {0.7071, 0.7071}, {0, 1}, {-0.7071, 0.7071}, {-1, 0}, {-0.7071, -0.7071}, {0, -1}, {0.7071, -0.7071}}
 
 // relax evens out a plane drawing of a component of the augmented
-// triangulation (see planeDrawing) by moving one inner vertex at a time to
+// triangulation (see planeDrawing) by moving one vertex at a time to
 // where the room around it is largest: the combination of Laplacian and
 // optimization-based smoothing used on triangle meshes (L. A. Freitag,
 // "On combining Laplacian and optimization-based mesh smoothing
@@ -49,8 +49,9 @@ var relaxDirections = [...][2]float64{{1, 0}, {0.7071, 0.7071}, {0, 1}, {-0.7071
 // then eight directions at steps from its room down; a move is taken when
 // it raises the room and keeps every triangle at the vertex turning the
 // way the inner faces do (moveGuard's test), so the drawing stays plane
-// throughout. The boundary stays where it is, but an outer triangle is
-// first mapped onto an equilateral one (see equilateral).
+// throughout. Boundary vertices move too, within the drawing's bounding
+// box and keeping the boundary strictly convex; an outer triangle is first
+// mapped onto an equilateral one (see equilateral).
 //
 // On return x, y hold the relaxed drawing scaled so that its median input
 // edge is relaxEdgeUnits grown half boxes long, rounded and checked to be
@@ -195,7 +196,21 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 	// found then.
 	dirty, next := make([]bool, n), make([]bool, n)
 	for i := range dirty {
-		dirty[i] = !boundary[i]
+		dirty[i] = true
+	}
+	// Boundary vertices move within the drawing's bounding box, so that
+	// the drawing never grows, and as moveGuard allows (the boundary stays
+	// strictly convex); they use the global arrays, kept up to date.
+	bbX0, bbY0, bbX1, bbY1 := ix[0], iy[0], ix[0], iy[0]
+	for i := range ix {
+		bbX0, bbX1 = min(bbX0, ix[i]), max(bbX1, ix[i])
+		bbY0, bbY1 = min(bbY0, iy[i]), max(bbY1, iy[i])
+	}
+	canMove := func(i int, li int32, px, py int64) bool {
+		if !boundary[i] {
+			return allowed(li, px, py)
+		}
+		return px >= bbX0 && px <= bbX1 && py >= bbY0 && py <= bbY1 && guard.allows(vs[i], px, py)
 	}
 	for range relaxRounds {
 		moved := false
@@ -216,7 +231,7 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 			}
 			deg := float64(start[i+1] - start[i])
 			px, py := int64(math.Round(cx/deg*unitX)), int64(math.Round(cy/deg*unitY))
-			if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && allowed(li, px, py) {
+			if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && canMove(i, li, px, py) {
 				best, bx, by = q, px, py
 			}
 			// Then steps from the room itself down: the best spot is
@@ -226,18 +241,19 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 				for _, d := range relaxDirections {
 					px := ix[i] + int64(math.Round(d[0]*step*unitX))
 					py := iy[i] + int64(math.Round(d[1]*step*unitY))
-					if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && allowed(li, px, py) {
+					if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && canMove(i, li, px, py) {
 						best, bx, by = q, px, py
 					}
 				}
 			}
 			if best > cur {
 				ix[i], iy[i] = bx, by
+				x[vs[i]], y[vs[i]] = bx, by // for guard.allows
 				fx[i], fy[i] = float64(bx)/unitX, float64(by)/unitY
 				moved = true
 				next[i] = true
 				for _, a := range nbr[start[i]:start[i+1]] {
-					next[a] = !boundary[a]
+					next[a] = true
 				}
 			}
 		}
@@ -283,8 +299,8 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 // relaxFrame, turning the same way, and keeps it if it rounds to a plane
 // drawing. The Schnyder and face-count drawings put the outer triangle on
 // a right angle and two half right angles; the vertices whose edges fan
-// out in a narrow corner are where a drawing crowds, and relax cannot
-// move the corners. An equilateral outer triangle took a fifth to two
+// out in a narrow corner are where a drawing crowds, and relax moves the
+// corners only within the drawing's bounding box. An equilateral outer triangle took a fifth to two
 // thirds of the area off relaxed random triangulations and random planar
 // graphs of 100 to 1,000 nodes (see DEVELOPERS.md).
 func equilateral(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y []int64, seen []bool) {
