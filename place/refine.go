@@ -44,9 +44,21 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 	// near pairs that computes its pushes.
 	bestStretch := math.Inf(1)
 	var bestX, bestY []int64
+	startX, startY := make([]int64, len(vs)), make([]int64, len(vs))
+	for i, v := range vs {
+		startX[i], startY[i] = x[v], y[v]
+	}
 	defer func() {
 		for i, v := range bestX {
 			x[vs[i]], y[vs[i]] = v, bestY[i]
+		}
+		// Every move was checked locally; the whole is checked once
+		// more, as local checks on the boundary cannot see it wind round
+		// twice. Failing that, the drawing is left as it came.
+		if !planeDrawing(emb, vs, outer, x, y, seen) {
+			for i, v := range vs {
+				x[v], y[v] = startX[i], startY[i]
+			}
 		}
 	}()
 	for round := 0; ; round++ {

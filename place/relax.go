@@ -56,7 +56,8 @@ var relaxDirections = [...][2]float64{{1, 0}, {0.7071, 0.7071}, {0, 1}, {-0.7071
 // On return x, y hold the relaxed drawing scaled so that its median input
 // edge is relaxEdgeUnits grown half boxes long, rounded and checked to be
 // a plane drawing (or at a larger scale where it rounds to one), and relax
-// reports true; when it cannot run it reports false and x, y are unusable.
+// reports true; when it cannot run, or its result is not a plane drawing,
+// it reports false and x, y are unusable.
 func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, seen []bool) bool {
 	n := len(vs)
 	if n < 4 || n > relaxLimit || len(edges) == 0 || !planeDrawing(emb, vs, outer, x, y, seen) {
@@ -291,7 +292,9 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 	for i, v := range vs {
 		x[v], y[v] = big[i][0], big[i][1]
 	}
-	return true
+	// Every move was checked locally; the whole is checked once more, as
+	// local checks on the boundary cannot see it wind round twice.
+	return planeDrawing(emb, vs, outer, x, y, seen)
 }
 
 // equilateral maps a plane drawing whose outer face is a triangle

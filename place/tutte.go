@@ -205,6 +205,31 @@ func triangleSign(emb *planarize.Embedding, d int32, x, y []int64) int {
 	return orient(x[a], y[a], x[b], y[b], x[c], y[c])
 }
 
+// boundaryWinding counts, exactly, how many times the outer face's
+// polygon goes round, given that every turn is the sign turn: its edge
+// directions then rotate one way by less than a half turn at each corner,
+// and each full round passes the direction of the positive x axis once.
+// Only 1 makes a simple, hence convex, polygon; all turns one way alone
+// would also let a star polygon such as the pentagram through.
+func boundaryWinding(emb *planarize.Embedding, outer *outerRegion, x, y []int64, turn int) int {
+	// upper: the direction's angle lies in [0, pi).
+	upper := func(d int32) bool {
+		dx, dy := x[emb.Head(d)]-x[emb.Tail(d)], y[emb.Head(d)]-y[emb.Tail(d)]
+		return dy > 0 || dy == 0 && dx > 0
+	}
+	k := len(outer.face)
+	rounds := 0
+	for i, d := range outer.face {
+		now, next := upper(d), upper(outer.face[(i+1)%k])
+		// Turning left, a round ends where the direction passes from the
+		// lower half to the upper one; turning right, the other way.
+		if turn > 0 && !now && next || turn < 0 && now && !next {
+			rounds++
+		}
+	}
+	return rounds
+}
+
 // planeDrawing reports, exactly, whether the component's drawing in the
 // frame x, y is a plane drawing of the triangulation minus the outer
 // region: the outer face F is a strictly convex polygon and every other
@@ -227,6 +252,9 @@ func planeDrawing(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y
 			return false
 		}
 		turn = t
+	}
+	if boundaryWinding(emb, outer, x, y, turn) != 1 {
+		return false // turns one way, but goes round more than once
 	}
 	ok := true
 	var marked []int32
