@@ -1,6 +1,7 @@
 package place
 
 import (
+	"errors"
 	"fmt"
 	"testing"
 
@@ -148,5 +149,30 @@ func TestDrawingSizeBound(t *testing.T) {
 			t.Errorf("%s: unchecked %d, crowded %d", g.Name, sp.Unchecked, sp.Crowded)
 		}
 		checkSpaced(t, g.Name, sp, b, res.Kept(), true)
+	}
+}
+
+// TestSpaceBoxLimit checks the bound on box sizes: over 65,536 points
+// Space refuses (with half sizes of 2^30 the spacing checks would leave
+// exact arithmetic and could pass crossing drawings), and at the bound the
+// drawings still pass geomcheck and clear their boxes.
+func TestSpaceBoxLimit(t *testing.T) {
+	for _, g := range []graphgen.Graph{graphgen.RandomMaximalPlanar(50, 3), graphgen.NestedTriangles(12), graphgen.Grid(6, 7)} {
+		res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, b := range []Boxes{equalBoxes(g.N, 10, maxBoxHalf+1), equalBoxes(g.N, 1<<30, 10), {HalfW: make([]int64, g.N), HalfH: make([]int64, g.N), Gap: maxBoxHalf + 1}} {
+			if _, err := res.Space(b, SpaceOptions{}); !errors.Is(err, errBoxSize) {
+				t.Errorf("%s: boxes over the bound: error %v, want %v", g.Name, err, errBoxSize)
+			}
+		}
+		b := equalBoxes(g.N, 10, maxBoxHalf)
+		b.Gap = maxBoxHalf
+		sp, err := res.Space(b, SpaceOptions{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		checkSpaced(t, g.Name+" at the bound", sp, b, res.Kept(), false)
 	}
 }

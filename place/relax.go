@@ -53,12 +53,14 @@ var relaxDirections = [...][2]float64{{1, 0}, {0.7071, 0.7071}, {0, 1}, {-0.7071
 // box and keeping the boundary strictly convex; an outer triangle is first
 // mapped onto an equilateral one (see equilateral).
 //
+// local is scratch of one entry per vertex of the whole graph.
+//
 // On return x, y hold the relaxed drawing scaled so that its median input
 // edge is relaxEdgeUnits grown half boxes long, rounded and checked to be
 // a plane drawing (or at a larger scale where it rounds to one), and relax
 // reports true; when it cannot run, or its result is not a plane drawing,
 // it reports false and x, y are unusable.
-func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, seen []bool) bool {
+func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, seen []bool, local []int32) bool {
 	n := len(vs)
 	if n < 4 || n > relaxLimit || len(edges) == 0 || !planeDrawing(emb, vs, outer, x, y, seen) {
 		return false
@@ -87,11 +89,12 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 	if !ok {
 		return false
 	}
-	// The stars in local numbers: start[i]..start[i+1] are vertex i's
-	// neighbours in rotation order, and open says whether the triangle
-	// between a neighbour and the next one is drawn (not the outer face or
-	// its dummies).
-	local := make(map[int32]int32, n)
+	// The stars in local numbers (local[v] is v's place in vs; scratch
+	// of one entry per vertex of the whole graph, so that no component
+	// allocates one): start[i]..start[i+1] are vertex i's neighbours in
+	// rotation order, and open says whether the triangle between a
+	// neighbour and the next one is drawn (not the outer face or its
+	// dummies).
 	for i, v := range vs {
 		local[v] = int32(i)
 	}
@@ -268,8 +271,14 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 	lengths := make([]float64, 0, len(edges))
 	for _, e := range edges {
 		a, b := local[e[0]], local[e[1]]
+		if a < 0 || int(a) >= n || vs[a] != e[0] || b < 0 || int(b) >= n || vs[b] != e[1] {
+			continue // not this component's (the caller passes its own)
+		}
 		dx, dy := fx[b]-fx[a], fy[b]-fy[a]
 		lengths = append(lengths, math.Sqrt(float64(dx*dx)+float64(dy*dy)))
+	}
+	if len(lengths) == 0 {
+		return false
 	}
 	slices.Sort(lengths)
 	median := lengths[len(lengths)/2]

@@ -10,7 +10,8 @@ import (
 
 // Boxes gives each vertex's node box in points, as half width and half
 // height around its position, and the clear space wanted between two boxes
-// and between a box and an edge that does not end at it.
+// and between a box and an edge that does not end at it. Negative sizes
+// count as 0; Space refuses sizes and gaps over 65,536 points.
 type Boxes struct {
 	HalfW, HalfH []int64
 	Gap          int64
@@ -90,6 +91,16 @@ const (
 
 var errBoxes = errors.New("place: box sizes do not match the vertices")
 
+// maxBoxHalf is the largest half box side and gap Space takes, in points
+// (about 910 inches): with it a component of readableLimit vertices at the
+// base unit stays below 2^30 points across, where the orientation tests
+// of the spacing checks are exact.
+const maxBoxHalf = 1 << 16
+
+var errBoxSize = errors.New("place: a box half size or the gap is over 65,536 points")
+
+func tooBig(half int64) bool { return half > maxBoxHalf }
+
 // Space turns the grid drawing into positions in points that respect the
 // node boxes (README, Spacing, states the rule for users). Per connected
 // component:
@@ -118,6 +129,9 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 	n := len(r.X)
 	if len(b.HalfW) != n || len(b.HalfH) != n {
 		return nil, errBoxes
+	}
+	if b.Gap > maxBoxHalf || slices.ContainsFunc(b.HalfW, tooBig) || slices.ContainsFunc(b.HalfH, tooBig) {
+		return nil, errBoxSize
 	}
 	d := r.local
 	// Boxes in the local numbering.
@@ -334,8 +348,8 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 	// Trees are left out: their layered drawing (spaceComponent) won
 	// over the relaxed grid drawing on every random tree measured (30 to
 	// 1,000 nodes), and relaxing costs as much again.
-	if !gridOnly && region != nil && len(edges) != len(vs)-1 && relaxWins(d.aug, vs, region, edges, px, py, tx, ty, lx, ly, hw, hh, gap, seen, stamp, crowded) {
-		counted, crowded = &out.Relaxed, false
+	if !gridOnly && !crowded && region != nil && len(edges) != len(vs)-1 && relaxWins(d.aug, vs, region, edges, px, py, tx, ty, lx, ly, hw, hh, gap, seen, stamp) {
+		counted = &out.Relaxed
 	}
 	if counted != nil {
 		*counted++
@@ -918,16 +932,16 @@ func packSpaced(boxes []Component, gap int64) {
 
 // relaxWins relaxes a copy of the finished drawing in px, py (see relax),
 // stretches and shrinks it as spacing does, and when it then clears every
-// box in less area than px, py (or at all, when px, py is crowded) writes
-// it to px, py and reports true. tx, ty, lx, ly are scratch.
-func relaxWins(aug *planarize.Embedding, vs []int32, region *outerRegion, edges [][2]int32, px, py, tx, ty, lx, ly, hw, hh []int64, gap int64, seen []bool, stamp []int32, crowded bool) bool {
+// box in less area than px, py writes it to px, py and reports true. tx,
+// ty, lx, ly are scratch; stamp is relax's and the clearance passes'.
+func relaxWins(aug *planarize.Embedding, vs []int32, region *outerRegion, edges [][2]int32, px, py, tx, ty, lx, ly, hw, hh []int64, gap int64, seen []bool, stamp []int32) bool {
 	if len(vs) > relaxLimit {
 		return false
 	}
 	for _, v := range vs {
 		tx[v], ty[v] = px[v], py[v]
 	}
-	if !relax(aug, vs, region, edges, tx, ty, hw, hh, gap, seen) {
+	if !relax(aug, vs, region, edges, tx, ty, hw, hh, gap, seen, stamp) {
 		return false
 	}
 	s, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
@@ -936,7 +950,7 @@ func relaxWins(aug *planarize.Embedding, vs []int32, region *outerRegion, edges 
 	}
 	stretchComponent(aug, vs, region, tx, ty, s, lx, ly, seen)
 	shrinkComponent(aug, vs, region, edges, tx, ty, hw, hh, gap, lx, ly, seen, stamp)
-	if !crowded && clearedArea(vs, tx, ty, 1, hw, hh) >= clearedArea(vs, px, py, 1, hw, hh) {
+	if clearedArea(vs, tx, ty, 1, hw, hh) >= clearedArea(vs, px, py, 1, hw, hh) {
 		return false
 	}
 	for _, v := range vs {

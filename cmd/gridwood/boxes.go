@@ -27,8 +27,26 @@ const (
 	pointsPerInch = 72
 )
 
+// maxBoxSide is the largest box side, in points: 1000 inches, the bound
+// the box rule puts on width and height (sizeTaken), which a long label
+// could otherwise pass; it keeps every coordinate the spacing checks well
+// inside the range where they are exact.
+const maxBoxSide = 1000 * pointsPerInch
+
+// boxCaps counts the nodes whose label needed a box side over maxBoxSide
+// and names the first (-1 if none).
+type boxCaps struct{ count, first int }
+
 // nodeBoxes computes the half sizes, in points, of every node's box.
 func nodeBoxes(g *dotio.Graph) place.Boxes {
+	b, _ := cappedNodeBoxes(g)
+	return b
+}
+
+// cappedNodeBoxes is nodeBoxes, also saying which boxes were capped at
+// maxBoxSide.
+func cappedNodeBoxes(g *dotio.Graph) (place.Boxes, boxCaps) {
+	caps := boxCaps{first: -1}
 	b := place.Boxes{HalfW: make([]int64, len(g.Nodes)), HalfH: make([]int64, len(g.Nodes)), Gap: boxGap}
 	for i, n := range g.Nodes {
 		w := attrInches(n.Attrs.Width, defaultWidth) * pointsPerInch
@@ -45,10 +63,17 @@ func nodeBoxes(g *dotio.Graph) place.Boxes {
 			w = max(w, h)
 			h = w
 		}
+		if w > maxBoxSide || h > maxBoxSide {
+			w, h = min(w, maxBoxSide), min(h, maxBoxSide)
+			if caps.count == 0 {
+				caps.first = i
+			}
+			caps.count++
+		}
 		b.HalfW[i] = int64(math.Ceil(w / 2))
 		b.HalfH[i] = int64(math.Ceil(h / 2))
 	}
-	return b
+	return b, caps
 }
 
 func attrInches(s string, def float64) float64 {

@@ -204,17 +204,22 @@ func TestCheckLaidOutExamples(t *testing.T) {
 	}
 }
 
-// TestCheckLabelTooLarge: a label that grows its box past what the exact
-// check can hold at the graph's scale (10^6 here, from a 6-decimal pos;
-// geomcheck.MaxCoord is 2^40) is an input problem, not a silent error.
-func TestCheckLabelTooLarge(t *testing.T) {
+// TestCheckLabelCapped: a label too long for a box of 1000 inches gets a
+// box of 1000 inches in the check as in the layout, so at the finest
+// scale the check takes (10^6, from a 6-decimal pos) the box still fits
+// the exact arithmetic (geomcheck.MaxCoord is 2^40), and the overlap with
+// a node one point away is reported.
+func TestCheckLabelCapped(t *testing.T) {
 	src := `graph { a [pos="0.000001,0", label="` + strings.Repeat("x", 300_000) + `"]; b [pos="1,0"] }`
 	f, err := dotio.Read([]byte(src), dotio.ReadOptions{Name: "big.dot"})
 	if err != nil {
 		t.Fatal(err)
 	}
 	var out bytes.Buffer
-	if n, err := checkFile(&out, f); err != nil || n != 1 || out.String() != "big.dot:1:9: node \"a\": its label makes the box too large to be checked exactly\n" {
+	if n, err := checkFile(&out, f); err != nil || n != 1 || out.String() != "big.dot:1:9: boxes of nodes \"a\" and \"b\" overlap\n" {
 		t.Errorf("%d problems, %q, %v", n, out.String(), err)
+	}
+	if b := nodeBoxes(f.Graphs[0]); b.HalfW[0] != maxBoxSide/2 {
+		t.Errorf("label box half width %d, want %d", b.HalfW[0], maxBoxSide/2)
 	}
 }

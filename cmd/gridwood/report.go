@@ -53,6 +53,8 @@ type graphReport struct {
 		Layout    float64 `json:"layout"`
 		Space     float64 `json:"space"`
 	} `json:"seconds"`
+
+	caps boxCaps // for the command's note, not the report
 }
 
 // graphMeasures fills a report record from one laid-out graph.

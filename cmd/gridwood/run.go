@@ -398,6 +398,14 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 				return err
 			}
 			rep.Graphs = append(rep.Graphs, gr)
+			if gr.caps.count > 0 && !cfg.quiet {
+				n := g.Nodes[gr.caps.first]
+				more := ""
+				if gr.caps.count > 1 {
+					more = fmt.Sprintf(" (and %d more in %s)", gr.caps.count-1, graphName(g, gi))
+				}
+				prog.note("gridwood: %s:%d:%d: node %s: its label needs a box over 1000 inches a side; the box was taken as 1000 inches%s\n", name, n.Line, n.Col, strconv.Quote(n.Name), more)
+			}
 			layouts[gi], removed[gi] = lay, res.Removed
 			// The drawing's internals and the node boxes are kept only for
 			// the outputs that need them: a file of many small graphs
@@ -571,7 +579,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	if err != nil {
 		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
 	}
-	boxes := nodeBoxes(g)
+	boxes, caps := cappedNodeBoxes(g)
 	step("spacing", 0.85)
 	spaceStart := time.Now()
 	sp, err := res.Space(boxes, place.SpaceOptions{Unit: int64(cfg.unit), GridOnly: cfg.gridOnly})
@@ -597,6 +605,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 		}
 		gr = graphMeasures(g, gi, name, res, sp, boxes, spaceTime)
 	}
+	gr.caps = caps
 	return res, lay, boxes, gr, nil
 }
 

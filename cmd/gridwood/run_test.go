@@ -192,6 +192,7 @@ func TestExitStatusesAndMessages(t *testing.T) {
 		{"missing file", "", []string{"/no/such/file.dot"}, exitBadInput, "no such file"},
 		{"size not taken", "graph G { a [width=1000]; a -- b }", nil, exitOK, `<stdin>:1:11: node "a": width "1000" is not a size below 1000 and was taken as the default` + "\n"},
 		{"size not taken, quiet", "graph G { a [width=1000]; a -- b }", []string{"-q"}, exitOK, ""},
+		{"label box capped", "graph G { a [fontsize=900, label=\"" + strings.Repeat("x", 200) + "\"]; b [label=\"" + strings.Repeat("y", 9000) + "\"]; a -- b -- c }", nil, exitOK, `<stdin>:1:11: node "a": its label needs a box over 1000 inches a side; the box was taken as 1000 inches (and 1 more in graph "G")` + "\n"},
 		{"max expansion 0", "graph{}", []string{"--max-expansion", "0"}, exitBadInput, "--max-expansion 0: want a positive number"},
 		{"two outputs one file", "graph{}", []string{"-o", "x.dot", "--removed", "./x.dot"}, exitBadInput, "-o and --removed both name ./x.dot"},
 		{"output is an input", "", []string{"--svg", "in.dot", "./in.dot"}, exitBadInput, "--svg in.dot is also an input file"},
