@@ -187,16 +187,19 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	// far less room to clear the node boxes.
 	var convexAlt [][2][]int64
 	var convexOwn []bool // made with convexAlt
+	addConvexAlt := func(c int, x, y []int64, own bool) {
+		if convexAlt == nil {
+			convexAlt, convexOwn = make([][2][]int64, len(members)), make([]bool, len(members))
+		}
+		convexAlt[c], convexOwn[c] = [2][]int64{x, y}, own
+	}
 	if opt.Smooth > 0 && opt.Method == Schnyder {
 		for c, vs := range members {
 			if len(vs) < 4 || len(vs) > readableLimit || chosen[c] < 0 {
 				continue
 			}
 			if x, y, _, _, err := convexComponent(work, vs, chosen[c]); err == nil {
-				if convexAlt == nil {
-					convexAlt, convexOwn = make([][2][]int64, len(members)), make([]bool, len(members))
-				}
-				convexAlt[c], convexOwn[c] = [2][]int64{x, y}, true
+				addConvexAlt(c, x, y, true)
 			}
 		}
 	}
@@ -337,10 +340,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			// the same outer triangle, is a candidate still; its face
 			// counts crowd far less than the vertex counts above.
 			if x, y, _, _, err := convexComponent(work, vs, outer); err == nil {
-				if convexAlt == nil {
-					convexAlt, convexOwn = make([][2][]int64, len(members)), make([]bool, len(members))
-				}
-				convexAlt[c] = [2][]int64{x, y}
+				addConvexAlt(c, x, y, false)
 			}
 		}
 		// Tutte's drawing inside a triangle squeezes a big triangulation's

@@ -114,13 +114,14 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 			h = emb.Next(h)
 		}
 	}
-	ix, iy := make([]int64, n), make([]int64, n)
+	// Moves are made in x, y, which moveGuard reads; fx, fy hold the same
+	// positions in grown half boxes, in local numbers, for room2.
 	fx, fy := make([]float64, n), make([]float64, n)
 	for i, v := range vs {
-		ix[i], iy[i] = x[v], y[v]
 		fx[i], fy[i] = float64(x[v])/unitX, float64(y[v])/unitY
 	}
-	// allowed is moveGuard.allows for inner vertex i, on the local arrays.
+	// allowed is moveGuard.allows for inner vertex i, with the star in
+	// local numbers.
 	allowed := func(i int32, px, py int64) bool {
 		lo, hi := start[i], start[i+1]
 		for j := lo; j < hi; j++ {
@@ -129,8 +130,8 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 				if jb == hi {
 					jb = lo
 				}
-				a, b := nbr[j], nbr[jb]
-				if orient(px, py, ix[a], iy[a], ix[b], iy[b]) != guard.innerSign {
+				a, b := vs[nbr[j]], vs[nbr[jb]]
+				if orient(px, py, x[a], y[a], x[b], y[b]) != guard.innerSign {
 					return false
 				}
 			}
@@ -204,11 +205,11 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 	}
 	// Boundary vertices move within the drawing's bounding box, so that
 	// the drawing never grows, and as moveGuard allows (the boundary stays
-	// strictly convex); they use the global arrays, kept up to date.
-	bbX0, bbY0, bbX1, bbY1 := ix[0], iy[0], ix[0], iy[0]
-	for i := range ix {
-		bbX0, bbX1 = min(bbX0, ix[i]), max(bbX1, ix[i])
-		bbY0, bbY1 = min(bbY0, iy[i]), max(bbY1, iy[i])
+	// strictly convex).
+	bbX0, bbY0, bbX1, bbY1 := x[vs[0]], y[vs[0]], x[vs[0]], y[vs[0]]
+	for _, v := range vs {
+		bbX0, bbX1 = min(bbX0, x[v]), max(bbX1, x[v])
+		bbY0, bbY1 = min(bbY0, y[v]), max(bbY1, y[v])
 	}
 	canMove := func(i int, li int32, px, py int64) bool {
 		if !boundary[i] {
@@ -218,14 +219,14 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 	}
 	for range relaxRounds {
 		moved := false
-		for i := range vs {
+		for i, v := range vs {
 			if !dirty[i] {
 				continue
 			}
 			li := int32(i)
 			gather(i)
 			cur := room2(fx[i], fy[i])
-			best, bx, by := cur, ix[i], iy[i]
+			best, bx, by := cur, x[v], y[v]
 			// First the centroid of the neighbours (Laplacian smoothing),
 			// which evens out sizes where the room search alone would
 			// stop at a local best.
@@ -243,16 +244,15 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 			reach := math.Sqrt(cur)
 			for step := reach; step > reach/16 && best == cur; step /= 2 {
 				for _, d := range relaxDirections {
-					px := ix[i] + int64(math.Round(d[0]*step*unitX))
-					py := iy[i] + int64(math.Round(d[1]*step*unitY))
+					px := x[v] + int64(math.Round(d[0]*step*unitX))
+					py := y[v] + int64(math.Round(d[1]*step*unitY))
 					if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && canMove(i, li, px, py) {
 						best, bx, by = q, px, py
 					}
 				}
 			}
 			if best > cur {
-				ix[i], iy[i] = bx, by
-				x[vs[i]], y[vs[i]] = bx, by // for guard.allows
+				x[v], y[v] = bx, by
 				fx[i], fy[i] = float64(bx)/unitX, float64(by)/unitY
 				moved = true
 				next[i] = true
@@ -286,8 +286,8 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 		return false
 	}
 	big := make([][2]int64, n)
-	for i := range vs {
-		big[i] = [2]int64{ix[i], iy[i]}
+	for i, v := range vs {
+		big[i] = [2]int64{x[v], y[v]}
 	}
 	for f := relaxEdgeUnits / median; f < 1; f *= 2 {
 		for i, v := range vs {
