@@ -10,6 +10,7 @@ import (
 	"sort"
 	"strconv"
 	"strings"
+	"sync"
 	"unicode/utf8"
 
 	"gonum.org/v1/gonum/graph/formats/dot"
@@ -335,9 +336,14 @@ func errInternal(msg string) error {
 	return errors.New("dotio: internal error: " + msg)
 }
 
-var gonumPos = regexp.MustCompile(`^(\d+):(\d+): error: (.*)$`)
-var gonumWords = strings.NewReplacer("graphx", "graph", "␚", "end of input")
-var gonumID = regexp.MustCompile(`\bid\b`)
+// The patterns syntaxError reads gonum's messages with, compiled on the
+// first error rather than at every start: gridwood runs hundreds of times
+// in one build, and most runs see no error.
+var (
+	gonumPos   = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^(\d+):(\d+): error: (.*)$`) })
+	gonumWords = sync.OnceValue(func() *strings.Replacer { return strings.NewReplacer("graphx", "graph", "␚", "end of input") })
+	gonumID    = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`\bid\b`) })
+)
 
 // syntaxError converts an error of gonum's parser, positioned in gonum's
 // own metric (columns count runes, a tab counts 4, CR resets the column),
@@ -347,7 +353,7 @@ func syntaxError(err error, sc *scanned, pm *posMap, name string, srcLen int) er
 	if strings.HasPrefix(msg, "dotio: internal error") {
 		return err
 	}
-	m := gonumPos.FindStringSubmatch(msg)
+	m := gonumPos().FindStringSubmatch(msg)
 	if m == nil {
 		return &Error{File: name, Msg: "syntax error: " + msg}
 	}
@@ -370,7 +376,7 @@ func syntaxError(err error, sc *scanned, pm *posMap, name string, srcLen int) er
 	off := gonumOffset(sc.text, line, col, lit, eof)
 	off = min(off, srcLen)
 	l, c := pm.lineCol(off)
-	expected = gonumID.ReplaceAllString(gonumWords.Replace(expected), "ID")
+	expected = gonumID().ReplaceAllString(gonumWords().Replace(expected), "ID")
 	var out string
 	switch {
 	case !found:

@@ -21,8 +21,9 @@ const refineRounds = 16
 // stays a strictly convex polygon. So a drawing that starts plane (see
 // planeDrawing; refine checks it first, since the argument needs it) stays
 // plane after every move, while the need to stretch the whole drawing to
-// clear its boxes shrinks. seen is planeDrawing's scratch.
-func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, seen []bool, meter *workMeter) {
+// clear its boxes shrinks. seen is planeDrawing's scratch, push scratch of
+// one entry per vertex of the whole graph.
+func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, seen []bool, push [][2]float64, meter *workMeter) {
 	if len(vs) < 4 || len(vs) > readableLimit {
 		return // big components keep their drawing: many rounds would dominate the run
 	}
@@ -35,8 +36,6 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 	}
 	valid := guard.allows
 	cell := clearanceCell(vs, hw, hh, gap)
-	pushX := make(map[int32]float64)
-	pushY := make(map[int32]float64)
 	// The drawing that needs the least stretch to clear its boxes wins:
 	// pushing one vertex off an edge can push it onto another, so a round
 	// may make things worse, and the best state seen is restored at the end.
@@ -62,8 +61,9 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		}
 	}()
 	for round := 0; ; round++ {
-		clear(pushX)
-		clear(pushY)
+		for _, v := range vs {
+			push[v] = [2]float64{}
+		}
 		grid := newBucketGrid(vs, x, y, cell)
 		c := clearance{x: x, y: y, hw: hw, hh: hh, gap: gap, s: 1}
 		// Overlapping boxes push each other apart along the axis that
@@ -78,12 +78,12 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 			}
 			if ox <= oy {
 				s := sign64(dx, u < w)
-				pushX[u] -= float64(s * ox / 2)
-				pushX[w] += float64(s * ox / 2)
+				push[u][0] -= float64(s * ox / 2)
+				push[w][0] += float64(s * ox / 2)
 			} else {
 				s := sign64(dy, u < w)
-				pushY[u] -= float64(s * oy / 2)
-				pushY[w] += float64(s * oy / 2)
+				push[u][1] -= float64(s * oy / 2)
+				push[w][1] += float64(s * oy / 2)
 			}
 		})
 		// An edge through a box pushes that vertex off it, along the
@@ -109,8 +109,8 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 				nx, ny = -nx, -ny
 			}
 			depth := (need-math.Abs(cross))/length + 1
-			pushX[w] += float64(nx * depth)
-			pushY[w] += float64(ny * depth)
+			push[w][0] += float64(nx * depth)
+			push[w][1] += float64(ny * depth)
 		})
 		if !ok {
 			return // out of work: the best state so far is restored
@@ -129,7 +129,7 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		}
 		moved := false
 		for _, v := range vs {
-			dx, dy := int64(math.Round(pushX[v])), int64(math.Round(pushY[v]))
+			dx, dy := int64(math.Round(push[v][0])), int64(math.Round(push[v][1]))
 			for try := 0; try < 8 && (dx != 0 || dy != 0); try++ {
 				if valid(v, x[v]+dx, y[v]+dy) {
 					x[v] += dx

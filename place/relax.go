@@ -152,13 +152,19 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 		}
 	}
 	// room2 is the square of the room at the gathered vertex placed at
-	// (vx, vy). Plain comparisons: the builtin min and max on floats pay
-	// for NaN and signed zeros, which cannot occur here, and this is the
-	// inner loop.
-	room2 := func(vx, vy float64) float64 {
+	// (vx, vy), or some value at most floor once it is known not to
+	// exceed floor: the room is a least value, and a spot is only taken
+	// when its room beats the best so far, so the rest of the star need
+	// not be looked at. Plain comparisons: the builtin min and max on
+	// floats pay for NaN and signed zeros, which cannot occur here, and
+	// this is the inner loop.
+	room2 := func(vx, vy, floor float64) float64 {
 		q := math.Inf(1)
 		k := len(starX)
 		for j := range k {
+			if q <= floor {
+				return q
+			}
 			ax, ay := starX[j]-vx, starY[j]-vy
 			c := ax
 			if c < 0 {
@@ -225,7 +231,7 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 			}
 			li := int32(i)
 			gather(i)
-			cur := room2(fx[i], fy[i])
+			cur := room2(fx[i], fy[i], 0)
 			best, bx, by := cur, x[v], y[v]
 			// First the centroid of the neighbours (Laplacian smoothing),
 			// which evens out sizes where the room search alone would
@@ -236,7 +242,7 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 			}
 			deg := float64(start[i+1] - start[i])
 			px, py := int64(math.Round(cx/deg*unitX)), int64(math.Round(cy/deg*unitY))
-			if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && canMove(i, li, px, py) {
+			if q := room2(float64(px)/unitX, float64(py)/unitY, best); q > best && canMove(i, li, px, py) {
 				best, bx, by = q, px, py
 			}
 			// Then steps from the room itself down: the best spot is
@@ -246,7 +252,7 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 				for _, d := range relaxDirections {
 					px := x[v] + int64(math.Round(d[0]*step*unitX))
 					py := y[v] + int64(math.Round(d[1]*step*unitY))
-					if q := room2(float64(px)/unitX, float64(py)/unitY); q > best && canMove(i, li, px, py) {
+					if q := room2(float64(px)/unitX, float64(py)/unitY, best); q > best && canMove(i, li, px, py) {
 						best, bx, by = q, px, py
 					}
 				}

@@ -1,6 +1,7 @@
 package place
 
 import (
+	"cmp"
 	"errors"
 	"math"
 	"slices"
@@ -180,20 +181,22 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 			edgesOf[c] = grouped[end[c]:end[c+1]:end[c+1]]
 		}
 	}
-	px, py := make([]int64, n), make([]int64, n) // local numbering
-	tx, ty := make([]int64, n), make([]int64, n) // a second candidate
-	var lx, ly []int64                           // a tree's layered drawing, and scratch: only readable components use them
+	w := &scratch{
+		px: make([]int64, n), py: make([]int64, n),
+		tx: make([]int64, n), ty: make([]int64, n),
+		stamp: make([]int32, n),
+	}
+	px, py := w.px, w.py // local numbering
 	for _, vs := range members {
 		if opt.Unit <= 0 && len(vs) >= 3 && len(vs) <= readableLimit {
-			lx, ly = make([]int64, n), make([]int64, n)
+			w.lx, w.ly = make([]int64, n), make([]int64, n)
+			w.push = make([][2]float64, n)
 			break
 		}
 	}
-	stamp := make([]int32, n)
 	boxes := make([]Component, len(members))
-	var seen []bool
 	if d.aug != nil {
-		seen = make([]bool, 2*d.aug.M())
+		w.seen = make([]bool, 2*d.aug.M())
 	}
 	for c, vs := range members {
 		box := d.Components[c]
@@ -204,7 +207,7 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 		}
 		grid(unit)
 		if opt.Unit <= 0 {
-			r.spaceComponent(c, vs, edgesOf[c], unit, hw, hh, gap, opt.GridOnly, px, py, tx, ty, lx, ly, seen, stamp, out)
+			r.spaceComponent(c, vs, edgesOf[c], unit, hw, hh, gap, opt.GridOnly, w, out)
 		}
 		// The component's box, node boxes included, moved to the origin.
 		minX, minY, maxX, maxY := int64(math.MaxInt64), int64(math.MaxInt64), int64(math.MinInt64), int64(math.MinInt64)
@@ -234,18 +237,31 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 	return out, nil
 }
 
-// spaceComponent chooses and spaces one component's drawing. px, py hold
-// its grid drawing at the base unit on entry and the result on return; tx,
-// ty are scratch.
-func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, px, py, tx, ty, lx, ly []int64, seen []bool, stamp []int32, out *Placed) {
+// scratch is the working space of Space, of one entry per vertex of the
+// whole graph (seen: per dart of the triangulation), so that no component
+// allocates its own. px, py hold the component being spaced; tx, ty a
+// second candidate; lx, ly a tree's layered drawing and more scratch, and
+// push refine's pushes (both only when some component is readable).
+type scratch struct {
+	px, py, tx, ty, lx, ly []int64
+	seen                   []bool
+	stamp                  []int32
+	push                   [][2]float64
+}
+
+// spaceComponent chooses and spaces one component's drawing. w.px, w.py
+// hold its grid drawing at the base unit on entry and the result on
+// return.
+func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, w *scratch, out *Placed) {
 	if gridOnly || len(vs) < 3 || len(edges) != len(vs)-1 || len(vs) > readableLimit {
-		r.spaceGrid(c, vs, edges, unit, hw, hh, gap, gridOnly, px, py, tx, ty, lx, ly, seen, stamp, out)
+		r.spaceGrid(c, vs, edges, unit, hw, hh, gap, gridOnly, w, out)
 		return
 	}
 	// A tree: its layered drawing, unless the grid's needs less area.
 	var counts Placed
-	r.spaceGrid(c, vs, edges, unit, hw, hh, gap, false, px, py, tx, ty, lx, ly, seen, stamp, &counts)
-	crowded, unchecked := spaceTree(vs, edges, hw, hh, gap, lx, ly, stamp) // after: spaceGrid uses lx, ly
+	r.spaceGrid(c, vs, edges, unit, hw, hh, gap, false, w, &counts)
+	px, py, lx, ly := w.px, w.py, w.lx, w.ly
+	crowded, unchecked := spaceTree(vs, edges, hw, hh, gap, lx, ly, w.stamp) // after: spaceGrid uses lx, ly
 	if clearedArea(vs, lx, ly, 1, hw, hh) <= clearedArea(vs, px, py, 1, hw, hh) {
 		for _, v := range vs {
 			px[v], py[v] = lx[v], ly[v]
@@ -269,8 +285,9 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 
 // spaceGrid spaces one component from its grid drawing, or from its
 // barycentric drawing where that reads better (see Space).
-func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, px, py, tx, ty, lx, ly []int64, seen []bool, stamp []int32, out *Placed) {
+func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, w *scratch, out *Placed) {
 	d := r.local
+	px, py, tx, ty, seen, stamp := w.px, w.py, w.tx, w.ty, w.seen, w.stamp
 	var gridRegion *outerRegion
 	if d.aug != nil && d.triOuter != nil && d.triOuter[c] >= 0 {
 		f0 := d.triOuter[c]
@@ -291,14 +308,14 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 	gridStretch, gridChecked := 1.0, false
 	if compare || !bary {
 		if compare && gridRegion != nil && !gridOnly {
-			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp, seen, newWorkMeter(len(edges)))
+			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
 		}
 		gridStretch, gridChecked = neededStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 	}
 	stretch, checked, region := gridStretch, gridChecked, gridRegion
 	smoothed := false
 	if bary {
-		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp, seen, newWorkMeter(len(edges)))
+		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
 		s2, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 		take := ok && !compare
 		if ok && compare {
@@ -322,7 +339,7 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 		counted = nil
 	}
 	if !gridOnly && d.convexAlt != nil && d.convexAlt[c][0] != nil {
-		if s, reg, ok := r.convexWins(c, vs, edges, unit, hw, hh, gap, gridRegion, px, py, tx, ty, seen, stamp, stretch, checked); ok {
+		if s, reg, ok := r.convexWins(c, vs, edges, unit, hw, hh, gap, gridRegion, w, stretch, checked); ok {
 			stretch, checked, region = s, true, reg
 			counted = &out.FaceCounts
 			if d.convexOwn[c] {
@@ -348,7 +365,7 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 	// Trees are left out: their layered drawing (spaceComponent) won
 	// over the relaxed grid drawing on every random tree measured (30 to
 	// 1,000 nodes), and relaxing costs as much again.
-	if !gridOnly && !crowded && region != nil && len(edges) != len(vs)-1 && relaxWins(d.aug, vs, region, edges, px, py, tx, ty, lx, ly, hw, hh, gap, seen, stamp) {
+	if !gridOnly && !crowded && region != nil && len(edges) != len(vs)-1 && relaxWins(d.aug, vs, region, edges, px, py, tx, ty, w.lx, w.ly, hw, hh, gap, seen, stamp) {
 		counted = &out.Relaxed
 	}
 	if counted != nil {
@@ -422,16 +439,17 @@ func shrinkNeed(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, s
 }
 
 // convexWins weighs component c's convex drawing (Drawing.convexAlt, at
-// the base unit) against the drawing in px, py, which needs the given
+// the base unit) against the drawing in w.px, w.py, which needs the given
 // stretch (checked false: unknown). The convex drawing is refined as the
 // grid one is when it is a plane drawing of the whole triangulation with
 // the grid's outer triangle (Felsner's drawing of the triangulation; region
 // is then that triangle), else (region nil) it is to be stretched by the
 // least whole factor that clears the boxes, which keeps every orientation.
-// If it then needs less area, it is written to px, py and convexWins
-// reports true with the stretch it needs. tx, ty are scratch.
-func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, region *outerRegion, px, py, tx, ty []int64, seen []bool, stamp []int32, stretch float64, checked bool) (float64, *outerRegion, bool) {
+// If it then needs less area, it is written to w.px, w.py and convexWins
+// reports true with the stretch it needs.
+func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, region *outerRegion, w *scratch, stretch float64, checked bool) (float64, *outerRegion, bool) {
 	d := r.local
+	px, py, tx, ty, seen, stamp := w.px, w.py, w.tx, w.ty, w.seen, w.stamp
 	alt := d.convexAlt[c]
 	for i, v := range vs {
 		tx[v], ty[v] = alt[0][i]*unit, alt[1][i]*unit
@@ -440,7 +458,7 @@ func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw,
 		region = nil
 	}
 	if region != nil {
-		refine(d.aug, vs, region, edges, tx, ty, hw, hh, gap, stamp, seen, newWorkMeter(len(edges)))
+		refine(d.aug, vs, region, edges, tx, ty, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
 	}
 	s, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
 	if !ok || s > stretchLimit(vs, tx, ty, hw, hh) {
@@ -791,18 +809,38 @@ func nearPairs(vs []int32, edges [][2]int32, x, y []int64, grid *bucketGrid, sta
 }
 
 // allPairs calls fn for every vertex w and edge e not ending at w whose
-// bounding box, grown by r on every side, holds w.
+// bounding box, grown by r on every side, holds w: edge by edge, in the
+// order of edges, so that what fn adds up for one vertex is added in the
+// same order however the vertices lie. Each edge looks only at the
+// vertices in its x range, found by binary search in the vertices sorted
+// by x.
 func allPairs(vs []int32, edges [][2]int32, x, y []int64, r int64, fn func(w int32, e [2]int32)) {
+	byX := make([]xVertex, len(vs))
+	for i, v := range vs {
+		byX[i] = xVertex{x[v], v}
+	}
+	slices.SortFunc(byX, func(a, b xVertex) int { return cmp.Compare(a.x, b.x) })
 	for _, e := range edges {
 		x0, x1 := min(x[e[0]], x[e[1]])-r, max(x[e[0]], x[e[1]])+r
 		y0, y1 := min(y[e[0]], y[e[1]])-r, max(y[e[0]], y[e[1]])+r
-		for _, w := range vs {
-			if x[w] < x0 || x[w] > x1 || y[w] < y0 || y[w] > y1 || w == e[0] || w == e[1] {
+		lo, _ := slices.BinarySearchFunc(byX, x0, func(a xVertex, t int64) int { return cmp.Compare(a.x, t) })
+		for _, p := range byX[lo:] {
+			if p.x > x1 {
+				break
+			}
+			w := p.v
+			if y[w] < y0 || y[w] > y1 || w == e[0] || w == e[1] {
 				continue
 			}
 			fn(w, e)
 		}
 	}
+}
+
+// xVertex is a vertex with its x coordinate, for allPairs.
+type xVertex struct {
+	x int64
+	v int32
 }
 
 // workMeter counts down the cell visits a component's spacing may make.
