@@ -143,8 +143,9 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 	// with the next one is drawn.
 	var starX, starY []float64
 	var starOpen []bool
+	var hint int // where room2 starts: the neighbour that last stopped it
 	gather := func(i int) {
-		starX, starY, starOpen = starX[:0], starY[:0], starOpen[:0]
+		starX, starY, starOpen, hint = starX[:0], starY[:0], starOpen[:0], 0
 		for j := start[i]; j < start[i+1]; j++ {
 			starX = append(starX, fx[nbr[j]])
 			starY = append(starY, fy[nbr[j]])
@@ -155,16 +156,15 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 	// (vx, vy), or some value at most floor once it is known not to
 	// exceed floor: the room is a least value, and a spot is only taken
 	// when its room beats the best so far, so the rest of the star need
-	// not be looked at. Plain comparisons: the builtin min and max on
-	// floats pay for NaN and signed zeros, which cannot occur here, and
-	// this is the inner loop.
+	// not be looked at. It starts at the neighbour that stopped it last
+	// time, since nearby spots tend to fail on the same side. Plain
+	// comparisons: the builtin min and max on floats pay for NaN and
+	// signed zeros, which cannot occur here, and this is the inner loop.
 	room2 := func(vx, vy, floor float64) float64 {
 		q := math.Inf(1)
 		k := len(starX)
-		for j := range k {
-			if q <= floor {
-				return q
-			}
+		j := hint
+		for range k {
 			ax, ay := starX[j]-vx, starY[j]-vy
 			c := ax
 			if c < 0 {
@@ -178,27 +178,31 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 			if c*c < 4*q {
 				q = c * c / 4
 			}
-			if !starOpen[j] {
-				continue
-			}
 			jb := j + 1
 			if jb == k {
 				jb = 0
 			}
-			bx, by := starX[jb]-vx, starY[jb]-vy
-			cross := float64(ax*by) - float64(ay*bx)
-			cross *= cross
-			sx, sy := bx-ax, by-ay
-			long := float64(sx*sx) + float64(sy*sy)
-			if l := float64(ax*ax) + float64(ay*ay); l > long {
-				long = l
+			if starOpen[j] {
+				bx, by := starX[jb]-vx, starY[jb]-vy
+				cross := float64(ax*by) - float64(ay*bx)
+				cross *= cross
+				sx, sy := bx-ax, by-ay
+				long := float64(sx*sx) + float64(sy*sy)
+				if l := float64(ax*ax) + float64(ay*ay); l > long {
+					long = l
+				}
+				if l := float64(bx*bx) + float64(by*by); l > long {
+					long = l
+				}
+				if cross < q*long {
+					q = cross / long
+				}
 			}
-			if l := float64(bx*bx) + float64(by*by); l > long {
-				long = l
+			if q <= floor {
+				hint = j
+				return q
 			}
-			if cross < q*long {
-				q = cross / long
-			}
+			j = jb
 		}
 		return q
 	}
