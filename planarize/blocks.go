@@ -9,7 +9,14 @@ type csr struct {
 }
 
 func newCSR(n int, edges [][2]int32) csr {
-	start := make([]int32, n+1)
+	var pos []int32
+	return csr{}.refill(n, edges, &pos)
+}
+
+// refill is newCSR reusing g's storage, and *pos as scratch.
+func (g csr) refill(n int, edges [][2]int32, pos *[]int32) csr {
+	start := grow(g.start, n+1)
+	clear(start)
 	for _, e := range edges {
 		start[e[0]+1]++
 		start[e[1]+1]++
@@ -17,13 +24,14 @@ func newCSR(n int, edges [][2]int32) csr {
 	for v := 1; v <= n; v++ {
 		start[v] += start[v-1]
 	}
-	adj := make([]int32, 2*len(edges))
-	pos := append([]int32(nil), start[:n]...)
+	adj := grow(g.adj, 2*len(edges))
+	*pos = append((*pos)[:0], start[:n]...)
+	p := *pos
 	for i, e := range edges {
-		adj[pos[e[0]]] = int32(2 * i)
-		pos[e[0]]++
-		adj[pos[e[1]]] = int32(2*i + 1)
-		pos[e[1]]++
+		adj[p[e[0]]] = int32(2 * i)
+		p[e[0]]++
+		adj[p[e[1]]] = int32(2*i + 1)
+		p[e[1]]++
 	}
 	return csr{start, adj}
 }

@@ -80,11 +80,14 @@ type lr struct {
 }
 
 // grow returns s with length n, reusing its storage when it is big enough.
+// New storage is at least twice the old, so that a buffer reused for a
+// graph that grows by an edge at a time (the planar-subgraph search's) is
+// not made again each time; a first use takes n exactly.
 func grow[T any](s []T, n int) []T {
 	if cap(s) >= n {
 		return s[:n]
 	}
-	return make([]T, n)
+	return make([]T, n, max(n, 2*cap(s)))
 }
 
 func (t *lr) reset(n int, edges [][2]int32) {

@@ -634,6 +634,8 @@ type greedySearch struct {
 	proofMisses   int         // failed proofs in a row
 	proofSkip     int         // single candidates to test without a proof
 	proofTried    int         // the candidate index of the last proof step, or -1
+	skeleton      *skeleton   // made at the first single-candidate test once the kept graph has skeletonSize edges
+	noSkeleton    bool        // the skeleton was no smaller than the kept graph: test whole
 	report        func(done float64)
 	nextReport    int // the candidate index at which to report next
 }
@@ -762,7 +764,7 @@ func (g *greedySearch) run() bool {
 				g.proofSkip = g.proofMisses
 			}
 		}
-		p, ok := g.t.planar(g.kept, group)
+		p, ok := g.planar(group)
 		if !ok {
 			return false
 		}
@@ -787,6 +789,32 @@ func (g *greedySearch) run() bool {
 		}
 	}
 	return true
+}
+
+// planar tests the kept graph plus group, on the skeleton (see skeleton)
+// when group is one edge and the skeleton pays; ok is false when the
+// budget ran out. A skeleton test is charged as the whole test it stands
+// for, so that the search takes the same course either way (bothOrders
+// shares out work by these charges).
+func (g *greedySearch) planar(group []int32) (p, ok bool) {
+	if len(group) != 1 || g.noSkeleton || len(g.kept) < skeletonSize {
+		return g.t.planar(g.kept, group)
+	}
+	if g.skeleton == nil {
+		g.skeleton = newSkeleton(g.t.n, g.t.edges)
+	}
+	if g.skeleton.kept != len(g.kept) { // the kept list only grows, at its end
+		if !g.skeleton.build(g.kept, g.t.n+len(g.kept)) {
+			g.noSkeleton = true // the 2-core only grows: it would not pay later either
+			g.skeleton = nil
+			return g.t.planar(g.kept, group)
+		}
+	}
+	g.t.tests++
+	if !g.t.budget.spend(len(g.kept) + 1) {
+		return false, false
+	}
+	return g.skeleton.planarWith(group[0]), true
 }
 
 // result returns the rejected edges, sorted, once run is done.
