@@ -12,8 +12,9 @@ package planarize
 // their pendant trees hang from the core: the tree paths and the candidate
 // then form one path between two core vertices, which is again a
 // subdivided edge. So the test sees the branch vertices of the core (degree
-// 3 and up), one edge per distinct pair of them joined by a chain, the
-// chain the candidate meets split where it meets it, and the candidate.
+// 3 and up), one edge per distinct pair of them joined by a chain, a vertex
+// for each end of the candidate inside a chain, joined to that chain's two
+// ends, and the candidate (see planarWith).
 //
 // Where the kept graph is a spanning tree plus a few cycles, as in a sparse
 // random graph most of whose edges are set aside, that is a few times
@@ -30,7 +31,7 @@ type skeleton struct {
 	comp   []int32 // connected component in the kept graph
 	attach []int32 // the core vertex its pendant tree hangs from; itself in the core; a tree component's last peeled vertex
 	chain  []int32 // its chain, for an inner vertex of one; -1 otherwise
-	place  []int32 // a branch vertex's number in the skeleton, an inner vertex's position along its chain
+	place  []int32 // a branch vertex's number in the skeleton
 	// Per chain: its two end branch vertices, as skeleton numbers.
 	ends [][2]int32
 
@@ -172,10 +173,9 @@ func (s *skeleton) build(kept []int32, limit int) bool {
 			}
 			id := int32(len(s.ends))
 			s.usedEdge[d>>1] = true
-			cur, pos := other(d), int32(0)
-			for s.deg[cur] == 2 && s.chain[cur] < 0 && !s.isBranch(cur) {
-				s.chain[cur], s.place[cur] = id, pos
-				pos++
+			cur := other(d)
+			for s.deg[cur] == 2 && s.chain[cur] < 0 {
+				s.chain[cur] = id
 				for _, d2 := range g.adj[g.start[cur]:g.start[cur+1]] {
 					if !s.usedEdge[d2>>1] && !s.peeled[other(d2)] {
 						s.usedEdge[d2>>1] = true
@@ -193,7 +193,7 @@ func (s *skeleton) build(kept []int32, limit int) bool {
 		}
 	}
 	for v := range n {
-		if !s.peeled[v] && s.deg[v] == 2 && s.chain[v] < 0 && !s.isBranch(int32(v)) {
+		if !s.peeled[v] && s.deg[v] == 2 && s.chain[v] < 0 {
 			s.place[v] = int32(s.branches)
 			s.branches++
 			s.deg[v] = 3 // marks it a branch vertex from here on

@@ -206,3 +206,51 @@ func TestSkeletonSize(t *testing.T) {
 		t.Errorf("tree plus 4 edges: %d branch vertices, %d edges", s.branches, len(s.base))
 	}
 }
+
+// FuzzSkeleton checks the skeleton on fuzzed graphs: the bytes give up to
+// 16 vertices and pairs of them; the kept graph takes each pair in turn
+// that keeps it planar (the greedy search's kind of kept graph), and every
+// other pair of vertices is a candidate, checked against the whole test.
+func FuzzSkeleton(f *testing.F) {
+	f.Add([]byte{6, 0, 1, 1, 2, 2, 0, 3, 4, 4, 5, 5, 3, 0, 3})
+	f.Add([]byte{10, 0, 1, 1, 2, 2, 3, 3, 4, 4, 5, 5, 6, 6, 7, 7, 8, 8, 9, 9, 0, 0, 5, 2, 7})
+	f.Add([]byte{7, 0, 1, 0, 2, 0, 3, 1, 2, 1, 3, 2, 3, 4, 5, 5, 6})
+	f.Add([]byte{16})
+	f.Fuzz(func(t *testing.T, data []byte) {
+		if len(data) == 0 {
+			return
+		}
+		n := 2 + int(data[0])%15
+		var all [][2]int32
+		seen := map[[2]int32]bool{}
+		pair := func(u, v int32) {
+			k := [2]int32{min(u, v), max(u, v)}
+			if u != v && !seen[k] {
+				seen[k] = true
+				all = append(all, k)
+			}
+		}
+		for i := 1; i+1 < len(data); i += 2 {
+			pair(int32(data[i])%int32(n), int32(data[i+1])%int32(n))
+		}
+		var kept, cands []int32
+		var with [][2]int32
+		for i, e := range all {
+			if IsPlanar(n, append(with, e)) {
+				with = append(with, e)
+				kept = append(kept, int32(i))
+			} else {
+				cands = append(cands, int32(i))
+			}
+		}
+		for u := range int32(n) {
+			for v := u + 1; v < int32(n); v++ {
+				if !seen[[2]int32{u, v}] {
+					pair(u, v)
+					cands = append(cands, int32(len(all)-1))
+				}
+			}
+		}
+		skeletonAgrees(t, "fuzzed", n, all, kept, cands)
+	})
+}

@@ -805,7 +805,7 @@ func (g *greedySearch) planar(group []int32) (p, ok bool) {
 	}
 	if g.skeleton.kept != len(g.kept) { // the kept list only grows, at its end
 		if !g.skeleton.build(g.kept, g.t.n+len(g.kept)) {
-			g.noSkeleton = true // the 2-core only grows: it would not pay later either
+			g.noSkeleton = true // it only grows faster than the kept graph: it would not pay later
 			g.skeleton = nil
 			return g.t.planar(g.kept, group)
 		}
