@@ -6,6 +6,7 @@ import (
 	"slices"
 	"testing"
 
+	"github.com/gridwood/gridwood/internal/disjoint"
 	"github.com/gridwood/gridwood/internal/graphgen"
 )
 
@@ -89,22 +90,12 @@ func TestSkeletonSparseGraphs(t *testing.T) {
 				g := graphgen.DisjointUnion(tri, graphgen.RandomTree(n/4+2, seed), graphgen.Cycle(5))
 				edges, _ := Simplify(g.N, g.Edges)
 				// A spanning forest by union-find, then the share of the rest.
-				parent := make([]int32, g.N)
-				for v := range parent {
-					parent[v] = int32(v)
-				}
-				find := func(v int32) int32 {
-					for parent[v] != v {
-						parent[v] = parent[parent[v]]
-						v = parent[v]
-					}
-					return v
-				}
+				sets := disjoint.New(g.N)
 				var kept []int32
 				for _, i := range rng.Perm(len(edges)) {
-					a, b := find(edges[i][0]), find(edges[i][1])
-					if a != b || rng.Float64() < share {
-						parent[a] = b
+					u, v := edges[i][0], edges[i][1]
+					if sets.Find(u) != sets.Find(v) || rng.Float64() < share {
+						sets.Union(u, v)
 						kept = append(kept, int32(i))
 					}
 				}
