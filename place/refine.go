@@ -91,6 +91,7 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		ok := nearPairs(vs, edges, x, y, grid, stamp, meter, func(w int32, e [2]int32) {
 			icross, need, along := c.alongside(w, e)
 			if !along {
+				c.cornerPair(w, e) // counted, not pushed: rare, and the stretch clears it
 				return
 			}
 			c.alongsidePair(icross, need)

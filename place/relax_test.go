@@ -55,7 +55,7 @@ func TestRelaxKeepsTriangulationPlane(t *testing.T) {
 					edges = append(edges, e)
 				}
 			}
-			if !relax(d.aug, vs, region, edges, x, y, b.HalfW, b.HalfH, b.Gap, make([]bool, 2*d.aug.M()), make([]int32, n)) {
+			if !relax(d.aug, vs, region, edges, x, y, b.HalfW, b.HalfH, b.Gap, relaxReaches(vs, b.HalfW, b.HalfH, b.Gap)[0], make([]bool, 2*d.aug.M()), make([]int32, n)) {
 				t.Fatalf("%s: relax did not run on component %d", g.Name, c)
 			}
 			relaxed++

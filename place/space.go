@@ -365,8 +365,12 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 	// Trees are left out: their layered drawing (spaceComponent) won
 	// over the relaxed grid drawing on every random tree measured (30 to
 	// 1,000 nodes), and relaxing costs as much again.
-	if !gridOnly && !crowded && region != nil && len(edges) != len(vs)-1 && relaxWins(d.aug, vs, region, edges, px, py, tx, ty, w.lx, w.ly, hw, hh, gap, seen, stamp) {
-		counted = &out.Relaxed
+	if !gridOnly && !crowded && region != nil && len(edges) != len(vs)-1 && len(vs) <= relaxLimit {
+		for _, reach := range relaxReaches(vs, hw, hh, gap) {
+			if relaxWins(d.aug, vs, region, edges, px, py, tx, ty, w.lx, w.ly, hw, hh, gap, reach, seen, stamp) {
+				counted = &out.Relaxed
+			}
+		}
 	}
 	if counted != nil {
 		*counted++
@@ -686,7 +690,43 @@ func (c *clearance) boxPair(u, w int32) {
 func (c *clearance) edgePair(w int32, e [2]int32) {
 	if cross, need, ok := c.alongside(w, e); ok {
 		c.alongsidePair(cross, need)
+		return
 	}
+	c.cornerPair(w, e)
+}
+
+// cornerPair takes in a vertex w not alongside edge e: a wide or tall box
+// can still reach over the part of e near one of its ends. In units of
+// w's grown half box, relative to w, the box is the unit square of the
+// maximum norm, and the stretch that clears it is one over that norm's
+// least value along e. The norm is convex and piecewise linear along the
+// segment, with breaks only where it crosses a diagonal (|x| = |y|), so
+// the least value is at an end or at such a crossing.
+func (c *clearance) cornerPair(w int32, e [2]int32) {
+	a, b := float64(c.hw[w]+edgeGap), float64(c.hh[w]+edgeGap)
+	if a <= 0 || b <= 0 {
+		return
+	}
+	px, py := float64(c.x[e[0]]-c.x[w])/a, float64(c.y[e[0]]-c.y[w])/b
+	qx, qy := float64(c.x[e[1]]-c.x[w])/a, float64(c.y[e[1]]-c.y[w])/b
+	norm := func(x, y float64) float64 { return max(math.Abs(x), math.Abs(y)) }
+	least := min(norm(px, py), norm(qx, qy))
+	if least-norm(px-qx, py-qy)/2 >= 1 {
+		return // every point is within half its length of an end outside the box
+	}
+	dx, dy := qx-px, qy-py
+	for _, sign := range [2]float64{1, -1} {
+		// px + t dx = sign (py + t dy)
+		if den := dx - sign*dy; den != 0 {
+			if t := (sign*py - px) / den; t > 0 && t < 1 {
+				least = min(least, norm(px+t*dx, py+t*dy))
+			}
+		}
+	}
+	if least == 0 {
+		return // through w itself: a broken drawing, not a spacing matter
+	}
+	c.s = max(c.s, 1/least)
 }
 
 // alongsidePair takes in a vertex alongside an edge, given by alongside's
@@ -972,14 +1012,14 @@ func packSpaced(boxes []Component, gap int64) {
 // stretches and shrinks it as spacing does, and when it then clears every
 // box in less area than px, py writes it to px, py and reports true. tx,
 // ty, lx, ly are scratch; stamp is relax's and the clearance passes'.
-func relaxWins(aug *planarize.Embedding, vs []int32, region *outerRegion, edges [][2]int32, px, py, tx, ty, lx, ly, hw, hh []int64, gap int64, seen []bool, stamp []int32) bool {
+func relaxWins(aug *planarize.Embedding, vs []int32, region *outerRegion, edges [][2]int32, px, py, tx, ty, lx, ly, hw, hh []int64, gap int64, reach [2]int64, seen []bool, stamp []int32) bool {
 	if len(vs) > relaxLimit {
 		return false
 	}
 	for _, v := range vs {
 		tx[v], ty[v] = px[v], py[v]
 	}
-	if !relax(aug, vs, region, edges, tx, ty, hw, hh, gap, seen, stamp) {
+	if !relax(aug, vs, region, edges, tx, ty, hw, hh, gap, reach, seen, stamp) {
 		return false
 	}
 	s, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
