@@ -99,6 +99,11 @@ type Graph struct {
 	file  *File
 	ast   *ast.Graph
 	index map[string]int32 // canonical name (HTML names prefixed by NUL) to node
+	// posOnly holds the top-level node statements that set nothing but
+	// pos on a node mentioned before them (as a laid-out graph's own
+	// appended positions do): Write leaves them out, so that output read
+	// again prints the same.
+	posOnly map[*ast.NodeStmt]bool
 }
 
 // Node is a node of a graph.

@@ -153,11 +153,20 @@ func (w *walker) walk() error {
 		fr.i++
 		switch st := st.(type) {
 		case *ast.NodeStmt:
+			known := len(w.g.Nodes)
 			idx, err := w.mention(st.Node)
 			if err != nil {
 				return err
 			}
 			applyNodeAttrs(&w.g.Nodes[idx].Attrs, st.Attrs)
+			if top == 0 && int(idx) < known && len(st.Attrs) > 0 && printedAttrs(st.Attrs, "pos") == 0 {
+				// Only a pos, which the output replaces, of a node the
+				// graph already has: with the pos gone it says nothing.
+				if w.g.posOnly == nil {
+					w.g.posOnly = make(map[*ast.NodeStmt]bool)
+				}
+				w.g.posOnly[st] = true
+			}
 		case *ast.EdgeStmt:
 			if err := w.startEdge(st); err != nil {
 				return err

@@ -186,6 +186,9 @@ func (p *printer) run() {
 		depth := fr.depth
 		switch st := st.(type) {
 		case *ast.NodeStmt:
+			if p.g.posOnly[st] {
+				continue
+			}
 			p.indent(depth)
 			p.node(st.Node, true)
 			p.attrs(st.Attrs, "pos", nil, false)
@@ -193,11 +196,14 @@ func (p *printer) run() {
 		case *ast.EdgeStmt:
 			p.startEdge(st, depth)
 		case *ast.AttrStmt:
-			p.indent(depth)
 			drop := "pos"
 			if st.Kind == ast.GraphKind {
 				drop = "bb"
 			}
+			if len(st.Attrs) > 0 && printedAttrs(st.Attrs, drop) == 0 {
+				continue // only stale layout data: nothing left to say
+			}
+			p.indent(depth)
 			p.ws(st.Kind.String())
 			p.ws(" ")
 			p.attrs(st.Attrs, drop, nil, true)

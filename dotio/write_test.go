@@ -443,3 +443,34 @@ func TestWriteDeterministicOrder(t *testing.T) {
 		t.Fatal("test names must not be sorted")
 	}
 }
+
+// TestStaleLayoutStatementsLeftOut checks which statements go when
+// removing stale layout data leaves them saying nothing: a default
+// statement of only pos or bb, and a top-level node statement of only pos
+// for a node named before it (as a laid-out graph's appended positions
+// are). A node statement that first names its node, one inside a
+// subgraph (it makes the node a member), one with another attribute, and
+// a default statement written empty stay.
+func TestStaleLayoutStatementsLeftOut(t *testing.T) {
+	for _, tc := range []struct{ in, want string }{
+		{"graph {\n\ta -- b\n\ta [pos=\"1,2\"]\n\tgraph [bb=\"0,0,1,1\"]\n}\n",
+			"graph {\n\ta -- b\n"},
+		{"graph {\n\ta [pos=\"1,2\"]\n\ta -- b\n}\n",
+			"graph {\n\ta\n\ta -- b\n"},
+		{"graph {\n\ta -- b\n\tsubgraph s {\n\t\ta [pos=\"1,2\"]\n\t\tb\n\t}\n}\n",
+			"graph {\n\ta -- b\n\tsubgraph s {a b}\n"},
+		{"graph {\n\ta -- b\n\ta [pos=\"1,2\", color=red]\n\tb [\"pos\"=\"1,2\"] [pos=\"3,4\"]\n}\n",
+			"graph {\n\ta -- b\n\ta [color=red]\n"},
+		{"graph {\n\tnode [pos=\"1,1\"]\n\tedge [pos=\"e,1,1\"]\n\tgraph []\n\tnode [pos=\"1,1\", shape=box]\n\ta\n}\n",
+			"graph {\n\tgraph []\n\tnode [shape=box]\n\ta\n"},
+		{"digraph {\n\t{a -> b; graph [bb=\"1,1,2,2\"]} -> c\n\tb [pos=\"1,1\"]\n}\n",
+			"digraph {\n\t{\n\t\ta -> b\n\t} -> c\n"},
+	} {
+		f := mustRead(t, tc.in)
+		got := string(writeString(t, f, synthLayout(f), WriteOptions{}))
+		body, _, _ := strings.Cut(got, "\n\ta [pos=\"0,3\"]")
+		if body+"\n" != tc.want {
+			t.Errorf("%q:\ngot\n%s\nwant\n%s", tc.in, body, tc.want)
+		}
+	}
+}

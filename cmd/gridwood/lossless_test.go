@@ -285,26 +285,92 @@ func (m *graphMeaning) edgeText(e edgeMeaning, attrs attrMap) string {
 // layoutStmts prints a statement list in a normal form, one statement per
 // line, with what README.md says is removed taken out: pos from node and
 // edge statements and from node and edge defaults, bb from graph
-// attributes (also inside subgraphs and subgraph operands). Indentation is
-// capped so that deep nesting costs linear space.
-func layoutStmts(stmts []ast.Stmt, depth int, out []string) []string {
+// attributes (also inside subgraphs and subgraph operands); a default
+// statement that held only those, and a top-level node statement that
+// held only pos for a node named before it, go altogether. Indentation is
+// capped so that deep nesting costs linear space. seen collects the nodes
+// named so far (by canonicalID), nil for a fresh graph.
+func layoutStmts(stmts []ast.Stmt, depth int, out []string, seen map[string]bool) []string {
+	if seen == nil {
+		seen = make(map[string]bool)
+	}
 	ind := strings.Repeat("\t", min(depth, 8))
 	for _, st := range stmts {
 		switch st := st.(type) {
 		case *ast.Subgraph:
 			out = append(out, ind+subgraphHead(st))
-			out = layoutStmts(st.Stmts, depth+1, out)
+			out = layoutStmts(st.Stmts, depth+1, out, seen)
 			out = append(out, ind+"}")
 		case *ast.Attr:
 			if canonicalID(st.Key) == "bb" {
 				continue
 			}
 			out = append(out, ind+st.Key+"="+st.Val)
+		case *ast.NodeStmt:
+			key := canonicalID(st.Node.ID)
+			if depth == 0 && seen[key] && onlyKey(st.Attrs, "pos") {
+				continue
+			}
+			seen[key] = true
+			out = append(out, ind+layoutStmt(st))
+		case *ast.AttrStmt:
+			drop := "pos"
+			if st.Kind == ast.GraphKind {
+				drop = "bb"
+			}
+			if onlyKey(st.Attrs, drop) {
+				continue
+			}
+			out = append(out, ind+layoutStmt(st))
+		case *ast.EdgeStmt:
+			markNamed(st.From, seen)
+			for e := st.To; e != nil; e = e.To {
+				markNamed(e.Vertex, seen)
+			}
+			out = append(out, ind+layoutStmt(st))
 		default:
 			out = append(out, ind+layoutStmt(st))
 		}
 	}
 	return out
+}
+
+// onlyKey reports whether attrs is not empty and every key in it is key.
+func onlyKey(attrs []*ast.Attr, key string) bool {
+	for _, a := range attrs {
+		if canonicalID(a.Key) != key {
+			return false
+		}
+	}
+	return len(attrs) > 0
+}
+
+// markNamed adds the nodes an edge operand names to seen, iteratively
+// through nested subgraph operands.
+func markNamed(v ast.Vertex, seen map[string]bool) {
+	todo := []ast.Vertex{v}
+	for len(todo) > 0 {
+		v := todo[len(todo)-1]
+		todo = todo[:len(todo)-1]
+		switch v := v.(type) {
+		case *ast.Node:
+			seen[canonicalID(v.ID)] = true
+		case *ast.Subgraph:
+			for _, st := range v.Stmts {
+				switch st := st.(type) {
+				case *ast.NodeStmt:
+					seen[canonicalID(st.Node.ID)] = true
+				case *ast.EdgeStmt:
+					todo = append(todo, st.From)
+					for e := st.To; e != nil; e = e.To {
+						todo = append(todo, e.Vertex)
+					}
+				case *ast.Subgraph:
+					todo = append(todo, st)
+				}
+			}
+		}
+	}
 }
 
 func subgraphHead(s *ast.Subgraph) string {
@@ -369,6 +435,9 @@ func writeVertex(b *strings.Builder, v ast.Vertex) {
 		sep := false
 		for _, st := range v.Stmts {
 			if a, ok := st.(*ast.Attr); ok && canonicalID(a.Key) == "bb" {
+				continue
+			}
+			if a, ok := st.(*ast.AttrStmt); ok && onlyKey(a.Attrs, map[bool]string{true: "bb", false: "pos"}[a.Kind == ast.GraphKind]) {
 				continue
 			}
 			if sep {
@@ -598,7 +667,7 @@ func compareDefault(in, out *ast.Graph, p *problems) [][2]int64 {
 	if !ok {
 		return nil
 	}
-	if a, b := strings.Join(layoutStmts(in.Stmts, 0, nil), "\n"), strings.Join(layoutStmts(body, 0, nil), "\n"); a != b {
+	if a, b := strings.Join(layoutStmts(in.Stmts, 0, nil, nil), "\n"), strings.Join(layoutStmts(body, 0, nil, nil), "\n"); a != b {
 		p.add("graph %s: statements changed:\n--- output\n%s\n--- input without pos/bb\n%s", in.ID, b, a)
 	}
 	compareNodes(mi, mo, pos, p)
