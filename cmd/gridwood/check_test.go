@@ -252,3 +252,31 @@ func TestSpacingClearsWideLabels(t *testing.T) {
 		}
 	}
 }
+
+// TestCheckToFile: --check -o FILE writes the problem lines to FILE (and
+// nothing to standard output), with exit status 1 when there are any, and
+// an empty FILE and status 0 for a clean drawing.
+func TestCheckToFile(t *testing.T) {
+	dir := t.TempDir()
+	for _, tc := range []struct {
+		file string
+		code int
+		want string
+	}{
+		{"cross.dot", exitProblems, `testdata/check/cross.dot:4:4: edges "a" -- "b" and "c" -- "d" cross` + "\n"},
+		{"clean.dot", exitOK, ""},
+	} {
+		path := filepath.Join(dir, tc.file+".txt")
+		code, out, errs := runCmd(t, "", "--check", "-o", path, "testdata/check/"+tc.file)
+		if code != tc.code || out != "" {
+			t.Errorf("%s: exit %d, stdout %q, stderr %q; want exit %d and no stdout", tc.file, code, out, errs, tc.code)
+		}
+		got, err := os.ReadFile(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if string(got) != tc.want {
+			t.Errorf("%s: file holds %q, want %q", tc.file, got, tc.want)
+		}
+	}
+}

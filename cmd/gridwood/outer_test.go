@@ -289,7 +289,7 @@ func TestOuterFaceNodes(t *testing.T) {
 		// Failures. Opposite corners of the cube share no face.
 		{name: "cube opposite corners", dot: outerCube, outer: []string{"a0", "b2"}, fail: "--outer a0,b2"},
 		{name: "different components", dot: "graph two { a -- b -- c -- a; x -- y -- z -- x }", outer: []string{"a", "x"}, fail: "--outer a,x"},
-		{name: "unknown node", dot: outerCube, outer: []string{"a0", "nosuch"}, fail: "--outer a0,nosuch"},
+		{name: "unknown node", dot: outerCube, outer: []string{"a0", "nosuch"}, fail: `--outer a0,nosuch: no graph has all of these nodes (graph "cube" lacks "nosuch")`},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			sets := [][]string{tc.outer}
@@ -334,5 +334,22 @@ func TestOuterFaceNodes(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestOuterNamesMissingFromSomeGraphs: in a file of several graphs,
+// --outer applies to those that have all its nodes, and standard error
+// names each other graph and the names it lacks (nothing under -q).
+func TestOuterNamesMissingFromSomeGraphs(t *testing.T) {
+	src := "graph G { a -- b -- c -- a }\ngraph H { a -- b -- zz -- a }\n"
+	code, _, errs := runCmd(t, src, "--outer", "a,zz")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	if want := "gridwood: <stdin>:1:1: --outer: graph \"G\" lacks \"zz\"; its outer face is chosen as without --outer\n"; errs != want {
+		t.Errorf("stderr %q, want %q", errs, want)
+	}
+	if code, _, errs := runCmd(t, src, "-q", "--outer", "a,zz"); code != exitOK || errs != "" {
+		t.Errorf("-q: exit %d, stderr %q", code, errs)
 	}
 }

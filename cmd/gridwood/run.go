@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"os"
 	"path/filepath"
 	"runtime/debug"
@@ -124,7 +125,7 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 	fs.IntVar(&cfg.effort, "effort", 0, "extra search for fewer set-aside edges: `N` seeded restarts and a larger exact\nsearch on small blocks; the result for a given N is always the same\nexample: --effort 8")
 	fs.IntVar(&cfg.maxExpansion, "max-expansion", dotio.DefaultMaxExpansion, "refuse input whose edge statements with subgraph operands ({a b} -- {c d})\nexpand to more than `N` edges; negative means no limit\nexample: --max-expansion 20000000")
 	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE` (set-aside\nedges dashed, underneath); open it in any browser\nexample: --svg preview.svg")
-	fs.BoolVar(&cfg.check, "check", false, "do not lay out: check the pos of every node already in the input and report,\none per line on standard output, crossing edges, nodes on edges they do not\nend at, overlapping node boxes and edges through node boxes (boxes sized as\nthe layout sizes them, grown to fit labels); exit status 1 if anything was\nfound\nexample: gridwood --check drawn.dot")
+	fs.BoolVar(&cfg.check, "check", false, "do not lay out: check the pos of every node already in the input and report,\none per line on standard output (or -o FILE), crossing edges, nodes on edges\nthey do not end at, overlapping node boxes and edges through node boxes (boxes\nsized as the layout sizes them, grown to fit labels); exit status 1 if anything\nwas found; layout flags do not go with it\nexample: gridwood --check drawn.dot")
 	method := fs.String("method", "schnyder", "drawing `METHOD`: schnyder (every planar graph, (n-2) x (n-2) grid per component,\nthen spaced and smoothed for reading) or convex (every face a convex polygon,\non the (f-1) x (f-1) grid, for 3-connected components; the others fall back\nto schnyder and standard error names them)\nexample: --method convex")
 	outer := fs.String("outer", "", "`NAMES` of nodes that must lie on the outer boundary of the drawing, comma\nseparated (as the names are written, without quotes); applies to every graph\nthat has all of them. Default: a largest face of the graph is the outside\nexample: --outer Refectory,Gym,Chapel")
 	fs.StringVar(&cfg.reportFile, "report", "", "write a JSON quality report to `FILE`: per graph its size, set-aside edges,\ngrid size, area, smallest angle, edge length ratio, node clearance and the\ntime of each stage (README, Quality report, explains the fields)\nexample: --report quality.json")
@@ -163,6 +164,18 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 		cfg.method = place.Convex
 	default:
 		return nil, &usageError{fmt.Sprintf("--method %q: want schnyder or convex", *method), short}
+	}
+	if cfg.check {
+		// --check lays nothing out: a layout flag with it would be
+		// silently ignored.
+		for _, name := range []string{"unit", "grid", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "svg", "method", "outer", "report"} {
+			if fs.Changed(name) {
+				return nil, &usageError{"--check lays nothing out: --" + name + " does not go with it", short}
+			}
+		}
+	}
+	if fs.Changed("outer") && strings.TrimSpace(*outer) == "" {
+		return nil, &usageError{"--outer: no node names given", short}
 	}
 	if *outer != "" {
 		for _, name := range strings.Split(*outer, ",") {
@@ -353,6 +366,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	budget := &planarize.Budget{Left: explainBudgetTotal}
 	stdinUsed := false
 	outerUsed := false
+	firstLack := "" // the first graph that lacks some --outer name, and which
 	memory := newMemoryGuard()
 	var read inputCost
 	warn := func(format string, args ...any) {
@@ -416,7 +430,17 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			if cfg.svgFile != "" {
 				nodeBoxesOf[gi] = boxes
 			}
-			outerUsed = outerUsed || hasAll(g, cfg.outer)
+			if missing := missingNames(g, cfg.outer); len(cfg.outer) > 0 && len(missing) == 0 {
+				outerUsed = true
+			} else if len(cfg.outer) > 0 {
+				lacks := fmt.Sprintf("%s lacks %s", graphName(g, gi), strings.Join(missing, ", "))
+				if firstLack == "" {
+					firstLack = lacks
+				}
+				if !cfg.quiet {
+					prog.note("gridwood: %s:%d:%d: --outer: %s; its outer face is chosen as without --outer\n", name, g.Line, g.Col, lacks)
+				}
+			}
 			if len(res.Removed) == 0 {
 				continue
 			}
@@ -461,7 +485,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	}
 	prog.stop() // before any message or output
 	if len(cfg.outer) > 0 && !outerUsed {
-		return &exitError{exitBadInput, fmt.Sprintf("--outer %s: no graph has all of these nodes", strings.Join(cfg.outer, ","))}
+		return &exitError{exitBadInput, fmt.Sprintf("--outer %s: no graph has all of these nodes (%s)", strings.Join(cfg.outer, ","), firstLack)}
 	}
 	// All inputs succeeded: every file is written to a temporary first and
 	// only when all of them are complete renamed into place, the main
@@ -520,7 +544,11 @@ func checkInputs(cfg *config, stdin io.Reader, stdout io.Writer) error {
 		}
 		problems += k
 	}
-	if _, err := stdout.Write(report.Bytes()); err != nil {
+	if cfg.output != "" {
+		if err := writeFilesAtomic([]pendingFile{{path: cfg.output, data: report.Bytes()}}); err != nil {
+			return err
+		}
+	} else if _, err := stdout.Write(report.Bytes()); err != nil {
 		return err
 	}
 	if problems > 0 {
@@ -631,17 +659,15 @@ func fellBackNames(g *dotio.Graph, least []int) string {
 // SOURCES.md).
 const defaultWidth, defaultHeight = 0.75, 0.5
 
-// hasAll reports whether g has a node of every name.
-func hasAll(g *dotio.Graph, names []string) bool {
-	if len(names) == 0 {
-		return false
-	}
+// missingNames lists, quoted, the names g has no node of.
+func missingNames(g *dotio.Graph, names []string) []string {
+	var out []string
 	for _, name := range names {
 		if _, ok := g.Lookup(name); !ok {
-			return false
+			out = append(out, strconv.Quote(name))
 		}
 	}
-	return true
+	return out
 }
 
 func graphName(g *dotio.Graph, index int) string {
@@ -738,11 +764,17 @@ func followLinks(path string) string {
 // it with a file.
 func writeFilesAtomic(files []pendingFile) error {
 	temps := make([]string, 0, len(files))
-	fail := func(err error) error {
+	// fail names the file the user gave, not the temporary one, and the
+	// cause without the operation's own wording.
+	fail := func(path string, err error) error {
 		for _, name := range temps {
 			os.Remove(name)
 		}
-		return &exitError{exitBadInput, err.Error()}
+		var pe *fs.PathError
+		if errors.As(err, &pe) {
+			err = pe.Err
+		}
+		return &exitError{exitBadInput, fmt.Sprintf("%s: cannot write: %v", path, err)}
 	}
 	var renamed, direct []pendingFile
 	for _, f := range files {
@@ -755,11 +787,12 @@ func writeFilesAtomic(files []pendingFile) error {
 			direct = append(direct, f)
 			continue
 		}
+		given := f.path
 		f.path = followLinks(f.path)
 		renamed = append(renamed, f)
 		tmp, err := os.CreateTemp(filepath.Dir(f.path), "."+filepath.Base(f.path)+".tmp*")
 		if err != nil {
-			return fail(err)
+			return fail(given, err)
 		}
 		temps = append(temps, tmp.Name())
 		_, err = tmp.Write(f.data)
@@ -774,17 +807,17 @@ func writeFilesAtomic(files []pendingFile) error {
 			}
 		}
 		if err != nil {
-			return fail(err)
+			return fail(given, err)
 		}
 	}
 	for _, f := range direct {
 		if err := os.WriteFile(f.path, f.data, 0); err != nil {
-			return fail(err)
+			return fail(f.path, err)
 		}
 	}
 	for i, f := range renamed {
 		if err := os.Rename(temps[i], f.path); err != nil {
-			return fail(err) // the temporaries not yet renamed go
+			return fail(f.path, err) // the temporaries not yet renamed go
 		}
 	}
 	return nil
