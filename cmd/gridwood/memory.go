@@ -28,12 +28,16 @@ const (
 
 // availableMemory reports the memory this process can still use: the
 // kernel's estimate of memory available for new work (MemAvailable in
-// /proc/meminfo), lowered to what a cgroup v2 memory limit leaves. A
-// variable so that tests can pretend a small machine.
+// /proc/meminfo), lowered to what a cgroup memory limit leaves and to what
+// an address-space limit leaves (addressSpaceLeft). A variable so that
+// tests can pretend a small machine.
 var availableMemory = func() (int64, bool) {
 	avail, ok := memInfoAvailable()
 	if limit, used, ok2 := cgroupMemory(); ok2 && (!ok || limit-used < avail) {
 		avail, ok = max(0, limit-used), true
+	}
+	if left, ok3 := addressSpaceLeft(); ok3 && (!ok || left < avail) {
+		avail, ok = left, true
 	}
 	return avail, ok
 }

@@ -29,7 +29,7 @@ func newProgress(w io.Writer, quiet bool) *progress {
 	terminal := false
 	if f, ok := w.(*os.File); ok {
 		fi, err := f.Stat()
-		terminal = err == nil && fi.Mode()&os.ModeCharDevice != 0
+		terminal = err == nil && fi.Mode()&os.ModeCharDevice != 0 && !isNullDevice(fi)
 	}
 	return newProgressAfter(w, terminal && !quiet, progressDelay)
 }
@@ -108,4 +108,14 @@ func (p *progress) note(format string, args ...any) {
 		p.shown = false
 	}
 	fmt.Fprintf(p.w, format, args...)
+}
+
+// isNullDevice reports whether fi is the null device, which is a character
+// device like a terminal but where a progress line is wasted work. Other
+// character devices on standard error are rare enough not to matter; the
+// standard library has no terminal test, and one is not worth a
+// dependency.
+func isNullDevice(fi os.FileInfo) bool {
+	null, err := os.Stat(os.DevNull)
+	return err == nil && os.SameFile(fi, null)
 }

@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"os"
 	"strings"
 	"sync"
 	"testing"
@@ -86,5 +87,23 @@ func TestProgressDelayAndQuiet(t *testing.T) {
 	p.stop()
 	if quiet.String() != "" {
 		t.Errorf("progress shown with show off: %q", quiet.String())
+	}
+}
+
+// TestProgressNotOnTheNullDevice: standard error sent to the null device
+// is a character device, as a terminal is, but gets no progress line.
+func TestProgressNotOnTheNullDevice(t *testing.T) {
+	null, err := os.OpenFile(os.DevNull, os.O_WRONLY, 0)
+	if err != nil {
+		t.Skip(err)
+	}
+	defer null.Close()
+	fi, err := null.Stat()
+	if err != nil || fi.Mode()&os.ModeCharDevice == 0 {
+		t.Skipf("%s is not a character device here", os.DevNull)
+	}
+	if p := newProgress(null, false); p.done != nil {
+		p.stop()
+		t.Errorf("progress shown on %s", os.DevNull)
 	}
 }
