@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"fmt"
 	"os"
 	"path/filepath"
 	"strings"
@@ -278,5 +279,33 @@ func TestCheckToFile(t *testing.T) {
 		if string(got) != tc.want {
 			t.Errorf("%s: file holds %q, want %q", tc.file, got, tc.want)
 		}
+	}
+}
+
+// TestUnclearedComponentsNamed: a component too big for the box check
+// (over 5,000 nodes, README, Spacing) is laid out, and standard error says
+// that edges may pass through node boxes there; -q says nothing.
+func TestUnclearedComponentsNamed(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("graph big {\n")
+	const rows, cols = 51, 100 // 5,100 nodes
+	for r := range rows {
+		for c := range cols {
+			if c+1 < cols {
+				fmt.Fprintf(&b, "\tv%d_%d -- v%d_%d\n", r, c, r, c+1)
+			}
+			if r+1 < rows {
+				fmt.Fprintf(&b, "\tv%d_%d -- v%d_%d\n", r, c, r+1, c)
+			}
+		}
+	}
+	b.WriteString("}\n")
+	code, _, errs := runCmd(t, b.String())
+	want := `gridwood: <stdin>:1:1: graph "big": 1 component too big for the box check (over 5,000 nodes, or past its work bound) kept at the base unit; edges may pass through node boxes there (--check lists them)` + "\n"
+	if code != exitOK || errs != want {
+		t.Errorf("exit %d, stderr %q; want 0 and %q", code, errs, want)
+	}
+	if code, _, errs := runCmd(t, b.String(), "-q"); code != exitOK || errs != "" {
+		t.Errorf("-q: exit %d, stderr %q", code, errs)
 	}
 }

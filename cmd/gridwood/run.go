@@ -625,6 +625,9 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	if res.NotConvex > 0 && !cfg.quiet {
 		cfg.prog.note("gridwood: %s: %d of %d components are not 3-connected and were drawn with the schnyder method: %s\n", where, res.NotConvex, len(res.Components), fellBackNames(g, res.FellBackVertices()))
 	}
+	if sp.Unchecked+sp.Crowded > 0 && !cfg.quiet {
+		cfg.prog.note("gridwood: %s: %s; edges may pass through node boxes there (--check lists them)\n", where, unclearedText(sp.Unchecked, sp.Crowded))
+	}
 	var gr graphReport
 	if cfg.reportFile != "" {
 		name := "schnyder"
@@ -658,6 +661,25 @@ func fellBackNames(g *dotio.Graph, least []int) string {
 // DOT's default node size in inches (from memory of its documentation, see
 // SOURCES.md).
 const defaultWidth, defaultHeight = 0.75, 0.5
+
+// unclearedText says how many components the spacing could not clear of
+// node boxes, and why (README, Spacing).
+func unclearedText(unchecked, crowded int) string {
+	plural := func(k int, what string) string {
+		if k == 1 {
+			return "1 " + what
+		}
+		return strconv.Itoa(k) + " " + what + "s"
+	}
+	var parts []string
+	if unchecked > 0 {
+		parts = append(parts, plural(unchecked, "component")+" too big for the box check (over 5,000 nodes, or past its work bound) kept at the base unit")
+	}
+	if crowded > 0 {
+		parts = append(parts, plural(crowded, "component")+" that would need more than 2^29 points across to clear every box stretched that far")
+	}
+	return strings.Join(parts, "; ")
+}
 
 // missingNames lists, quoted, the names g has no node of.
 func missingNames(g *dotio.Graph, names []string) []string {
