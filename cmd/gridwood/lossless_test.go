@@ -3,6 +3,9 @@ package main
 import (
 	"bytes"
 	"fmt"
+	goast "go/ast"
+	"go/parser"
+	"go/token"
 	"maps"
 	"math"
 	"math/rand/v2"
@@ -481,9 +484,11 @@ func writeAttrText(b *strings.Builder, attrs []*ast.Attr, drop string) bool {
 // normalization makes parseable (concatenation, a byte order mark) fall
 // back to the syntax tree dotio hands to gonum, and so do inputs where
 // gonum read a keyword in unusual case (edgE) as an ID: DOT keywords are
-// case-insensitive (SOURCES.md) and gonum knows only some casings.
+// case-insensitive (SOURCES.md) and gonum knows only some casings; and
+// inputs that may quote a compass point (a:p:"ne"), which DOT reads as
+// the unquoted one and gonum drops (dotio/doc.go).
 func parseInput(src []byte) (*ast.File, error) {
-	if f, err := dot.ParseBytes(src); err == nil && !keywordAsID(f) {
+	if f, err := dot.ParseBytes(src); err == nil && !keywordAsID(f) && !quotedCompass.Match(src) {
 		return f, nil
 	}
 	f, err := dotio.Read(src, dotio.ReadOptions{Name: "input", MaxExpansion: -1})
@@ -492,6 +497,8 @@ func parseInput(src []byte) (*ast.File, error) {
 	}
 	return f.AST(), nil
 }
+
+var quotedCompass = regexp.MustCompile(`:\s*"(n|ne|e|se|s|sw|w|nw|c|_)"`)
 
 // keywordAsID reports whether an unquoted ID of f is a keyword in some
 // case, which DOT does not allow.
@@ -1259,7 +1266,8 @@ func repositoryDOT(t *testing.T) map[string][]byte {
 	t.Helper()
 	texts := map[string][]byte{}
 	for _, pattern := range []string{
-		"../../examples/*.dot", "testdata/*.dot", "../../dotio/testdata/*.gv", "../../dotio/testdata/golden/*.out",
+		"../../examples/*.dot", "testdata/*.dot", "testdata/check/*.dot", "testdata/spacing/*.dot",
+		"../../dotio/testdata/*.gv", "../../dotio/testdata/golden/*.out",
 	} {
 		files, err := filepath.Glob(pattern)
 		if err != nil {
@@ -1274,7 +1282,8 @@ func repositoryDOT(t *testing.T) map[string][]byte {
 		}
 	}
 	corpus, _ := filepath.Glob("../../dotio/testdata/fuzz/FuzzRead/*")
-	for _, f := range corpus {
+	filterCorpus, _ := filepath.Glob("testdata/fuzz/FuzzFilter/*")
+	for _, f := range append(corpus, filterCorpus...) {
 		b, err := os.ReadFile(f)
 		if err != nil {
 			t.Fatal(err)
@@ -1283,10 +1292,42 @@ func repositoryDOT(t *testing.T) map[string][]byte {
 			texts[f] = src
 		}
 	}
+	inlineDOT(t, texts)
 	if len(texts) < 10 {
 		t.Fatalf("found only %d DOT texts in the repository", len(texts))
 	}
 	return texts
+}
+
+// inlineDOT adds the DOT texts written as string literals in the
+// repository's test files (found with go/parser: a literal that starts,
+// after blanks, with graph, digraph or strict), named "inline:FILE:LINE".
+// Some are meant to be rejected; the caller skips those, as fuzz inputs.
+func inlineDOT(t *testing.T, texts map[string][]byte) {
+	t.Helper()
+	looksLikeDOT := regexp.MustCompile(`(?i)^\s*(strict\s+)?(di)?graph\b`)
+	files, err := filepath.Glob("../../*/*_test.go")
+	if err != nil {
+		t.Fatal(err)
+	}
+	more, _ := filepath.Glob("../../*/*/*_test.go")
+	fset := token.NewFileSet()
+	for _, path := range append(files, more...) {
+		f, err := parser.ParseFile(fset, path, nil, parser.SkipObjectResolution)
+		if err != nil {
+			t.Fatal(err)
+		}
+		goast.Inspect(f, func(n goast.Node) bool {
+			lit, ok := n.(*goast.BasicLit)
+			if !ok || lit.Kind != token.STRING {
+				return true
+			}
+			if v, err := strconv.Unquote(lit.Value); err == nil && looksLikeDOT.MatchString(v) && strings.Contains(v, "{") {
+				texts[fmt.Sprintf("inline:%s:%d", filepath.Base(path), fset.Position(lit.Pos()).Line)] = []byte(v)
+			}
+			return true
+		})
+	}
 }
 
 // fuzzCorpusBytes decodes a corpus file of one []byte value, as written by
@@ -1314,9 +1355,10 @@ func TestLosslessOnRepositoryDOT(t *testing.T) {
 	checked := 0
 	for _, name := range names {
 		src := texts[name]
-		// Corpus entries include inputs meant to be rejected.
+		// Corpus entries and texts in tests include inputs meant to be
+		// rejected.
 		if _, err := dotio.Read(src, dotio.ReadOptions{Name: name}); err != nil {
-			if !strings.Contains(name, "fuzz") {
+			if !strings.Contains(name, "fuzz") && !strings.HasPrefix(name, "inline:") {
 				t.Errorf("%s: %v", name, err)
 			}
 			continue
