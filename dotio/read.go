@@ -303,24 +303,47 @@ func Read(src []byte, opt ReadOptions) (*File, error) {
 		progress = func(string, float64) {}
 	}
 	progress("scanning", 0)
+	t, err := parseTree(src, name, func() { progress("parsing", 0.15) })
+	if err != nil {
+		return nil, err
+	}
+	progress("collecting nodes and edges", 0.75)
+	return t.build(opt)
+}
+
+// tree is an input scanned and parsed by gonum's parser, before the walk
+// that collects its nodes and edges.
+type tree struct {
+	name string
+	pm   *posMap
+	sc   *scanned
+	af   *ast.File
+}
+
+// parseTree scans src and parses it; parsing is called between the two.
+func parseTree(src []byte, name string, parsing func()) (*tree, error) {
 	pm := newPosMap(src)
 	sc, err := scan(src, pm, name)
 	if err != nil {
 		return nil, err
 	}
-	progress("parsing", 0.15)
+	parsing()
 	af, err := parse(sc.text)
 	if err != nil {
 		return nil, syntaxError(err, sc, pm, name, len(src))
 	}
+	return &tree{name: name, pm: pm, sc: sc, af: af}, nil
+}
+
+// build walks the syntax tree into the graphs of a File.
+func (t *tree) build(opt ReadOptions) (*File, error) {
 	limit := int64(opt.MaxExpansion)
 	if opt.MaxExpansion == 0 {
 		limit = DefaultMaxExpansion
 	}
 	// Every edge statement has an operator: len(sc.ops) bounds both.
-	f := &File{Name: name, ast: af, pm: pm, ops: make([]opInfo, 0, len(sc.ops)), stmts: make([]edgeStmtInfo, 0, len(sc.ops))}
-	w := &walker{f: f, sc: sc, limit: limit}
-	progress("collecting nodes and edges", 0.75)
+	f := &File{Name: t.name, ast: t.af, pm: t.pm, ops: make([]opInfo, 0, len(t.sc.ops)), stmts: make([]edgeStmtInfo, 0, len(t.sc.ops))}
+	w := &walker{f: f, sc: t.sc, limit: limit}
 	if err := w.run(); err != nil {
 		return nil, err
 	}
