@@ -24,7 +24,9 @@
 // quoted string. An edge statement V0 op V1 op V2 ... joins every node of
 // Vi to every node of Vi+1, where a subgraph operand stands for the nodes
 // mentioned inside it, nested subgraphs included, in order of first
-// mention there. Self-loops and repeated edges are kept, in strict graphs
+// mention there; a named subgraph reopened as an operand also stands for
+// the nodes of its earlier occurrences, a name being looked up among the
+// parent's subgraphs only (common DOT practice, from memory). Self-loops and repeated edges are kept, in strict graphs
 // too. `node [...]` and `edge [...]` defaults are scoped to the enclosing
 // subgraph. Edge statements with subgraph operands are capped
 // (ReadOptions.MaxExpansion): the number of edges a pair of operands

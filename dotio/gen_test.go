@@ -17,9 +17,15 @@ type genDOT struct {
 	nodes    []string
 	seen     map[string]bool
 	edges    []string
-	// sMembers are the nodes of the subgraph named s so far: a reopened
-	// subgraph stands for all its nodes, earlier occurrences first.
-	sMembers []string
+	// members are the nodes of each subgraph so far: a reopened subgraph
+	// stands for all its nodes, earlier occurrences first. A subgraph is
+	// its name within its parent (README.md, "What the output contains"),
+	// so sOf gives each subgraph (by number; the graph is 0) the number of
+	// its child named s; cur is the subgraph being written, last the last
+	// number handed out.
+	members   map[int][]string
+	sOf       map[int]int
+	cur, last int
 }
 
 // lexeme pools: each entry is a lexeme and its canonical name.
@@ -121,6 +127,18 @@ func (g *genDOT) subgraph(depth int) []string {
 		g.blank()
 	}
 	g.b.WriteString("{")
+	parent := g.cur
+	g.last++
+	id := g.last
+	if named {
+		if sid, ok := g.sOf[parent]; ok {
+			id = sid
+		} else {
+			g.sOf[parent] = id
+		}
+	}
+	g.cur = id
+	defer func() { g.cur = parent }()
 	var set []string
 	in := map[string]bool{}
 	for i, n := 0, g.rng.Intn(4); i < n; i++ {
@@ -138,7 +156,7 @@ func (g *genDOT) subgraph(depth int) []string {
 	g.blank()
 	g.b.WriteString("}")
 	if named {
-		merged := append([]string(nil), g.sMembers...)
+		merged := append([]string(nil), g.members[id]...)
 		seen := map[string]bool{}
 		for _, v := range merged {
 			seen[v] = true
@@ -147,7 +165,7 @@ func (g *genDOT) subgraph(depth int) []string {
 			if !seen[v] {
 				seen[v] = true
 				merged = append(merged, v)
-				g.sMembers = append(g.sMembers, v)
+				g.members[id] = append(g.members[id], v)
 			}
 		}
 		set = merged
@@ -211,7 +229,7 @@ func generate(rng *rand.Rand) (src, want string) {
 	var b strings.Builder
 	var w strings.Builder
 	for gi, ng := 0, 1+rng.Intn(2); gi < ng; gi++ {
-		g := &genDOT{rng: rng, directed: rng.Intn(2) == 0, seen: map[string]bool{}}
+		g := &genDOT{rng: rng, directed: rng.Intn(2) == 0, seen: map[string]bool{}, members: map[int][]string{}, sOf: map[int]int{}}
 		kind := "graph"
 		if g.directed {
 			kind = "digraph"

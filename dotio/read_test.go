@@ -96,6 +96,11 @@ func TestReadSemantics(t *testing.T) {
 		// The empty name is a name (found by FuzzFilter): "" reopens "".
 		{"reopened empty-named subgraph", `graph { subgraph "" { a b } subgraph "" { } -- c }`, "graph ; nodes: a b c; edges: a-c b-c\n"},
 		{"anonymous subgraphs never reopen", `graph { subgraph { a b } subgraph { } -- c }`, "graph ; nodes: a b c; edges:\n"},
+		// A name is looked up in its parent only (found by FuzzFilter,
+		// testdata/fuzz/FuzzFilter/93bcc3f7ef4dde9c in cmd/gridwood).
+		{"same name in another parent is another subgraph", `graph { {subgraph s { a }} {subgraph s { b }} -- c }`, "graph ; nodes: a b c; edges: b-c\n"},
+		{"same name in the same named parent reopens", `graph { subgraph t {subgraph s { a }} subgraph t {subgraph s { b }} -- c }`, "graph ; nodes: a b c; edges: a-c b-c\n"},
+		{"nested operand reopens in its own parent", `graph { subgraph s { a } x -- { y -- subgraph s { b } } }`, "graph ; nodes: a x y b; edges: y-b x-y x-b\n"},
 		{"HTML and quoted names differ", `graph { subgraph "x" { a } subgraph <x> { } -- c }`, "graph ; nodes: a c; edges:\n"},
 	}
 	for _, tt := range tests {

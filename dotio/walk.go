@@ -33,14 +33,26 @@ type walker struct {
 
 	// named lists node mentions inside named subgraphs, so that a named
 	// subgraph used as an operand stands for every node of that subgraph,
-	// earlier occurrences included; occ gives each name's ranges in it.
+	// earlier occurrences included; occ gives each subgraph's ranges in
+	// it. A subgraph is its name within its parent (common DOT practice,
+	// from memory: a name is looked up among the parent's subgraphs only),
+	// so subs numbers each (parent, name) once; the graph is 0 and every
+	// anonymous subgraph a number of its own.
 	named      []int32
 	namedDepth int
-	occ        map[string][][2]int32
+	occ        map[int32][][2]int32
+	subs       map[subKey]int32
+	lastSub    int32
 
 	nodeDefaults NodeAttrs
 	savedNode    []NodeAttrs
 	edgeDefaults *attrChain
+}
+
+// subKey names a subgraph: its parent's number and its own name.
+type subKey struct {
+	parent int32
+	name   string
 }
 
 // operand is one vertex of an edge statement: a node, or the node set of
@@ -73,7 +85,8 @@ type frame struct {
 	logStart  int32
 	subIndex  int32 // index into sc.subNodes
 	nodeTok0  int32 // walker.nodeTok when the list opened
-	subID     string
+	sub       int32 // the subgraph's number (see walker.subs)
+	named     bool  // a named subgraph
 	named0    int32 // len(walker.named) when the list opened
 
 	// edge statement
@@ -119,7 +132,9 @@ func (w *walker) run() error {
 		w.edgeDefaults = nil
 		w.named = w.named[:0]
 		w.namedDepth = 0
-		w.occ = make(map[string][][2]int32)
+		w.occ = make(map[int32][][2]int32)
+		w.subs = make(map[subKey]int32)
+		w.lastSub = 0
 		w.stack = append(w.stack[:0], frame{stmts: ag.Stmts, isGraph: true, savedNode: -1, subIndex: -1})
 		if err := w.walk(); err != nil {
 			return err
@@ -190,14 +205,29 @@ func (w *walker) openList(sub *ast.Subgraph, isOperand bool) error {
 	if w.subCount >= len(w.sc.subNodes) {
 		return w.internal("more subgraphs parsed than scanned")
 	}
-	// id is "" for an anonymous subgraph only: a named one's key starts
-	// with a kind byte, so that the empty name `subgraph ""` is a name too.
-	id := ""
+	// The enclosing list: the top frame, or the one below an edge
+	// statement whose operand this is.
+	parent := int32(0)
+	for i := len(w.stack) - 1; i >= 0; i-- {
+		if w.stack[i].es == nil {
+			parent = w.stack[i].sub
+			break
+		}
+	}
+	w.lastSub++
+	num := w.lastSub
 	if sub.ID != "" {
+		// A named one's key starts with a kind byte, so that the empty
+		// name `subgraph ""` is a name too.
 		name, html := canonical(sub.ID)
-		id = "s" + name
+		key := subKey{parent, "s" + name}
 		if html {
-			id = "h" + name
+			key.name = "h" + name
+		}
+		if n, ok := w.subs[key]; ok {
+			num = n
+		} else {
+			w.subs[key] = num
 		}
 		w.namedDepth++
 	}
@@ -205,7 +235,7 @@ func (w *walker) openList(sub *ast.Subgraph, isOperand bool) error {
 		stmts: sub.Stmts, savedEdge: w.edgeDefaults, savedNode: -1,
 		isOperand: isOperand, logStart: int32(len(w.log)),
 		subIndex: int32(w.subCount), nodeTok0: int32(w.nodeTok),
-		subID: id, named0: int32(len(w.named)),
+		sub: num, named: sub.ID != "", named0: int32(len(w.named)),
 	})
 	w.subCount++
 	if isOperand {
@@ -229,10 +259,10 @@ func (w *walker) closeList() error {
 		return w.internal("subgraph %d: %d node mentions parsed, %d scanned", fr.subIndex, int32(w.nodeTok)-fr.nodeTok0, w.sc.subNodes[fr.subIndex])
 	}
 	var earlier [][2]int32
-	if fr.subID != "" {
+	if fr.named {
 		w.namedDepth--
-		earlier = w.occ[fr.subID]
-		w.occ[fr.subID] = append(earlier, [2]int32{fr.named0, int32(len(w.named))})
+		earlier = w.occ[fr.sub]
+		w.occ[fr.sub] = append(earlier, [2]int32{fr.named0, int32(len(w.named))})
 	}
 	if len(earlier) > 0 && w.operandDepth > 0 {
 		// A reopened subgraph inside an operand: its nodes from earlier
