@@ -25,7 +25,7 @@ type svgGraph struct {
 }
 
 // The preview's own look: warm paper, slate nodes with rounded corners and
-// cream text, teal edges, set-aside edges in a thin dashed rust beneath
+// cream text, teal edges, set-aside edges in a thin dashed rust curve beneath
 // everything, ochre badges for repeated edges.
 const (
 	svgPaper      = "#f3ead8" // background
@@ -75,9 +75,9 @@ const (
 // is some copy's head. Loops are drawn once as a three-quarter circle
 // around the node's upper right corner (with a badge when repeated).
 // Arrowheads touch the head's box. Set-aside edges (lay.Removed) are drawn
-// first, thin, dashed and in rust, so that every kept edge and node lies
-// above them; a pair with kept and set-aside copies is drawn in both
-// styles.
+// first, thin, dashed and in rust, bowed off the straight line (see bend),
+// so that every kept edge and node lies above them and they still show;
+// a pair with kept and set-aside copies is drawn in both styles.
 //
 // DOT's y axis points up and SVG's down: each graph is flipped inside its
 // own panel. The output depends only on the input.
@@ -323,8 +323,29 @@ func (p *svgPanel) writeLinks(w *bufio.Writer, removed bool, class string) {
 			fmt.Fprintf(w, "<path class=\"%s loop\" d=\"M %s %s A %s %s 0 1 1 %s %s\"/>\n", class, num(cx-r), num(cy), num(r), num(r), num(cx), num(cy+r))
 			continue
 		}
+		if removed {
+			cx, cy := p.bend(l)
+			fmt.Fprintf(w, "<path class=\"%s\" d=\"M %s %s Q %s %s %s %s\"/>\n", class, num(p.sx(a.x)), num(p.sy(a.y)), num(cx), num(cy), num(p.sx(b.x)), num(p.sy(b.y)))
+			continue
+		}
 		fmt.Fprintf(w, "<line class=\"%s\" x1=\"%s\" y1=\"%s\" x2=\"%s\" y2=\"%s\"/>\n", class, num(p.sx(a.x)), num(p.sy(a.y)), num(p.sx(b.x)), num(p.sy(b.y)))
 	}
+}
+
+// svgBow is how far a set-aside edge's control point lies off the straight
+// line, as a fraction of its length: the curve's middle is half that off
+// (a tenth of the length), so that it shows even where the straight
+// segment would run under kept edges and boxes (three nearly collinear
+// nodes of K5 hid the set-aside edge between the outer two entirely).
+const svgBow = 0.2
+
+// bend is the control point, in document coordinates, of the quadratic
+// curve a set-aside edge is drawn as: off its middle, to the left of the
+// way from its first node to its second.
+func (p *svgPanel) bend(l svgLink) (float64, float64) {
+	a, b := p.nodes[l.u], p.nodes[l.v]
+	ax, ay, bx, by := p.sx(a.x), p.sy(a.y), p.sx(b.x), p.sy(b.y)
+	return (ax+bx)/2 + svgBow*(by-ay), (ay+by)/2 - svgBow*(bx-ax)
 }
 
 // writeArrows draws the arrowheads of one style, in document coordinates.
@@ -353,6 +374,12 @@ func (p *svgPanel) writeArrows(w *bufio.Writer, removed bool, class string) {
 			}
 			h, t := p.nodes[end.head], p.nodes[end.tail]
 			dx, dy := p.sx(h.x)-p.sx(t.x), p.sy(h.y)-p.sy(t.y) // tail to head
+			if removed {
+				// Along the curve's tangent at the head: from the
+				// control point.
+				cx, cy := p.bend(l)
+				dx, dy = p.sx(h.x)-cx, p.sy(h.y)-cy
+			}
 			d := math.Hypot(dx, dy)
 			if d == 0 {
 				continue
@@ -406,7 +433,13 @@ func (p *svgPanel) badgeAt(l svgLink) (float64, float64) {
 		r := loopRadius(a) * math.Sqrt2 / 2
 		return p.sx(a.x+a.hw) + r, p.sy(a.y+a.hh) - r
 	}
-	return (p.sx(a.x) + p.sx(b.x)) / 2, (p.sy(a.y) + p.sy(b.y)) / 2
+	mx, my := (p.sx(a.x)+p.sx(b.x))/2, (p.sy(a.y)+p.sy(b.y))/2
+	if l.removed {
+		// The curve's middle: halfway to the control point.
+		cx, cy := p.bend(l)
+		return (mx + cx) / 2, (my + cy) / 2
+	}
+	return mx, my
 }
 
 func (p *svgPanel) writeLabel(w *bufio.Writer, n svgNode) {
