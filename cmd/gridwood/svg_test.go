@@ -2,9 +2,9 @@ package main
 
 import (
 	"bytes"
-	"fmt"
 	"context"
 	"encoding/xml"
+	"fmt"
 	"image"
 	"image/png"
 	"math"
