@@ -119,3 +119,71 @@ func TestExplainFile(t *testing.T) {
 		}
 	}
 }
+
+// TestExplainNotComputed: when the work bounds run out, the --explain file
+// says so for each set-aside edge left without a certificate (README,
+// Non-planar graphs) instead of leaving it out: with no work at all every
+// entry is "not computed"; with plenty, none is; with a total bound that
+// covers the first certificate only, the first is computed and a later
+// one is not. The file parses as DOT every time.
+func TestExplainNotComputed(t *testing.T) {
+	savedEach, savedTotal := explainBudgetEach, explainBudgetTotal
+	defer func() { explainBudgetEach, explainBudgetTotal = savedEach, savedTotal }()
+	// K6 sets aside 3 edges: 15 - (3*6 - 6) (Euler's bound, SOURCES.md).
+	in := "graph K6 { a -- {b c d e f}; b -- {c d e f}; c -- {d e f}; d -- {e f}; e -- f }\n"
+	explain := func() string {
+		t.Helper()
+		why := filepath.Join(t.TempDir(), "why.dot")
+		if code, _, errs := runCmd(t, in, "-q", "--explain", why); code != exitOK {
+			t.Fatalf("exit %d: %s", code, errs)
+		}
+		src, err := os.ReadFile(why)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if _, err := dot.ParseBytes(src); err != nil {
+			t.Errorf("explain file does not parse: %v\n%s", err, src)
+		}
+		if n := strings.Count(string(src), "removed_edge="); n != 3 {
+			t.Errorf("%d entries, want 3\n%s", n, src)
+		}
+		return string(src)
+	}
+	const notComputed = `obstruction="not computed", reason="work bound reached"`
+	for _, tc := range []struct {
+		name        string
+		each, total int64
+		skipped     int
+	}{
+		{"no work", 0, 0, 3},
+		{"plenty", savedEach, savedTotal, 0},
+	} {
+		explainBudgetEach, explainBudgetTotal = tc.each, tc.total
+		text := explain()
+		if n := strings.Count(text, notComputed); n != tc.skipped {
+			t.Errorf("%s: %d not computed, want %d\n%s", tc.name, n, tc.skipped, text)
+		}
+		if n := strings.Count(text, `obstruction="K`); n != 3-tc.skipped {
+			t.Errorf("%s: %d certificates, want %d\n%s", tc.name, n, 3-tc.skipped, text)
+		}
+	}
+	// The least total bound, in powers of two, that computes a first
+	// certificate: it must leave a later one not computed, or the bound
+	// was not what stopped them.
+	explainBudgetEach = savedEach
+	for explainBudgetTotal = 1; ; explainBudgetTotal *= 2 {
+		if explainBudgetTotal > savedTotal {
+			t.Fatal("no total bound gave a first certificate")
+		}
+		text := explain()
+		if strings.Count(text, notComputed) == 3 {
+			continue
+		}
+		first := text[strings.Index(text, "obstruction="):]
+		if !strings.HasPrefix(first, `obstruction="K`) || !strings.Contains(text, notComputed) {
+			t.Errorf("total bound %d: want the first certificate computed and a later one not\n%s", explainBudgetTotal, text)
+		}
+		t.Logf("a total bound of %d edge visits computes %d of 3", explainBudgetTotal, 3-strings.Count(text, notComputed))
+		break
+	}
+}

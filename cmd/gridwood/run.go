@@ -33,10 +33,10 @@ const (
 const smoothSweeps = 400
 
 // Work bounds for --explain, in edge visits of planarity tests, so that the
-// output never depends on timing.
-const (
-	explainBudgetEach  = 20_000_000
-	explainBudgetTotal = 200_000_000
+// output never depends on timing; variables so that tests can reach them.
+var (
+	explainBudgetEach  int64 = 20_000_000
+	explainBudgetTotal int64 = 200_000_000
 )
 
 // config holds the parsed command line.

@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"fmt"
+	"math/rand/v2"
 	"os"
 	"path/filepath"
 	"regexp"
@@ -445,6 +447,56 @@ func TestRemovedFileListsExactlyTheSetAsideEdges(t *testing.T) {
 	b, _ = os.ReadFile(rm)
 	if code != exitOK || strings.TrimSpace(string(b)) != "graph P {\n}" {
 		t.Errorf("planar graph: exit %d, removed file %q", code, b)
+	}
+}
+
+// TestRemovedFileInInputOrder: the --removed file lists the set-aside
+// edges in input order, one per line, each with its attributes as written
+// (README, Non-planar graphs). K7, its 21 edges in a shuffled order each
+// tagged with its place, loses 21 - (3*7 - 6) = 6 (Euler's bound,
+// SOURCES.md); every line of the file must be the input's line for that
+// edge, in the input's order.
+func TestRemovedFileInInputOrder(t *testing.T) {
+	var pairs [][2]int
+	for u := range 7 {
+		for v := u + 1; v < 7; v++ {
+			pairs = append(pairs, [2]int{u, v})
+		}
+	}
+	rng := rand.New(rand.NewPCG(5, 5))
+	rng.Shuffle(len(pairs), func(i, j int) { pairs[i], pairs[j] = pairs[j], pairs[i] })
+	var in strings.Builder
+	in.WriteString("graph K7 {\n")
+	lines := map[string]int{} // an edge's line to its place in the input
+	for i, p := range pairs {
+		line := fmt.Sprintf("n%d -- n%d [place=%d]", p[0], p[1], i)
+		lines[line] = i
+		in.WriteString("\t" + line + "\n")
+	}
+	in.WriteString("}\n")
+	rm := filepath.Join(t.TempDir(), "removed.dot")
+	if code, _, errs := runCmd(t, in.String(), "-q", "--removed", rm); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	b, err := os.ReadFile(rm)
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := strings.Split(strings.TrimSpace(string(b)), "\n")
+	if len(got) != 6+2 || got[0] != "graph K7 {" || got[len(got)-1] != "}" {
+		t.Fatalf("want graph K7 with 6 edge lines, got\n%s", b)
+	}
+	last := -1
+	for _, line := range got[1 : len(got)-1] {
+		place, ok := lines[strings.TrimSpace(line)]
+		if !ok {
+			t.Errorf("line %q is no input edge line", line)
+			continue
+		}
+		if place <= last {
+			t.Errorf("line %q (input place %d) comes after place %d", line, place, last)
+		}
+		last = place
 	}
 }
 
