@@ -707,6 +707,16 @@ func (c *clearance) cornerPair(w int32, e [2]int32) {
 	if a <= 0 || b <= 0 {
 		return
 	}
+	// Every point of e lies in its bounding box, so the norm is at least
+	// the box's distance from w: when that alone asks for no more than
+	// the stretch so far, nothing below can either (most pairs end here).
+	wx, wy := c.x[w], c.y[w]
+	ux, uy, vx, vy := c.x[e[0]], c.y[e[0]], c.x[e[1]], c.y[e[1]]
+	gapX := max(0, min(ux, vx)-wx, wx-max(ux, vx))
+	gapY := max(0, min(uy, vy)-wy, wy-max(uy, vy))
+	if float64(gapX)*c.s >= a || float64(gapY)*c.s >= b {
+		return
+	}
 	px, py := float64(c.x[e[0]]-c.x[w])/a, float64(c.y[e[0]]-c.y[w])/b
 	qx, qy := float64(c.x[e[1]]-c.x[w])/a, float64(c.y[e[1]]-c.y[w])/b
 	norm := func(x, y float64) float64 { return max(math.Abs(x), math.Abs(y)) }
