@@ -42,9 +42,10 @@ var relaxDirections = [...][2]float64{{1, 0}, {0.7071, 0.7071}, {0, 1}, {-0.7071
 //
 // The room at a vertex is the least height of a triangle at it (any of its
 // three vertices over the opposite side) and half the larger axis distance
-// to a neighbour, measured in grown half boxes (x in units of the widest
-// box's half width plus gap, y of the tallest's half height), so that it
-// evens out the room boxes need. The least height over all triangles
+// to a neighbour, measured in grown half boxes (x in units of reach[0], y
+// of reach[1]: the widest box's half width and the tallest's half height,
+// each plus the gap, or typical ones, see relaxReaches), so that it evens
+// out the room boxes need. The least height over all triangles
 // bounds every distance from a vertex to an edge it does not end at (the
 // segment between them leaves the vertex's star through one of its far
 // sides), so raising the smallest room lowers the stretch the drawing needs
@@ -323,9 +324,10 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 // drawing up around them; the final stretch still clears the big boxes.
 // Space relaxes with each and keeps the smaller drawing: neither wins
 // everywhere. Measured on a 100-node random planar graph with one
-// 52-character label: 9,438 x 8,724 points with the percentile, 23,317 x
-// 20,726 with the largest box; on the shipped campus example, whose labels
-// vary less, the largest box gives 428 x 369 and the median 500 x 442.
+// 52-character label: 9,624 x 8,898 points, against 23,317 x 20,726 with
+// the largest box only; relaxing by the percentile alone, the shipped
+// campus example, whose labels vary less, came out 472 x 414 instead of
+// 428 x 369 (DEVELOPERS.md has the corpus figures).
 func relaxReaches(vs []int32, hw, hh []int64, gap int64) [][2]int64 {
 	rx, ry := make([]int64, len(vs)), make([]int64, len(vs))
 	for i, v := range vs {

@@ -717,8 +717,8 @@ func (c *clearance) cornerPair(w int32, e [2]int32) {
 	if float64(gapX)*c.s >= a || float64(gapY)*c.s >= b {
 		return
 	}
-	px, py := float64(c.x[e[0]]-c.x[w])/a, float64(c.y[e[0]]-c.y[w])/b
-	qx, qy := float64(c.x[e[1]]-c.x[w])/a, float64(c.y[e[1]]-c.y[w])/b
+	px, py := float64(ux-wx)/a, float64(uy-wy)/b
+	qx, qy := float64(vx-wx)/a, float64(vy-wy)/b
 	norm := func(x, y float64) float64 { return max(math.Abs(x), math.Abs(y)) }
 	least := min(norm(px, py), norm(qx, qy))
 	if least-norm(px-qx, py-qy)/2 >= 1 {

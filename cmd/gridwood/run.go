@@ -366,7 +366,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	budget := &planarize.Budget{Left: explainBudgetTotal}
 	stdinUsed := false
 	outerUsed := false
-	firstLack := "" // the first graph that lacks some --outer name, and which
+	var lacks [][2]string // where a graph is and which --outer names it lacks
 	memory := newMemoryGuard()
 	var read inputCost
 	warn := func(format string, args ...any) {
@@ -430,15 +430,11 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			if cfg.svgFile != "" {
 				nodeBoxesOf[gi] = boxes
 			}
-			if missing := missingNames(g, cfg.outer); len(cfg.outer) > 0 && len(missing) == 0 {
-				outerUsed = true
-			} else if len(cfg.outer) > 0 {
-				lacks := fmt.Sprintf("%s lacks %s", graphName(g, gi), strings.Join(missing, ", "))
-				if firstLack == "" {
-					firstLack = lacks
-				}
-				if !cfg.quiet {
-					prog.note("gridwood: %s:%d:%d: --outer: %s; its outer face is chosen as without --outer\n", name, g.Line, g.Col, lacks)
+			if len(cfg.outer) > 0 {
+				if missing := missingNames(g, cfg.outer); len(missing) == 0 {
+					outerUsed = true
+				} else {
+					lacks = append(lacks, [2]string{fmt.Sprintf("%s:%d:%d", name, g.Line, g.Col), graphName(g, gi) + " lacks " + strings.Join(missing, ", ")})
 				}
 			}
 			if len(res.Removed) == 0 {
@@ -485,7 +481,12 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	}
 	prog.stop() // before any message or output
 	if len(cfg.outer) > 0 && !outerUsed {
-		return &exitError{exitBadInput, fmt.Sprintf("--outer %s: no graph has all of these nodes (%s)", strings.Join(cfg.outer, ","), firstLack)}
+		return &exitError{exitBadInput, fmt.Sprintf("--outer %s: no graph has all of these nodes (%s)", strings.Join(cfg.outer, ","), lacks[0][1])}
+	}
+	if !cfg.quiet {
+		for _, l := range lacks {
+			fmt.Fprintf(stderr, "gridwood: %s: --outer: %s; its outer face is chosen as without --outer\n", l[0], l[1])
+		}
 	}
 	// All inputs succeeded: every file is written to a temporary first and
 	// only when all of them are complete renamed into place, the main
