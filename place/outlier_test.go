@@ -102,6 +102,29 @@ func TestCornerPair(t *testing.T) {
 	}
 }
 
+// TestCornerPairWhenShrinking: shrinkNeed starts from a stretch below 1
+// and asks how far the drawing may shrink, so a pair already clear must
+// still bound it. The box as in TestCornerPair (208 x 28 grown); the edge
+// from (208, 20) to (218, 10) lies beyond it, its least maximum-norm
+// distance is 2 (x / 104 = 2 at its left end, worked by hand), so from a
+// stretch of 0.25 cornerPair must ask for 0.5, and from 0.6 leave it.
+func TestCornerPairWhenShrinking(t *testing.T) {
+	x := []int64{0, 208, 218}
+	y := []int64{0, 20, 10}
+	hw := []int64{100, 0, 0}
+	hh := []int64{10, 0, 0}
+	for _, tc := range []struct{ from, want float64 }{{0.25, 0.5}, {0.6, 0.6}} {
+		c := clearance{x: x, y: y, hw: hw, hh: hh, gap: 18, s: tc.from}
+		if _, _, along := c.alongside(0, [2]int32{1, 2}); along {
+			t.Fatal("the origin is alongside the edge: not the case under test")
+		}
+		c.edgePair(0, [2]int32{1, 2})
+		if math.Abs(c.s-tc.want) > 1e-12 {
+			t.Errorf("from %v: stretch %v, want %v", tc.from, c.s, tc.want)
+		}
+	}
+}
+
 // TestRelaxReaches checks relaxReaches: equal boxes and mildly varied ones
 // give the largest reach only, and one box more than relaxOutlier times
 // the 90th percentile's adds a second reach without it, on that axis.

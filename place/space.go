@@ -721,8 +721,10 @@ func (c *clearance) cornerPair(w int32, e [2]int32) {
 	qx, qy := float64(vx-wx)/a, float64(vy-wy)/b
 	norm := func(x, y float64) float64 { return max(math.Abs(x), math.Abs(y)) }
 	least := min(norm(px, py), norm(qx, qy))
-	if least-norm(px-qx, py-qy)/2 >= 1 {
-		return // every point is within half its length of an end outside the box
+	if (least-norm(px-qx, py-qy)/2)*c.s >= 1 {
+		// Every point is within half the length of an end, so the norm is
+		// at least this much along it: no more than the stretch so far.
+		return
 	}
 	dx, dy := qx-px, qy-py
 	for _, sign := range [2]float64{1, -1} {
