@@ -3,9 +3,11 @@ package main
 import (
 	"bytes"
 	"fmt"
+	"maps"
 	"math/rand/v2"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 	"testing"
 
@@ -239,39 +241,30 @@ func nodeLines(out string) string {
 // and wants the same bytes (README.md, "What the output contains"): the
 // positions appended the first time are replaced, not piled up, so a build
 // that runs gridwood over files it laid out before changes nothing. The
-// inputs include graphs that lose edges (the set-aside edges are kept, so
-// the layout sees the same graph) and pinned input positions.
+// inputs are the lossless test's (repositoryDOT: every DOT file and
+// test-file literal in the repository), among them graphs that lose edges
+// (the set-aside edges are kept, so the layout sees the same graph) and
+// pinned input positions.
 func TestOutputReadAgainIsTheSame(t *testing.T) {
-	var inputs []string
-	for _, pattern := range []string{"../../examples/*.dot", "testdata/*.dot", "testdata/check/*.dot", "testdata/spacing/*.dot", "../../dotio/testdata/*.gv"} {
-		files, _ := filepath.Glob(pattern)
-		inputs = append(inputs, files...)
-	}
-	if len(inputs) < 10 {
-		t.Fatalf("only %d inputs", len(inputs))
-	}
+	texts := repositoryDOT(t) // the lossless test's inputs
 	laid := 0
-	for _, path := range inputs {
-		src, err := os.ReadFile(path)
-		if err != nil {
-			t.Fatal(err)
-		}
-		code, once, errs := runCmd(t, string(src), "-q")
+	for _, name := range slices.Sorted(maps.Keys(texts)) {
+		code, once, errs := runCmd(t, string(texts[name]), "-q")
 		if code != exitOK {
 			continue // inputs that are meant to fail (malformed ones)
 		}
 		laid++
 		code, twice, errs2 := runCmd(t, once, "-q")
 		if code != exitOK {
-			t.Errorf("%s: the output laid out again: exit %d: %s", path, code, errs2)
+			t.Errorf("%s: the output laid out again: exit %d: %s", name, code, errs2)
 			continue
 		}
 		if once != twice {
-			t.Errorf("%s: laid out twice differs from once (%d and %d bytes); first run said %q", path, len(once), len(twice), errs)
+			t.Errorf("%s: laid out twice differs from once (%d and %d bytes); first run said %q", name, len(once), len(twice), errs)
 		}
 	}
-	if laid < 10 {
-		t.Errorf("only %d of %d inputs laid out", laid, len(inputs))
+	if laid < 20 {
+		t.Errorf("only %d of %d inputs laid out", laid, len(texts))
 	}
 	for seed := uint64(1); seed <= 3; seed++ {
 		src := randomNonPlanarDOT(seed, 30, 90)
