@@ -9,7 +9,10 @@
 // does, reports lexical problems with positions (invalid UTF-8, NUL bytes,
 // unterminated strings and comments, stray characters, '#' that does not
 // start a line, '--' in a digraph and '->' in a graph, an input without a
-// graph), and normalizes the input where gonum's parser falls short: it
+// graph, braces nested deeper than MaxNesting, which gonum's recursive
+// syntax check cannot take), notes numerals run into a letter ("1e3" is
+// the two IDs 1 and e3, as DOT's lexer reads it) in File.Warnings, and
+// normalizes the input where gonum's parser falls short: it
 // lower-cases keywords in casings gonum does not know, merges "a" + "b"
 // into one quoted string padded with blanks, blanks out a byte order mark
 // and appends a final newline. Every token keeps its byte offset, so
@@ -55,10 +58,14 @@
 // # Writing
 //
 // Write prints the statements of each graph in their original order and
-// form, one per line, with tab indentation (capped at 8 levels). Its only
-// changes: the stale layout data being replaced is removed (pos from node
-// and edge statements and from node and edge defaults, bb from graph and
-// subgraph attributes), and each top-level graph ends with one
+// form, one per line, with tab indentation (capped at 8 levels); a
+// subgraph whose printed statements are all bare nodes is printed on one
+// line, judged on what is printed so that output read again prints the
+// same. Its only changes: the stale layout data being replaced is removed,
+// by the kind of statement it sits on (pos and xlp of nodes, pos, lp,
+// xlp, head_lp and tail_lp of edges, in statements and defaults; bb, lp,
+// lwidth and lheight of graphs and subgraphs), and each top-level graph
+// ends with one
 // `ID [pos="X,Y"]` statement per node and a `graph [bb="..."]` statement.
 // Edges the layout set aside can be dropped or marked (WriteOptions), and
 // WriteRemoved writes them to a graph of their own.

@@ -188,3 +188,38 @@ func TestChainLimit(t *testing.T) {
 		}
 	}
 }
+
+// TestNestingLimit: braces nested past maxNesting are refused by the
+// scanner, before gonum's parser (whose syntax check recurses once per
+// level) sees them, with the position of the first brace too deep. A
+// graph's body is level 1; subgraph bodies, subgraph operands and
+// anonymous braces all count, and closing braces give the levels back.
+func TestNestingLimit(t *testing.T) {
+	defer func(old int) { maxNesting = old }(maxNesting)
+	maxNesting = 4
+	tests := []struct {
+		src string
+		col int // column of the refused brace; 0: read
+	}{
+		{"graph { {{{a}}} }", 0},
+		{"graph { {{{{a}}}} }", 12},
+		{"graph { subgraph s { x -- {y -- {z}} } }", 0},
+		{"graph { subgraph s { x -- {y -- {z -- {w}}} } }", 39},
+		{"graph { {{{a}}} {{{b}}} {{{c}}} }", 0},
+		{"graph { {{{a}}} } graph { {{{b}}} }", 0},
+		{"digraph { {{{a -> {b}}}} }", 19},
+	}
+	for _, tc := range tests {
+		_, err := Read([]byte(tc.src), ReadOptions{Name: "t.gv"})
+		var e *Error
+		switch {
+		case tc.col == 0 && err != nil:
+			t.Errorf("%s: %v", tc.src, err)
+		case tc.col > 0 && (!errors.As(err, &e) || e.Line != 1 || e.Col != tc.col || e.Msg != "braces nested more than 4 levels deep, the most gridwood reads"):
+			t.Errorf("%s: error %v, want one at 1:%d", tc.src, err, tc.col)
+		}
+	}
+	if MaxNesting != 1_000_000 {
+		t.Errorf("MaxNesting is %d; README.md documents 1,000,000", MaxNesting)
+	}
+}

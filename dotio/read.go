@@ -55,6 +55,10 @@ type ReadOptions struct {
 type File struct {
 	Name   string
 	Graphs []*Graph
+	// Warnings are things in the input that read as DOT says but are
+	// rarely meant: a numeral run into a letter ("1e3" is two IDs, 1 and
+	// e3). At most one per kind, saying how many more there are.
+	Warnings []Error
 
 	ast   *ast.File
 	pm    *posMap
@@ -90,6 +94,7 @@ type attrChain struct {
 // Graph is one top-level graph of a file.
 type Graph struct {
 	ID        string // as written ("" if anonymous)
+	Name      string // canonical, as Node.Name ("" if anonymous)
 	Directed  bool
 	Strict    bool
 	Line, Col int    // of its graph or digraph keyword
@@ -308,7 +313,20 @@ func Read(src []byte, opt ReadOptions) (*File, error) {
 		return nil, err
 	}
 	progress("collecting nodes and edges", 0.75)
-	return t.build(opt)
+	f, err := t.build(opt)
+	if err != nil {
+		return nil, err
+	}
+	if sc := t.sc; sc.splitCount > 0 {
+		line, col := t.pm.lineCol(int(sc.splitNum))
+		numeral, rest := splitLexeme(src, int(sc.splitNum), int(sc.splitAt))
+		msg := fmt.Sprintf("%s is read as two IDs, %s and %s, as DOT reads numerals (no exponent, no suffix); quote it to make it one", strconv.Quote(numeral+rest), numeral, rest)
+		if sc.splitCount > 1 {
+			msg += fmt.Sprintf(" (and %d more like it)", sc.splitCount-1)
+		}
+		f.Warnings = append(f.Warnings, Error{File: name, Line: line, Col: col, Msg: msg})
+	}
+	return f, nil
 }
 
 // tree is an input scanned and parsed by gonum's parser, before the walk

@@ -305,3 +305,37 @@ func TestReadErrors(t *testing.T) {
 		})
 	}
 }
+
+// TestNumeralRunIntoLetter: DOT's lexer ends a numeral at the first
+// character that cannot continue it, so `1e3` is the two IDs 1 and e3
+// (SOURCES.md, numerals); Read follows it and says so in File.Warnings,
+// once, at the first such place, with how many more there are.
+func TestNumeralRunIntoLetter(t *testing.T) {
+	tests := []struct {
+		src   string
+		nodes string // the nodes read
+		warn  string // the warning, "" for none
+	}{
+		{"graph { a -- 1e3 }", "a 1 e3", `t.gv:1:14: "1e3" is read as two IDs, 1 and e3, as DOT reads numerals (no exponent, no suffix); quote it to make it one`},
+		{"graph { -2.5x; 7_a }", "-2.5 x 7 _a", `t.gv:1:9: "-2.5x" is read as two IDs, -2.5 and x, as DOT reads numerals (no exponent, no suffix); quote it to make it one (and 1 more like it)`},
+		{"graph {\n 1.2.3 }", "1.2 .3", `t.gv:2:2: "1.2.3" is read as two IDs, 1.2 and .3, as DOT reads numerals (no exponent, no suffix); quote it to make it one`},
+		{"graph { 1 e3; \"1e3\"; a [width=2]; 12 }", "1 e3 1e3 a 12", ""},
+	}
+	for _, tc := range tests {
+		f, err := Read([]byte(tc.src), ReadOptions{Name: "t.gv"})
+		if err != nil {
+			t.Errorf("%q: %v", tc.src, err)
+			continue
+		}
+		if got := strings.Join(nodeNames(f.Graphs[0]), " "); got != tc.nodes {
+			t.Errorf("%q: nodes %q, want %q", tc.src, got, tc.nodes)
+		}
+		var warns []string
+		for _, w := range f.Warnings {
+			warns = append(warns, w.Error())
+		}
+		if got := strings.Join(warns, "\n"); got != tc.warn {
+			t.Errorf("%q: warnings\n%s\nwant\n%s", tc.src, got, tc.warn)
+		}
+	}
+}

@@ -104,6 +104,12 @@ type scanned struct {
 	// subNodes holds, for each subgraph brace in text order (graph bodies
 	// excluded), the number of node tokens inside it.
 	subNodes []int32
+	// splitNum is the offset of the first numeral directly followed by a
+	// letter, digit or dot ("1e3", "2x"), which DOT reads as two IDs, and
+	// splitCount how many there are; -1 and 0 when there is none.
+	splitNum   int32
+	splitAt    int32 // where DOT ends that numeral
+	splitCount int
 }
 
 // scanner is a single-pass DOT tokenizer that mirrors the lexer of
@@ -138,6 +144,15 @@ type scanner struct {
 // million parse in about 4 s). A variable so that tests can lower it.
 var maxChain int32 = 1_000_000
 
+// MaxNesting is the deepest nesting of braces (a graph's body is depth 1)
+// Read accepts. gonum's syntax check recurses once per level and overflows
+// the goroutine stack past about 5 million levels; one million parse in
+// about 1.1 GB.
+const MaxNesting = 1_000_000
+
+// maxNesting is MaxNesting, a variable so that tests can lower it.
+var maxNesting = MaxNesting
+
 type subOpen struct {
 	index     int32 // into res.subNodes
 	nodeCount int32 // len(res.nodeToks) when the brace opened
@@ -146,6 +161,7 @@ type subOpen struct {
 // scan tokenizes src. name is used in error messages.
 func scan(src []byte, pm *posMap, name string) (*scanned, error) {
 	s := &scanner{src: src, pm: pm, lineBlank: true, pending: -1}
+	s.res.splitNum = -1
 	// Operators in strings or comments make this an overestimate; it
 	// saves the repeated growth of the offset lists on large inputs.
 	// An edge statement takes at least 4 bytes ("a--b"), which bounds the
@@ -360,6 +376,7 @@ func (s *scanner) run() error {
 				return err
 			}
 			kind = tNum
+			s.splitCheck(start)
 		case c == '-':
 			if start+1 < len(src) {
 				switch d := src[start+1]; {
@@ -375,6 +392,7 @@ func (s *scanner) run() error {
 						return err
 					}
 					kind = tNum
+					s.splitCheck(start)
 				}
 			}
 			if kind == tNone {
@@ -459,6 +477,44 @@ func (s *scanner) number() error {
 		}
 	}
 	return nil
+}
+
+// splitCheck notes a numeral starting at start that runs straight into a
+// letter, digit or dot: DOT's lexer ends the numeral there and reads what
+// follows as another ID ("1e3" is 1 and then e3), which is rarely meant.
+func (s *scanner) splitCheck(start int) {
+	if s.pos >= len(s.src) {
+		return
+	}
+	c := s.src[s.pos]
+	if !isASCIILetter(c) && !isDigit(c) && c != '.' && c < utf8.RuneSelf {
+		return
+	}
+	if s.res.splitCount == 0 {
+		s.res.splitNum, s.res.splitAt = int32(start), int32(s.pos)
+	}
+	s.res.splitCount++
+}
+
+// splitLexeme returns the two parts of the text splitCheck noted: the
+// numeral from off to at, and the letters, digits and dots that follow
+// it, each cut to 40 bytes (at a character boundary) for a message.
+func splitLexeme(src []byte, off, at int) (numeral, rest string) {
+	end := at
+	for end < len(src) && (isASCIILetter(src[end]) || isDigit(src[end]) || src[end] == '.' || src[end] >= utf8.RuneSelf) {
+		end++
+	}
+	cut := func(b []byte) string {
+		if len(b) <= 40 {
+			return string(b)
+		}
+		n := 40
+		for n > 0 && !utf8.RuneStart(b[n]) {
+			n--
+		}
+		return string(b[:n]) + "..."
+	}
+	return cut(src[off:at]), cut(src[at:end])
 }
 
 // stringToken scans a quoted string at s.pos and any "+"-concatenated
@@ -678,6 +734,9 @@ func (s *scanner) token(kind tokKind, off int) error {
 			}
 		}
 	case tLBrace:
+		if s.braceDepth >= maxNesting {
+			return s.errorf(off, "braces nested more than %d levels deep, the most gridwood reads", maxNesting)
+		}
 		if s.braceDepth > 0 {
 			s.subOpen = append(s.subOpen, subOpen{index: int32(len(s.res.subNodes)), nodeCount: int32(len(s.res.nodeToks))})
 			s.res.subNodes = append(s.res.subNodes, 0)

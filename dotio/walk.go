@@ -109,8 +109,9 @@ func (w *walker) run() error {
 	for gi, ag := range w.f.ast.Graphs {
 		off := int(sc.graphKw[gi])
 		line, col := w.f.pm.lineCol(off)
+		name, _ := canonical(ag.ID)
 		g := &Graph{
-			ID: ag.ID, Directed: ag.Directed, Strict: ag.Strict,
+			ID: ag.ID, Name: name, Directed: ag.Directed, Strict: ag.Strict,
 			Line: line, Col: col,
 			file: w.f, ast: ag, index: make(map[string]int32, nodeGuess(sc, gi)),
 		}
@@ -174,9 +175,10 @@ func (w *walker) walk() error {
 				return err
 			}
 			applyNodeAttrs(&w.g.Nodes[idx].Attrs, st.Attrs)
-			if top == 0 && int(idx) < known && len(st.Attrs) > 0 && printedAttrs(st.Attrs, "pos") == 0 {
-				// Only a pos, which the output replaces, of a node the
-				// graph already has: with the pos gone it says nothing.
+			if top == 0 && int(idx) < known && len(st.Attrs) > 0 && printedAttrs(st.Attrs, staleNode) == 0 {
+				// Only stale layout data (a pos, an xlp), which the
+				// output replaces, of a node the graph already has: with
+				// it gone the statement says nothing.
 				if w.g.posOnly == nil {
 					w.g.posOnly = make(map[*ast.NodeStmt]bool)
 				}

@@ -26,6 +26,36 @@ type WriteOptions struct {
 	MarkRemoved []Attr // add these attributes to removed edges in the main output
 }
 
+// Stale layout data: the attributes a layout writes, by the kind of
+// statement they belong to (DOT's layout output attributes, from memory of
+// its documentation; SOURCES.md). A new
+// layout makes them wrong, so Write leaves them out wherever they appear
+// on that kind: on node statements and node defaults, on edge statements
+// and edge defaults, and on graphs and subgraphs (graph defaults and
+// ID=value statements).
+var (
+	staleNode  = []string{"pos", "xlp"}
+	staleEdge  = []string{"pos", "lp", "xlp", "head_lp", "tail_lp"}
+	staleGraph = []string{"bb", "lp", "lwidth", "lheight"}
+)
+
+// staleOf returns the stale keys of an attribute statement's kind.
+func staleOf(kind ast.Kind) []string {
+	switch kind {
+	case ast.NodeKind:
+		return staleNode
+	case ast.EdgeKind:
+		return staleEdge
+	}
+	return staleGraph
+}
+
+// isStale reports whether the attribute key (a lexeme) is one of stale.
+func isStale(key string, stale []string) bool {
+	k, _ := canonical(key)
+	return slices.Contains(stale, k)
+}
+
 // maxIndent caps indentation so that deep nesting gives linear output.
 const maxIndent = 8
 
@@ -191,25 +221,21 @@ func (p *printer) run() {
 			}
 			p.indent(depth)
 			p.node(st.Node, true)
-			p.attrs(st.Attrs, "pos", nil, false)
+			p.attrs(st.Attrs, staleNode, nil, false)
 			p.ws("\n")
 		case *ast.EdgeStmt:
 			p.startEdge(st, depth)
 		case *ast.AttrStmt:
-			drop := "pos"
-			if st.Kind == ast.GraphKind {
-				drop = "bb"
-			}
-			if len(st.Attrs) > 0 && printedAttrs(st.Attrs, drop) == 0 {
+			if !p.printed(st) {
 				continue // only stale layout data: nothing left to say
 			}
 			p.indent(depth)
 			p.ws(st.Kind.String())
 			p.ws(" ")
-			p.attrs(st.Attrs, drop, nil, true)
+			p.attrs(st.Attrs, staleOf(st.Kind), nil, true)
 			p.ws("\n")
 		case *ast.Attr:
-			if key, _ := canonical(st.Key); key == "bb" {
+			if !p.printed(st) {
 				continue
 			}
 			p.indent(depth)
@@ -228,9 +254,26 @@ func (p *printer) run() {
 	}
 }
 
-// subgraph prints the head of a subgraph; a subgraph of bare node
-// statements is printed inline and true is returned, otherwise a list
-// frame is pushed for its body.
+// printed reports whether a statement prints anything: a statement that
+// holds only stale layout data, or a top-level node statement that only
+// gave a node named before it a pos (Graph.posOnly), goes altogether.
+func (p *printer) printed(st ast.Stmt) bool {
+	switch st := st.(type) {
+	case *ast.NodeStmt:
+		return !p.g.posOnly[st]
+	case *ast.AttrStmt:
+		return len(st.Attrs) == 0 || printedAttrs(st.Attrs, staleOf(st.Kind)) > 0
+	case *ast.Attr:
+		return !isStale(st.Key, staleGraph)
+	}
+	return true
+}
+
+// subgraph prints the head of a subgraph; a subgraph whose printed
+// statements are all bare node statements is printed inline and true is
+// returned, otherwise a list frame is pushed for its body. The choice
+// looks only at what is printed, so that the output read again makes the
+// same choice.
 func (p *printer) subgraph(s *ast.Subgraph, depth int, inEdge bool) (inline bool) {
 	if s.ID != "" {
 		p.ws("subgraph ")
@@ -239,18 +282,26 @@ func (p *printer) subgraph(s *ast.Subgraph, depth int, inEdge bool) (inline bool
 	}
 	inline = true
 	for _, st := range s.Stmts {
+		if !p.printed(st) {
+			continue
+		}
 		ns, ok := st.(*ast.NodeStmt)
-		if !ok || printedAttrs(ns.Attrs, "pos") > 0 {
+		if !ok || printedAttrs(ns.Attrs, staleNode) > 0 {
 			inline = false
 			break
 		}
 	}
 	if inline {
 		p.ws("{")
-		for i, st := range s.Stmts {
-			if i > 0 {
+		sep := false
+		for _, st := range s.Stmts {
+			if !p.printed(st) {
+				continue
+			}
+			if sep {
 				p.ws(" ")
 			}
+			sep = true
 			p.node(st.(*ast.NodeStmt).Node, true)
 		}
 		p.ws("}")
@@ -282,22 +333,23 @@ func portString(pt *ast.Port) string {
 	return s
 }
 
-func printedAttrs(attrs []*ast.Attr, drop string) int {
+// printedAttrs counts the attributes that are not stale.
+func printedAttrs(attrs []*ast.Attr, stale []string) int {
 	n := 0
 	for _, a := range attrs {
-		if key, _ := canonical(a.Key); key != drop {
+		if !isStale(a.Key, stale) {
 			n++
 		}
 	}
 	return n
 }
 
-// attrs prints " [k=v, ...]" without the attributes whose canonical key is
-// drop or the key of one in extra, followed by extra: a mark replaces an
+// attrs prints " [k=v, ...]" without the stale attributes and those with
+// the key of one in extra, followed by extra: a mark replaces an
 // attribute of the same name rather than repeating its key. Nothing is
 // printed for an empty list unless always is set.
-func (p *printer) attrs(attrs []*ast.Attr, drop string, extra []Attr, always bool) {
-	if !always && printedAttrs(attrs, drop)+len(extra) == 0 {
+func (p *printer) attrs(attrs []*ast.Attr, stale []string, extra []Attr, always bool) {
+	if !always && printedAttrs(attrs, stale)+len(extra) == 0 {
 		return
 	}
 	if !always {
@@ -307,7 +359,7 @@ func (p *printer) attrs(attrs []*ast.Attr, drop string, extra []Attr, always boo
 	sep := false
 	for _, a := range attrs {
 		key, _ := canonical(a.Key)
-		if key == drop || slices.ContainsFunc(extra, func(x Attr) bool { k, _ := canonical(x.Key); return k == key }) {
+		if slices.Contains(stale, key) || slices.ContainsFunc(extra, func(x Attr) bool { k, _ := canonical(x.Key); return k == key }) {
 			continue
 		}
 		if sep {
@@ -417,7 +469,7 @@ func (p *printer) edgeStep(fi int) {
 			if fr.mode == modeMark {
 				mark = p.opt.MarkRemoved
 			}
-			p.attrs(es.Attrs, "pos", mark, false)
+			p.attrs(es.Attrs, staleEdge, mark, false)
 			p.ws("\n")
 		}
 		p.stack = p.stack[:fi]
@@ -488,7 +540,7 @@ func (p *printer) splitEdges(fr *pframe) {
 		if removed {
 			mark = p.opt.MarkRemoved
 		}
-		p.attrs(fr.es.Attrs, "pos", mark, false)
+		p.attrs(fr.es.Attrs, staleEdge, mark, false)
 		p.ws("\n")
 	}
 }
@@ -553,7 +605,7 @@ func WriteRemoved(w io.Writer, f *File, removed [][]int) error {
 			for _, a := range g.edgeAttrs(i, memo) {
 				attrs = append(attrs, &ast.Attr{Key: a.Key, Val: a.Value})
 			}
-			p.attrs(attrs, "pos", nil, false)
+			p.attrs(attrs, staleEdge, nil, false)
 			p.ws("\n")
 		}
 		p.ws("}\n")

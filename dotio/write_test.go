@@ -70,10 +70,10 @@ func golden(t *testing.T, name string, got []byte) {
 // layout attributes Write removes; the last drop statements are left out.
 func filtered(g *ast.Graph, drop int) string {
 	var stmt func(ast.Stmt) ast.Stmt
-	keep := func(attrs []*ast.Attr, gone string) []*ast.Attr {
+	keep := func(attrs []*ast.Attr, gone ...string) []*ast.Attr {
 		var out []*ast.Attr
 		for _, a := range attrs {
-			if k, _ := canonical(a.Key); k != gone {
+			if k, _ := canonical(a.Key); !slices.Contains(gone, k) {
 				out = append(out, a)
 			}
 		}
@@ -95,9 +95,9 @@ func filtered(g *ast.Graph, drop int) string {
 	stmt = func(s ast.Stmt) ast.Stmt {
 		switch s := s.(type) {
 		case *ast.NodeStmt:
-			return &ast.NodeStmt{Node: s.Node, Attrs: keep(s.Attrs, "pos")}
+			return &ast.NodeStmt{Node: s.Node, Attrs: keep(s.Attrs, "pos", "xlp")}
 		case *ast.EdgeStmt:
-			c := &ast.EdgeStmt{From: vertex(s.From), Attrs: keep(s.Attrs, "pos")}
+			c := &ast.EdgeStmt{From: vertex(s.From), Attrs: keep(s.Attrs, "pos", "lp", "xlp", "head_lp", "tail_lp")}
 			tail := &c.To
 			for e := s.To; e != nil; e = e.To {
 				*tail = &ast.Edge{Directed: e.Directed, Vertex: vertex(e.Vertex)}
@@ -105,13 +105,16 @@ func filtered(g *ast.Graph, drop int) string {
 			}
 			return c
 		case *ast.AttrStmt:
-			gone := "pos"
-			if s.Kind == ast.GraphKind {
-				gone = "bb"
+			gone := []string{"pos", "xlp"}
+			switch s.Kind {
+			case ast.EdgeKind:
+				gone = []string{"pos", "lp", "xlp", "head_lp", "tail_lp"}
+			case ast.GraphKind:
+				gone = []string{"bb", "lp", "lwidth", "lheight"}
 			}
-			return &ast.AttrStmt{Kind: s.Kind, Attrs: keep(s.Attrs, gone)}
+			return &ast.AttrStmt{Kind: s.Kind, Attrs: keep(s.Attrs, gone...)}
 		case *ast.Attr:
-			if k, _ := canonical(s.Key); k == "bb" {
+			if k, _ := canonical(s.Key); slices.Contains([]string{"bb", "lp", "lwidth", "lheight"}, k) {
 				return nil
 			}
 			return s
@@ -465,6 +468,18 @@ func TestStaleLayoutStatementsLeftOut(t *testing.T) {
 			"graph {\n\tgraph []\n\tnode [shape=box]\n\ta\n"},
 		{"digraph {\n\t{a -> b; graph [bb=\"1,1,2,2\"]} -> c\n\tb [pos=\"1,1\"]\n}\n",
 			"digraph {\n\t{\n\t\ta -> b\n\t} -> c\n"},
+		// All of a layout's output attributes, each on its own kind (lp
+		// on a node is none of them and stays); SOURCES.md.
+		{"graph {\n\ta -- b [lp=\"1,1\", head_lp=\"1\", tail_lp=2, xlp=3, color=red]\n\ta [xlp=\"1,1\"]\n\tsubgraph cluster_x {lp=\"1,2\"; lwidth=1; lheight=2; c}\n\tgraph [lp=\"3,4\", label=L]\n\tnode [xlp=1]\n\tedge [lp=2]\n\td [lp=kept]\n\tlwidth=3\n}\n",
+			"graph {\n\ta -- b [color=red]\n\tsubgraph cluster_x {c}\n\tgraph [label=L]\n\td [lp=kept]\n"},
+		// The compact form is chosen from what is printed, so that the
+		// output read again prints the same.
+		{"graph {\n\tsubgraph s {\n\t\ta\n\t\tbb=\"1,1,2,2\"\n\t}\n}\n",
+			"graph {\n\tsubgraph s {a}\n"},
+		{"graph {\n\ta -- {b; node [pos=\"1,1\"]} -- {c; edge [lp=1]; graph [bb=1]}\n}\n",
+			"graph {\n\ta -- {b} -- {c}\n"},
+		{"graph {\n\tsubgraph s {a; lp=1; node []}\n}\n",
+			"graph {\n\tsubgraph s {\n\t\ta\n\t\tnode []\n\t}\n"},
 	} {
 		f := mustRead(t, tc.in)
 		got := string(writeString(t, f, synthLayout(f), WriteOptions{}))
