@@ -15,7 +15,6 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
-	"strings"
 
 	"github.com/gridwood/gridwood/internal/graphgen"
 )
@@ -71,7 +70,7 @@ func main() {
 		}
 		inputs = append(inputs, p)
 	}
-	fmt.Println("| graph | method | nodes | edges | set aside | grid area / (n-2)^2 | saved by compaction | size (pt) | smallest angle | longest / shortest edge | closest node to an edge (base units) | box overlaps | edges through boxes |")
+	fmt.Println("| graph | method | nodes | edges | removed | grid area / (n-2)^2 | saved by compaction | size (pt) | smallest angle | longest / shortest edge | closest node to an edge (base units) | box overlaps | edges through boxes |")
 	fmt.Println("| --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- |")
 	for _, in := range inputs {
 		for _, m := range []struct {
@@ -121,7 +120,7 @@ func main() {
 					method += " (barycentric)"
 				}
 				fmt.Printf("| %s | %s | %d | %d | %d | %.2f | %.0f%% | %d x %d | %.1f° | %.1f | %s | %d | %d |\n",
-					strings.Trim(strings.TrimPrefix(strings.TrimPrefix(g.Graph, "di"), "graph "), `"`), method, g.Nodes, g.Edges, g.Removed,
+					g.Graph, method, g.Nodes, g.Edges, g.Removed,
 					g.AreaRatio, 100*g.CompactionSaved, g.W, g.H, g.MinAngle, g.EdgeRatio, ve, g.Overlaps, g.Through)
 			}
 		}

@@ -11,8 +11,11 @@
 // graph first loses an inclusion-minimal set of edges, which is reported on
 // standard error and, with --removed, written to a file.
 //
-// Exit status: 0 done, 1 a check found problems, 2 bad input or usage,
-// 3 a graph is not planar and --planar-only was given.
+// Exit status: 0 done, 1 a check found problems, 2 bad input or usage, or
+// a file that could not be read or written, 3 a graph is not planar and
+// --planar-only was given; killed by SIGPIPE (141 in a shell) when the
+// reader of standard output stops early. Output files are committed all
+// or nothing (output.go).
 //
 // Run gridwood --help for the flags.
 package main

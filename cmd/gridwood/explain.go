@@ -10,17 +10,15 @@ import (
 	"github.com/gridwood/gridwood/planarize"
 )
 
-// writeExplain writes, for every graph with set-aside edges, an undirected
-// DOT graph holding one subgraph per set-aside edge: a Kuratowski subgraph
-// made of that edge and kept edges, with its type and branch vertices as
-// attributes, and its paths as edge chains. Certificates whose search ran
-// out of its work bound say so instead.
+// writeExplain writes, for every graph, an undirected DOT graph holding one
+// subgraph per removed edge: a Kuratowski subgraph made of that edge and
+// kept edges, with its type and branch vertices as attributes, and its
+// paths as edge chains. Certificates whose search ran out of its work
+// bound say so instead. A planar graph gets an empty graph, as in the
+// --removed file, so that the file is DOT with one graph per input graph.
 func writeExplain(w *bytes.Buffer, f *dotio.File, results []*place.Result, total *planarize.Budget) {
 	for gi, g := range f.Graphs {
 		res := results[gi]
-		if len(res.Removed) == 0 {
-			continue
-		}
 		id := g.ID
 		if id == "" {
 			id = dotQuote(fmt.Sprintf("anonymous %d", gi+1))
@@ -30,7 +28,7 @@ func writeExplain(w *bytes.Buffer, f *dotio.File, results []*place.Result, total
 		for k, i := range res.Removed {
 			e := g.Edges[i]
 			line, col := g.EdgePos(i)
-			fmt.Fprintf(w, "\tsubgraph %s {\n", dotQuote(fmt.Sprintf("set-aside %d", k+1)))
+			fmt.Fprintf(w, "\tsubgraph %s {\n", dotQuote(fmt.Sprintf("removed %d", k+1)))
 			edgeText := g.Nodes[e.From].Name + " -- " + g.Nodes[e.To].Name
 			fmt.Fprintf(w, "\t\tgraph [removed_edge=%s, at=%s", dotQuote(edgeText), dotQuote(fmt.Sprintf("%s:%d:%d", f.Name, line, col)))
 			key := [2]int32{min(e.From, e.To), max(e.From, e.To)}

@@ -187,3 +187,34 @@ func TestExplainNotComputed(t *testing.T) {
 		break
 	}
 }
+
+// TestExplainOnPlanarGraph: --explain writes one graph per input graph, an
+// empty one for a planar graph, so that the file is DOT even when nothing
+// was removed (it was empty, not DOT, before).
+func TestExplainOnPlanarGraph(t *testing.T) {
+	why := filepath.Join(t.TempDir(), "why.dot")
+	for _, tc := range []struct{ in, want string }{
+		{"graph P { a -- b }\n", "graph P {\n}\n"},
+		{"digraph { a -> b }\n", "graph \"anonymous 1\" {\n}\n"},
+	} {
+		if code, _, errs := runCmd(t, tc.in, "-q", "--explain", why); code != exitOK {
+			t.Fatalf("exit %d: %s", code, errs)
+		}
+		if b, _ := os.ReadFile(why); string(b) != tc.want {
+			t.Errorf("%q: explain file %q, want %q", tc.in, b, tc.want)
+		}
+	}
+	// A planar graph and a non-planar one: two graphs, the second with
+	// one certificate named for the removed edge.
+	if code, _, errs := runCmd(t, "graph P { a -- b }\n"+k5Text, "-q", "--explain", why); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	src, _ := os.ReadFile(why)
+	f, err := dot.ParseBytes(src)
+	if err != nil || len(f.Graphs) != 2 || len(f.Graphs[0].Stmts) != 0 {
+		t.Fatalf("explain file: %v\n%s", err, src)
+	}
+	if !strings.Contains(string(src), "subgraph \"removed 1\" {") || strings.Contains(string(src), "set") {
+		t.Errorf("certificate not named \"removed 1\":\n%s", src)
+	}
+}

@@ -43,14 +43,35 @@ func (m attrMap) set(attrs []*ast.Attr) {
 	}
 }
 
-// without returns a copy of m without key.
-func (m attrMap) without(key string) attrMap {
+// without returns a copy of m without keys.
+func (m attrMap) without(keys ...string) attrMap {
 	c := maps.Clone(m)
 	if c == nil {
 		c = attrMap{}
 	}
-	delete(c, key)
+	for _, k := range keys {
+		delete(c, k)
+	}
 	return c
+}
+
+// The stale layout data README.md says the output leaves out, by the kind
+// of statement it sits on (layout output attributes, SOURCES.md).
+var (
+	staleNodeKeys  = []string{"pos", "xlp"}
+	staleEdgeKeys  = []string{"pos", "lp", "xlp", "head_lp", "tail_lp"}
+	staleGraphKeys = []string{"bb", "lp", "lwidth", "lheight"}
+)
+
+// staleKeys returns the stale keys of an attribute statement's kind.
+func staleKeys(kind ast.Kind) []string {
+	switch kind {
+	case ast.NodeKind:
+		return staleNodeKeys
+	case ast.EdgeKind:
+		return staleEdgeKeys
+	}
+	return staleGraphKeys
 }
 
 func (m attrMap) String() string {
@@ -305,23 +326,19 @@ func layoutStmts(stmts []ast.Stmt, depth int, out []string, seen map[string]bool
 			out = layoutStmts(st.Stmts, depth+1, out, seen)
 			out = append(out, ind+"}")
 		case *ast.Attr:
-			if canonicalID(st.Key) == "bb" {
+			if slices.Contains(staleGraphKeys, canonicalID(st.Key)) {
 				continue
 			}
 			out = append(out, ind+st.Key+"="+st.Val)
 		case *ast.NodeStmt:
 			key := canonicalID(st.Node.ID)
-			if depth == 0 && seen[key] && onlyKey(st.Attrs, "pos") {
+			if depth == 0 && seen[key] && onlyKeys(st.Attrs, staleNodeKeys) {
 				continue
 			}
 			seen[key] = true
 			out = append(out, ind+layoutStmt(st))
 		case *ast.AttrStmt:
-			drop := "pos"
-			if st.Kind == ast.GraphKind {
-				drop = "bb"
-			}
-			if onlyKey(st.Attrs, drop) {
+			if onlyKeys(st.Attrs, staleKeys(st.Kind)) {
 				continue
 			}
 			out = append(out, ind+layoutStmt(st))
@@ -338,10 +355,11 @@ func layoutStmts(stmts []ast.Stmt, depth int, out []string, seen map[string]bool
 	return out
 }
 
-// onlyKey reports whether attrs is not empty and every key in it is key.
-func onlyKey(attrs []*ast.Attr, key string) bool {
+// onlyKeys reports whether attrs is not empty and every key in it is one
+// of keys.
+func onlyKeys(attrs []*ast.Attr, keys []string) bool {
 	for _, a := range attrs {
-		if canonicalID(a.Key) != key {
+		if !slices.Contains(keys, canonicalID(a.Key)) {
 			return false
 		}
 	}
@@ -397,7 +415,7 @@ func writeLayoutStmt(b *strings.Builder, st ast.Stmt) {
 	switch st := st.(type) {
 	case *ast.NodeStmt:
 		b.WriteString(st.Node.String())
-		writeAttrText(b, st.Attrs, "pos")
+		writeAttrText(b, st.Attrs, staleNodeKeys)
 	case *ast.EdgeStmt:
 		writeVertex(b, st.From)
 		for e := st.To; e != nil; e = e.To {
@@ -408,18 +426,14 @@ func writeLayoutStmt(b *strings.Builder, st ast.Stmt) {
 			}
 			writeVertex(b, e.Vertex)
 		}
-		writeAttrText(b, st.Attrs, "pos")
+		writeAttrText(b, st.Attrs, staleEdgeKeys)
 	case *ast.AttrStmt:
-		drop := "pos"
-		if st.Kind == ast.GraphKind {
-			drop = "bb"
-		}
 		b.WriteString(st.Kind.String())
-		if !writeAttrText(b, st.Attrs, drop) {
+		if !writeAttrText(b, st.Attrs, staleKeys(st.Kind)) {
 			b.WriteString(" []")
 		}
 	case *ast.Attr:
-		if canonicalID(st.Key) != "bb" {
+		if !slices.Contains(staleGraphKeys, canonicalID(st.Key)) {
 			b.WriteString(st.Key + "=" + st.Val)
 		}
 	case *ast.Subgraph:
@@ -437,10 +451,10 @@ func writeVertex(b *strings.Builder, v ast.Vertex) {
 		b.WriteString(subgraphHead(v))
 		sep := false
 		for _, st := range v.Stmts {
-			if a, ok := st.(*ast.Attr); ok && canonicalID(a.Key) == "bb" {
+			if a, ok := st.(*ast.Attr); ok && slices.Contains(staleGraphKeys, canonicalID(a.Key)) {
 				continue
 			}
-			if a, ok := st.(*ast.AttrStmt); ok && onlyKey(a.Attrs, map[bool]string{true: "bb", false: "pos"}[a.Kind == ast.GraphKind]) {
+			if a, ok := st.(*ast.AttrStmt); ok && onlyKeys(a.Attrs, staleKeys(a.Kind)) {
 				continue
 			}
 			if sep {
@@ -456,11 +470,11 @@ func writeVertex(b *strings.Builder, v ast.Vertex) {
 }
 
 // writeAttrText writes " [k=v, ...]" without the attributes whose
-// canonical key is drop, and reports whether anything was written.
-func writeAttrText(b *strings.Builder, attrs []*ast.Attr, drop string) bool {
+// canonical key is one of drop, and reports whether anything was written.
+func writeAttrText(b *strings.Builder, attrs []*ast.Attr, drop []string) bool {
 	n := 0
 	for _, a := range attrs {
-		if canonicalID(a.Key) == drop {
+		if slices.Contains(drop, canonicalID(a.Key)) {
 			continue
 		}
 		if n == 0 {
@@ -682,7 +696,7 @@ func compareDefault(in, out *ast.Graph, p *problems) [][2]int64 {
 		p.add("graph %s: %d edges, input has %d", in.ID, len(mo.Edges), len(mi.Edges))
 	} else {
 		for i, e := range mi.Edges {
-			a, b := mi.edgeText(e, e.Attrs.without("pos")), mo.edgeText(mo.Edges[i], mo.Edges[i].Attrs)
+			a, b := mi.edgeText(e, e.Attrs.without(staleEdgeKeys...)), mo.edgeText(mo.Edges[i], mo.Edges[i].Attrs)
 			if a != b {
 				p.add("graph %s: edge %d is %s, was %s (pos removed)", in.ID, i, b, a)
 			}
@@ -691,11 +705,11 @@ func compareDefault(in, out *ast.Graph, p *problems) [][2]int64 {
 	compareSubgraphs(mi, mo, func(es []int, m *graphMeaning) []string {
 		var t []string
 		for _, i := range es {
-			t = append(t, m.edgeText(m.Edges[i], m.Edges[i].Attrs.without("pos")))
+			t = append(t, m.edgeText(m.Edges[i], m.Edges[i].Attrs.without(staleEdgeKeys...)))
 		}
 		return t
 	}, p)
-	if a, b := mi.Attrs.without("bb"), mo.Attrs.without("bb"); !maps.Equal(a, b) {
+	if a, b := mi.Attrs.without(staleGraphKeys...), mo.Attrs.without("bb"); !maps.Equal(a, b) {
 		p.add("graph %s: graph attributes %v, were %v (bb removed)", in.ID, b, a)
 	}
 	if got, want := mo.Attrs["bb"], fmt.Sprintf("0,0,%d,%d", w, h); got != want {
@@ -718,7 +732,7 @@ func compareNodes(mi, mo *graphMeaning, pos [][2]int64, p *problems) {
 			p.add("graph %s: node %d is %s, was %s", mi.ID, i, o.ID, n.ID)
 			continue
 		}
-		if a, b := n.Attrs.without("pos"), o.Attrs.without("pos"); !maps.Equal(a, b) {
+		if a, b := n.Attrs.without(staleNodeKeys...), o.Attrs.without("pos"); !maps.Equal(a, b) {
 			p.add("graph %s: node %s has %v, had %v (pos removed)", mi.ID, n.ID, b, a)
 		}
 		if want := fmt.Sprintf("%d,%d", pos[i][0], pos[i][1]); o.Attrs["pos"] != want {
@@ -744,7 +758,7 @@ func compareSubgraphs(mi, mo *graphMeaning, edgeTexts func([]int, *graphMeaning)
 		if !slices.Equal(s.Nodes, o.Nodes) {
 			p.add("graph %s: subgraph %q holds nodes %v, held %v", mi.ID, s.Name, o.Nodes, s.Nodes)
 		}
-		if a, b := s.Attrs.without("bb"), o.Attrs; !maps.Equal(a, b) {
+		if a, b := s.Attrs.without(staleGraphKeys...), o.Attrs; !maps.Equal(a, b) {
 			p.add("graph %s: subgraph %q has %v, had %v (bb removed)", mi.ID, s.Name, b, a)
 		}
 		if a, b := edgeTexts(s.Edges, mi), edgeTexts(o.Edges, mo); !slices.Equal(a, b) {
@@ -800,7 +814,7 @@ func readRemoved(g *ast.Graph) removedSet {
 	m := interpretGraph(g)
 	rs := removedSet{count: map[string]int{}, pairs: map[[2]string]bool{}}
 	for _, e := range m.Edges {
-		rs.count[m.edgeText(e, e.Attrs.without("pos"))]++
+		rs.count[m.edgeText(e, e.Attrs.without(staleEdgeKeys...))]++
 		a, b := m.Nodes[e.From].Key, m.Nodes[e.To].Key
 		rs.pairs[[2]string{min(a, b), max(a, b)}] = true
 	}
@@ -821,7 +835,7 @@ func checkRemovedSet(mi *graphMeaning, rg *ast.Graph, rs removedSet, p *problems
 	}
 	inCount := map[string]int{}
 	for _, e := range mi.Edges {
-		inCount[mi.edgeText(e, e.Attrs.without("pos"))]++
+		inCount[mi.edgeText(e, e.Attrs.without(staleEdgeKeys...))]++
 	}
 	for t, c := range rs.count {
 		if inCount[t] < c {
@@ -832,7 +846,7 @@ func checkRemovedSet(mi *graphMeaning, rg *ast.Graph, rs removedSet, p *problems
 		if !rs.hasPair(mi, e) {
 			continue
 		}
-		t := mi.edgeText(e, e.Attrs.without("pos"))
+		t := mi.edgeText(e, e.Attrs.without(staleEdgeKeys...))
 		if e.From == e.To {
 			p.add("graph %s: loop %s set aside", mi.ID, t)
 		} else if rs.count[t] != inCount[t] {
@@ -854,7 +868,7 @@ func compareSplit(in, out *ast.Graph, rs removedSet, mark attrMap, p *problems) 
 	compareNodes(mi, mo, pos, p)
 	expect := func(m *graphMeaning, i int) (string, bool) {
 		e := m.Edges[i]
-		a := e.Attrs.without("pos")
+		a := e.Attrs.without(staleEdgeKeys...)
 		if rs.hasPair(m, e) {
 			if mark == nil {
 				return "", false
@@ -897,7 +911,7 @@ func compareSplit(in, out *ast.Graph, rs removedSet, mark attrMap, p *problems) 
 		}
 		return gotTexts(es, m)
 	}, p)
-	if a, b := mi.Attrs.without("bb"), mo.Attrs.without("bb"); !maps.Equal(a, b) {
+	if a, b := mi.Attrs.without(staleGraphKeys...), mo.Attrs.without("bb"); !maps.Equal(a, b) {
 		p.add("graph %s: graph attributes %v, were %v (bb removed)", in.ID, b, a)
 	}
 	checkInsideBB(mo, pos, w, h, p)
@@ -1135,12 +1149,14 @@ func (g *dotGen) nodeRef(port bool) string {
 func (g *dotGen) attr(kind string) string {
 	switch kind {
 	case "graph":
-		return g.pick(`label="Vellmoor \"south\""`, `bb="1,2,3,4"`, "rankdir=LR", `"bb"="0,0,9,9"`, "fontname=Helvetica", `label=<<i>map</i>>`)
+		return g.pick(`label="Vellmoor \"south\""`, `bb="1,2,3,4"`, "rankdir=LR", `"bb"="0,0,9,9"`, "fontname=Helvetica", `label=<<i>map</i>>`,
+			`lp="12,30"`, "lwidth=0.8", `"lheight"=0.3`, "pos=1")
 	case "edge":
-		return g.pick("color=red", `color="#3a6f8f"`, `pos="1,1 2,2"`, "weight=3", "style=bold", `label="96f"`, "penwidth=2", `"pos"="e,1,1"`)
+		return g.pick("color=red", `color="#3a6f8f"`, `pos="1,1 2,2"`, "weight=3", "style=bold", `label="96f"`, "penwidth=2", `"pos"="e,1,1"`,
+			`lp="1,2"`, `xlp="3,4"`, `head_lp="5,6"`, `"tail_lp"="7,8"`, "lwidth=2")
 	}
 	return g.pick("color=red", "shape=box", "width=1.5", "height=0.8", `pos="10,20"`, `pos="3,4!"`, `label="a \"b\""`, "fontsize=9",
-		`label=<<i>x</i>>`, "fixedsize=true", `"pos"="5,5"`, "width=0.3", `bb="1,1,1,1"`)
+		`label=<<i>x</i>>`, "fixedsize=true", `"pos"="5,5"`, "width=0.3", `bb="1,1,1,1"`, `xlp="2,2"`, `lp="4,4"`)
 }
 
 func (g *dotGen) attrList(kind string, always bool) string {

@@ -60,7 +60,7 @@ type graphReport struct {
 // graphMeasures fills a report record from one laid-out graph.
 func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp *place.Placed, boxes place.Boxes, spaceTime time.Duration) graphReport {
 	r := graphReport{
-		Graph: graphName(g, gi), Directed: g.Directed, Nodes: len(g.Nodes), Edges: len(g.Edges),
+		Graph: g.Name, Directed: g.Directed, Nodes: len(g.Nodes), Edges: len(g.Edges),
 		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
 		Method: method, Components: len(res.Components), BarycentricComponents: sp.Smoothed,
 		ConvexComponents: convexCount(res) + sp.Convex, TreeComponents: sp.Trees, FaceCountComponents: sp.FaceCounts, RelaxedComponents: sp.Relaxed, UncheckedComponents: sp.Unchecked, CrowdedComponents: sp.Crowded,

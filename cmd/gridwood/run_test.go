@@ -7,11 +7,14 @@ import (
 	"os"
 	"path/filepath"
 	"regexp"
+	"runtime/debug"
+	"slices"
 	"strconv"
 	"strings"
 	"syscall"
 	"testing"
 
+	"github.com/spf13/pflag"
 	"gonum.org/v1/gonum/graph/formats/dot"
 	"gonum.org/v1/gonum/graph/formats/dot/ast"
 
@@ -96,7 +99,7 @@ func TestEndToEndKeepsStatementsAndDrawsCleanly(t *testing.T) {
 			switch st := st.(type) {
 			case *ast.NodeStmt:
 				key := canonicalID(st.Node.ID)
-				if seen[key] && onlyKey(st.Attrs, "pos") {
+				if seen[key] && onlyKeys(st.Attrs, staleNodeKeys) {
 					continue
 				}
 				seen[key] = true
@@ -146,13 +149,25 @@ func TestEndToEndKeepsStatementsAndDrawsCleanly(t *testing.T) {
 }
 
 // stripLayout prints a statement as the output should contain it: with
-// pos removed from node and edge statements and defaults, and bb from
-// graph attributes. Statements left empty by this are dropped ("").
+// the stale layout data of each kind removed (pos and xlp from node
+// statements and defaults, pos, lp, xlp, head_lp and tail_lp from edge
+// statements and defaults, bb, lp, lwidth and lheight from graph
+// attributes, also inside subgraph statements). Statements left empty by
+// this are dropped ("").
 func stripLayout(st ast.Stmt) string {
-	drop := func(attrs []*ast.Attr, key string) []*ast.Attr {
+	if c := stripStmt(st); c != nil {
+		return c.String()
+	}
+	return ""
+}
+
+// stripStmt is stripLayout on the syntax tree: a copy without the stale
+// data, or nil.
+func stripStmt(st ast.Stmt) ast.Stmt {
+	drop := func(attrs []*ast.Attr, keys []string) []*ast.Attr {
 		var out []*ast.Attr
 		for _, a := range attrs {
-			if a.Key != key {
+			if !slices.Contains(keys, a.Key) {
 				out = append(out, a)
 			}
 		}
@@ -161,30 +176,34 @@ func stripLayout(st ast.Stmt) string {
 	switch s := st.(type) {
 	case *ast.NodeStmt:
 		c := *s
-		c.Attrs = drop(s.Attrs, "pos")
-		return c.String()
+		c.Attrs = drop(s.Attrs, staleNodeKeys)
+		return &c
 	case *ast.EdgeStmt:
 		c := *s
-		c.Attrs = drop(s.Attrs, "pos")
-		return c.String()
+		c.Attrs = drop(s.Attrs, staleEdgeKeys)
+		return &c
 	case *ast.Attr:
-		if s.Key == "bb" {
-			return ""
+		if slices.Contains(staleGraphKeys, s.Key) {
+			return nil
 		}
 	case *ast.AttrStmt:
 		c := *s
-		switch s.Kind {
-		case ast.GraphKind:
-			c.Attrs = drop(s.Attrs, "bb")
-		default:
-			c.Attrs = drop(s.Attrs, "pos")
-		}
+		c.Attrs = drop(s.Attrs, staleKeys(s.Kind))
 		if len(c.Attrs) == 0 {
-			return ""
+			return nil
 		}
-		return c.String()
+		return &c
+	case *ast.Subgraph:
+		c := *s
+		c.Stmts = nil
+		for _, sub := range s.Stmts {
+			if k := stripStmt(sub); k != nil {
+				c.Stmts = append(c.Stmts, k)
+			}
+		}
+		return &c
 	}
-	return st.String()
+	return st
 }
 
 func TestExitStatusesAndMessages(t *testing.T) {
@@ -201,29 +220,44 @@ func TestExitStatusesAndMessages(t *testing.T) {
 		{"dashes in digraph", "digraph G { a -- b }", nil, exitBadInput, "<stdin>:1:15: "},
 		{"empty input", "", nil, exitBadInput, "<stdin>"},
 		{"not DOT", "hello, world\n", nil, exitBadInput, "<stdin>:1:"},
-		{"unknown flag", "", []string{"--no-such-flag"}, exitBadInput, "gridwood: unknown flag: --no-such-flag\nUsage: gridwood [flags] [FILE ...]\nFlags: -o/--output FILE"},
-		{"unknown flag lists every flag", "", []string{"--no-such-flag"}, exitBadInput, "--report FILE --version -h/--help\nRun 'gridwood --help'"},
-		{"flag without value", "", []string{"--unit"}, exitBadInput, "Usage: gridwood"},
+		{"unknown flag", "", []string{"--no-such-flag"}, exitBadInput, "gridwood: unknown flag --no-such-flag (see gridwood --help)\n"},
+		{"misspelt flag", "", []string{"--ouput", "x.dot"}, exitBadInput, "gridwood: unknown flag --ouput; did you mean --output? (see gridwood --help)\n"},
+		{"misspelt flag with a value", "", []string{"--explian=why.dot"}, exitBadInput, "unknown flag --explian; did you mean --explain?"},
+		{"long flag with one dash", "", []string{"-help"}, exitBadInput, "unknown flag -help; did you mean --help?"},
+		{"unknown letter", "", []string{"-qz"}, exitBadInput, "gridwood: unknown flag -z in -qz (see gridwood --help)\n"},
+		{"flag without value", "", []string{"--unit"}, exitBadInput, "gridwood: --unit needs a value (see gridwood --help)\n"},
+		{"value not a number", "", []string{"--effort", "lots"}, exitBadInput, "gridwood: --effort \"lots\": want a whole number (see gridwood --help)\n"},
 		{"bad unit", "graph{}", []string{"--unit", "-3"}, exitBadInput, "--unit"},
 		{"planar only", k5, []string{"--planar-only"}, exitNonPlanar, `graph "K5" is not planar`},
-		{"non-planar reported", k5, nil, exitOK, `graph "K5": 1 of 10 edges set aside`},
+		{"non-planar reported", k5, nil, exitOK, `graph "K5": 1 of 10 edges removed to make it planar (see --removed)` + "\n"},
+		{"strict graph counts a repeated pair once", "strict graph U {\n {h1 h2 h3} -- {w g p}\n {h1 h2 h3} -- {w g p}\n}\n", nil, exitOK, `graph "U": 1 of 9 edges removed`},
+		{"strict digraph counts each direction", "strict digraph U {\n {h1 h2 h3} -> {w g p}\n {w g p} -> {h1 h2 h3}\n}\n", nil, exitOK, `digraph "U": 2 of 18 edges removed`},
+		{"non-strict graph counts every copy", "graph U {\n {h1 h2 h3} -- {w g p}\n {h1 h2 h3} -- {w g p}\n}\n", nil, exitOK, `graph "U": 2 of 18 edges removed`},
+		{"planar only, strict", "strict graph U {\n {h1 h2 h3} -- {w g p}\n h1 -- w\n}\n", []string{"--planar-only"}, exitNonPlanar, `graph "U" is not planar: 1 of 9 edges would have to be removed`},
 		{"quiet", k5, []string{"-q"}, exitOK, ""},
 		{"missing file", "", []string{"/no/such/file.dot"}, exitBadInput, "no such file"},
-		{"check with a layout flag", "graph{}", []string{"--check", "--report", "x.json"}, exitBadInput, "gridwood: --check lays nothing out: --report does not go with it\n"},
-		{"outer with no names", "graph{}", []string{"--outer", " "}, exitBadInput, "gridwood: --outer: no node names given\n"},
+		{"check with a layout flag", "graph{}", []string{"--check", "--report", "x.json"}, exitBadInput, "gridwood: --check lays nothing out: --report does not go with it (see gridwood --help)\n"},
+		{"outer with no names", "graph{}", []string{"--outer", " "}, exitBadInput, "gridwood: --outer: no node names given (see gridwood --help)\n"},
 		{"output in a missing directory", "graph{}", []string{"-o", "/no/such/dir/x.dot"}, exitBadInput, "gridwood: /no/such/dir/x.dot: cannot write: no such file or directory\n"},
 		{"size not taken", "graph G { a [width=1000]; a -- b }", nil, exitOK, `<stdin>:1:11: node "a": width "1000" is not a size below 1000 and was taken as the default` + "\n"},
 		{"size not taken, quiet", "graph G { a [width=1000]; a -- b }", []string{"-q"}, exitOK, ""},
 		{"label box capped", "graph G { a [fontsize=900, label=\"" + strings.Repeat("x", 200) + "\"]; b [label=\"" + strings.Repeat("y", 9000) + "\"]; a -- b -- c }", nil, exitOK, `<stdin>:1:11: node "a": its label needs a box over 1000 inches a side; the box was taken as 1000 inches (and 1 more in graph "G")` + "\n"},
 		{"max expansion 0", "graph{}", []string{"--max-expansion", "0"}, exitBadInput, "--max-expansion 0: want a positive number"},
-		{"two outputs one file", "graph{}", []string{"-o", "x.dot", "--removed", "./x.dot"}, exitBadInput, "-o and --removed both name ./x.dot"},
+		{"two outputs one file", "graph{}", []string{"-o", "x.dot", "--removed", "./x.dot"}, exitBadInput, "gridwood: -o and --removed both name ./x.dot (see gridwood --help)\n"},
+		{"a number run into a letter", "graph { a -- 1e3 -- 2x }", nil, exitOK, `gridwood: <stdin>:1:14: "1e3" is read as two IDs, 1 and e3, as DOT reads numerals (no exponent, no suffix); quote it to make it one (and 1 more like it)` + "\n"},
+		{"a number run into a letter, quiet", "graph { a -- 1e3 }", []string{"-q"}, exitOK, ""},
+		{"nesting too deep", "graph {\n" + strings.Repeat("{", 1_000_000) + "a" + strings.Repeat("}", 1_000_000) + "\n}\n", nil, exitBadInput, "gridwood: <stdin>:2:1000000: braces nested more than 1000000 levels deep, the most gridwood reads\n"},
 		{"output is an input", "", []string{"--svg", "in.dot", "./in.dot"}, exitBadInput, "--svg in.dot is also an input file"},
 		{"chain too long", "graph{a" + strings.Repeat("--a", 1_000_001) + "}", nil, exitBadInput, "<stdin>:1:3000008: edge statement chains more than 1000000 edges"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			code, out, errs := runCmd(t, tc.stdin, tc.args...)
 			if code != tc.code {
-				t.Fatalf("exit %d, want %d; stderr: %s", code, tc.code, errs)
+				t.Fatalf("exit %d, want %d; stderr: %.300s", code, tc.code, errs)
+			}
+			// Every usage error is one line with a pointer to --help.
+			if strings.HasSuffix(errs, "(see gridwood --help)\n") && strings.Count(errs, "\n") != 1 {
+				t.Errorf("usage error on %d lines: %q", strings.Count(errs, "\n"), errs)
 			}
 			if tc.errHas != "" && !strings.Contains(errs, tc.errHas) {
 				t.Errorf("stderr %q lacks %q", errs, tc.errHas)
@@ -238,27 +272,47 @@ func TestExitStatusesAndMessages(t *testing.T) {
 	}
 }
 
-// TestHelpAndVersion checks that --help describes every flag with its
-// default and an example (issue: help explains every flag), that the
-// --outer example works on the shipped example it is drawn from, and that
-// --version prints a version from the build information.
+// TestHelpAndVersion checks --help: a first line that is a sentence, the
+// flags under their headings in order, each with its default when it
+// takes a value, the exit statuses, and examples that work: --outer on the
+// shipped example it is drawn from, --mark-removed as an attribute list.
+// --version prints a version or says plainly that there is none.
 func TestHelpAndVersion(t *testing.T) {
-	code, help, _ := runCmd(t, "", "--help") // help goes to standard output
-	if code != exitOK {
-		t.Fatalf("--help exit %d", code)
+	code, help, errs := runCmd(t, "", "--help") // help goes to standard output
+	if code != exitOK || errs != "" {
+		t.Fatalf("--help exit %d, stderr %q", code, errs)
 	}
-	for _, want := range []string{"Exit status", "default: 1000000", "default: schnyder"} {
-		if !strings.Contains(help, want) {
-			t.Errorf("help lacks %q", want)
+	for _, line := range strings.Split(help, "\n") {
+		if len(line) > 80 {
+			t.Errorf("help line over 80 columns: %q", line)
 		}
 	}
-	// One block per flag: its heading line, then indented lines.
+	first, _, _ := strings.Cut(help, "\n")
+	if !strings.HasPrefix(first, "gridwood ") || !strings.HasSuffix(first, ".") || len(first) > 80 {
+		t.Errorf("first line %q: want one sentence about gridwood, within 80 columns", first)
+	}
+	// Headings in order, each followed by its flags.
+	groups := []struct {
+		heading string
+		flags   []string
+	}{
+		{"Input and output:", []string{"output", "quiet", "max-expansion"}},
+		{"Drawing:", []string{"unit", "grid", "method", "outer"}},
+		{"Non-planar graphs:", []string{"removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort"}},
+		{"Checking and preview:", []string{"check", "svg", "report"}},
+		{"About gridwood:", []string{"version", "help"}},
+	}
 	blocks := map[string]string{}
-	var name string
+	group := map[string]string{}
+	var name, heading string
 	for _, line := range strings.Split(help, "\n") {
+		if strings.HasSuffix(line, ":") && !strings.HasPrefix(line, " ") {
+			heading, name = line, ""
+			continue
+		}
 		if m := helpFlagLine.FindStringSubmatch(line); m != nil {
 			name = m[1]
-			blocks[name] = ""
+			blocks[name], group[name] = "", heading
 			continue
 		}
 		if name != "" && strings.HasPrefix(line, "        ") {
@@ -267,18 +321,42 @@ func TestHelpAndVersion(t *testing.T) {
 			name = ""
 		}
 	}
-	flags := []string{"output", "unit", "grid", "quiet", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "max-expansion", "svg", "check", "method", "outer", "report", "version", "help"}
-	if len(blocks) != len(flags) {
-		t.Errorf("help describes %d flags, want %d: %v", len(blocks), len(flags), blocks)
-	}
-	for _, f := range flags {
-		b, ok := blocks[f]
-		if !ok {
-			t.Errorf("help lacks --%s", f)
-			continue
+	last := -1
+	total := 0
+	for _, g := range groups {
+		at := strings.Index(help, "\n"+g.heading+"\n")
+		if at < last {
+			t.Errorf("heading %q missing or out of order", g.heading)
 		}
-		if !strings.Contains(b, "default: ") || !strings.Contains(b, "example: ") {
-			t.Errorf("--%s: help gives no default or no example:\n%s", f, b)
+		last = at
+		for _, f := range g.flags {
+			total++
+			b, ok := blocks[f]
+			switch {
+			case !ok:
+				t.Errorf("help lacks --%s", f)
+			case group[f] != g.heading:
+				t.Errorf("--%s is under %q, want %q", f, group[f], g.heading)
+			case b == "":
+				t.Errorf("--%s has no description", f)
+			}
+		}
+	}
+	if len(blocks) != total {
+		t.Errorf("help describes %d flags, want %d: %v", len(blocks), total, blocks)
+	}
+	cfg, _ := parseFlags(nil)
+	cfg.flags.VisitAll(func(f *pflag.Flag) {
+		if _, ok := blocks[f.Name]; !ok {
+			t.Errorf("--%s is not in --help", f.Name)
+		}
+		if hasDefault := strings.Contains(blocks[f.Name], "default: "); hasDefault != (f.Value.Type() != "bool") {
+			t.Errorf("--%s: default shown %v; want it for flags that take a value", f.Name, hasDefault)
+		}
+	})
+	for _, want := range []string{"default: 1000000", "default: schnyder", "Exit status:", "  141  killed by SIGPIPE"} {
+		if !strings.Contains(help, want) {
+			t.Errorf("help lacks %q", want)
 		}
 	}
 	// The --outer example names nodes of examples/campus-fibre.dot.
@@ -289,9 +367,41 @@ func TestHelpAndVersion(t *testing.T) {
 	if code, _, errs := runCmd(t, "", "-q", strings.Fields(ex[1])[0], strings.Fields(ex[1])[1], "../../examples/campus-fibre.dot"); code != exitOK {
 		t.Errorf("help's %q on campus-fibre.dot: exit %d, %s", ex[1], code, errs)
 	}
+	mk := regexp.MustCompile(`example: --mark-removed '([^']*)'`).FindStringSubmatch(blocks["mark-removed"])
+	if mk == nil {
+		t.Fatalf("no --mark-removed example in %q", blocks["mark-removed"])
+	}
+	if _, err := dotio.ParseAttrList(mk[1]); err != nil {
+		t.Errorf("help's --mark-removed example %q: %v", mk[1], err)
+	}
 	code, version, _ := runCmd(t, "", "--version")
-	if code != exitOK || !strings.HasPrefix(version, "gridwood ") || strings.Contains(version, "(unknown)") {
+	if code != exitOK || !strings.HasPrefix(version, "gridwood ") || strings.Contains(version, "(devel)") || strings.Contains(version, "(unknown)") {
 		t.Errorf("--version: exit %d, %q", code, version)
+	}
+}
+
+// TestVersionOf checks the version line for each kind of build
+// information the go command records (runtime/debug.BuildInfo): a module
+// version, a pseudo-version (which holds the revision), "(devel)" with or
+// without VCS settings, and none at all.
+func TestVersionOf(t *testing.T) {
+	vcs := []debug.BuildSetting{{Key: "vcs", Value: "git"}, {Key: "vcs.revision", Value: "2a88836b98ff3251f33c1e66fc53f31c4bd16862"}, {Key: "vcs.time", Value: "2026-12-03T08:41:00Z"}}
+	for _, tc := range []struct {
+		name string
+		bi   *debug.BuildInfo
+		ok   bool
+		want string
+	}{
+		{"release", &debug.BuildInfo{Main: debug.Module{Version: "v1.4.0"}, Settings: vcs}, true, "v1.4.0"},
+		{"pseudo-version", &debug.BuildInfo{Main: debug.Module{Version: "v0.0.0-20261203084100-2a88836b98ff+dirty"}}, true, "v0.0.0-20261203084100-2a88836b98ff+dirty"},
+		{"source tree with VCS", &debug.BuildInfo{Main: debug.Module{Version: "(devel)"}, Settings: vcs}, true, "revision 2a88836b98ff (2026-12-03T08:41:00Z)"},
+		{"modified", &debug.BuildInfo{Main: debug.Module{Version: "(devel)"}, Settings: append(slices.Clone(vcs), debug.BuildSetting{Key: "vcs.modified", Value: "true"})}, true, "revision 2a88836b98ff (2026-12-03T08:41:00Z, modified)"},
+		{"source tree without VCS", &debug.BuildInfo{Main: debug.Module{Version: "(devel)"}}, true, "(no version: built from a source tree without VCS information)"},
+		{"no build information", nil, false, "(no version: built without module information)"},
+	} {
+		if got := versionOf(tc.bi, tc.ok); got != tc.want {
+			t.Errorf("%s: %q, want %q", tc.name, got, tc.want)
+		}
 	}
 }
 
@@ -586,6 +696,46 @@ func TestFailedRunWritesNoFile(t *testing.T) {
 	for f, p := range side {
 		if b, _ := os.ReadFile(p); string(b) == "old\n" || len(b) == 0 {
 			t.Errorf("--%s file not written by a good run: %q", f, b)
+		}
+	}
+}
+
+// TestEffortHint: when the removal is not proved the fewest and the graph
+// is small enough for more search to be cheap (hintMaxEdges edges as
+// written), standard error suggests --effort; not when it is proved, not
+// when the effort asked for is already that high, not for bigger graphs,
+// and not under -q. The random graphs are the determinism test's.
+func TestEffortHint(t *testing.T) {
+	hint := fmt.Sprintf("; not proved the fewest: --effort %d may remove fewer\n", hintEffort)
+	small := randomNonPlanarDOT(3, 50, 150)
+	rep := filepath.Join(t.TempDir(), "rep.json")
+	code, _, errs := runCmd(t, small, "--report", rep)
+	b, _ := os.ReadFile(rep)
+	if code != exitOK || !strings.Contains(string(b), `"removal_optimal": false`) {
+		t.Fatalf("G(50, 150): exit %d, %s; report %.300s", code, errs, b)
+	}
+	if !strings.HasSuffix(errs, hint) || strings.Count(errs, "\n") != 1 {
+		t.Errorf("G(50, 150): stderr %q, want one line ending %q", errs, hint)
+	}
+	for _, tc := range []struct {
+		name, in string
+		args     []string
+	}{
+		{"proved", k5Text, nil},
+		{"effort given", small, []string{"--effort", strconv.Itoa(hintEffort)}},
+		{"quiet", small, []string{"-q"}},
+		{"over the size rule", randomNonPlanarDOT(3, 400, hintMaxEdges+200), []string{"--report", rep}},
+	} {
+		os.Remove(rep)
+		code, _, errs := runCmd(t, tc.in, tc.args...)
+		if b, _ := os.ReadFile(rep); len(tc.args) == 2 && tc.args[0] == "--report" && !strings.Contains(string(b), `"removal_optimal": false`) {
+			t.Errorf("%s: the removal was proved the fewest; the case needs one that is not", tc.name)
+		}
+		if code != exitOK || strings.Contains(errs, "--effort") {
+			t.Errorf("%s: exit %d, stderr %q: want no hint", tc.name, code, errs)
+		}
+		if tc.name != "quiet" && !strings.Contains(errs, "edges removed to make it planar") {
+			t.Errorf("%s: stderr %q lacks the removal line", tc.name, errs)
 		}
 	}
 }
