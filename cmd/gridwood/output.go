@@ -213,8 +213,9 @@ func stdoutClosed(std *stdStreams) bool {
 	}
 	for _, line := range strings.Split(string(info), "\n") {
 		if v, ok := strings.CutPrefix(line, "flags:"); ok {
+			// Linux's access mode bits: O_ACCMODE 3, O_RDWR 2.
 			flags, err := strconv.ParseUint(strings.TrimSpace(v), 8, 64)
-			return err == nil && flags&uint64(syscall.O_ACCMODE) == uint64(syscall.O_RDWR)
+			return err == nil && flags&3 == 2
 		}
 	}
 	return false

@@ -10,6 +10,7 @@ import (
 	"strings"
 	"syscall"
 	"testing"
+	"time"
 
 	"github.com/gridwood/gridwood/dotio"
 )
@@ -405,5 +406,51 @@ func TestStdinIsAlsoInput(t *testing.T) {
 	}
 	if f, err := dotio.Read(mustRead(t, filepath.Join(dir, "y.dot")), dotio.ReadOptions{Name: "y.dot"}); err != nil || f.Graphs[0].Nodes[0].Name != "a" {
 		t.Errorf("y.dot does not hold x.dot laid out: %v", err)
+	}
+}
+
+// TestStoppedWhileCommitting: a run stopped by SIGTERM while it commits
+// its outputs removes its temporary files and ends by that signal,
+// leaving every output as it was. A named pipe as one output holds the
+// run in the commit (opening a pipe waits for a reader) after the
+// temporary files are written.
+func TestStoppedWhileCommitting(t *testing.T) {
+	dir := t.TempDir()
+	writeFiles(t, dir, "x.dot", "graph { a -- b }\n", "out.dot", "old\n")
+	pipe := filepath.Join(dir, "pipe")
+	if err := syscall.Mkfifo(pipe, 0o600); err != nil {
+		t.Skip("no named pipes here:", err)
+	}
+	cmd := exec.Command(os.Args[0], "-q", "--removed", pipe, "--svg", "s.svg", "-o", "out.dot", "x.dot")
+	cmd.Dir = dir
+	cmd.Env = append(os.Environ(), runMainEnv+"=1")
+	var errs bytes.Buffer
+	cmd.Stderr = &errs
+	if err := cmd.Start(); err != nil {
+		t.Fatal(err)
+	}
+	// Wait (up to 20 s, polling) for both temporary files.
+	for i := 0; len(leftovers(t, dir)) < 2; i++ {
+		if i == 2000 {
+			cmd.Process.Kill()
+			cmd.Wait()
+			t.Fatalf("no temporary files after 20 s: %v; stderr %q", leftovers(t, dir), errs.String())
+		}
+		time.Sleep(10 * time.Millisecond)
+	}
+	cmd.Process.Signal(syscall.SIGTERM)
+	cmd.Wait()
+	ws, ok := cmd.ProcessState.Sys().(syscall.WaitStatus)
+	if !ok || !ws.Signaled() || ws.Signal() != syscall.SIGTERM {
+		t.Errorf("%s, stderr %q; want death by SIGTERM", cmd.ProcessState, errs.String())
+	}
+	if tmp := leftovers(t, dir); len(tmp) > 0 {
+		t.Errorf("temporary files left: %v", tmp)
+	}
+	if b := mustRead(t, filepath.Join(dir, "out.dot")); string(b) != "old\n" {
+		t.Errorf("out.dot changed: %q", b)
+	}
+	if _, err := os.Stat(filepath.Join(dir, "s.svg")); !os.IsNotExist(err) {
+		t.Errorf("s.svg written by a stopped run: %v", err)
 	}
 }

@@ -81,11 +81,6 @@ type exitError struct {
 
 func (e *exitError) Error() string { return e.msg }
 
-// exitBrokenPipe is the status a shell reports for a process killed by
-// SIGPIPE (128 + 13), which is how a run ends whose standard output is a
-// pipe that its reader closed (see run).
-const exitBrokenPipe = 141
-
 func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	std := newStdStreams(stdin, stdout, stderr)
 	usage := func(err error) int {
