@@ -6,11 +6,12 @@ import (
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/augment"
 	"github.com/gridwood/gridwood/planarize"
 )
 
-// This file tests the internal augmentation: biconnect, then
-// triangulateFaces, must turn every component with n >= 3 vertices into a
+// This file tests the augmentation: Biconnect, then
+// TriangulateFaces, must turn every component with n >= 3 vertices into a
 // triangulation (a simple plane graph with 3n-6 edges, all faces
 // triangles) without disturbing the input's rotation system.
 
@@ -77,7 +78,7 @@ type augmentCheck struct {
 }
 
 func newAugmentCheck(name string, orig *planarize.Embedding) *augmentCheck {
-	label, members := componentsOf(orig.N(), embeddingEdges(orig))
+	label, members := graphgen.Components(orig.N(), embeddingEdges(orig))
 	return &augmentCheck{name: name, orig: orig, label: label, members: members}
 }
 
@@ -195,11 +196,11 @@ func (a *augmentCheck) checkTriangulated(t *testing.T, work *planarize.Embedding
 
 // augment runs biconnect and triangulateFaces on a copy of emb with all
 // checks, and returns the triangulated copy.
-func augment(t *testing.T, name string, emb *planarize.Embedding) *planarize.Embedding {
+func augmented(t *testing.T, name string, emb *planarize.Embedding) *planarize.Embedding {
 	t.Helper()
 	a := newAugmentCheck(name, emb)
 	work := emb.Clone()
-	biconnect(work, noSkip)
+	augment.Biconnect(work, noSkip)
 	if !a.checkCommon(t, "biconnect", work) {
 		return work
 	}
@@ -220,7 +221,7 @@ func augment(t *testing.T, name string, emb *planarize.Embedding) *planarize.Emb
 	}
 	before := work.M()
 	splits, sizes := 0, 0
-	triangulateFaces(work, noSkip, func(face []int32, tri int32) {
+	augment.TriangulateFaces(work, noSkip, func(face []int32, tri int32) {
 		size := len(face)
 		splits++
 		sizes += size - 3
@@ -247,9 +248,9 @@ func blockCount(emb *planarize.Embedding) int {
 
 // TestAugmentFamilies augments the embeddings of the named families.
 func TestAugmentFamilies(t *testing.T) {
-	for _, g := range familyGraphs() {
+	for _, g := range graphgen.Zoo() {
 		t.Run(g.Name, func(t *testing.T) {
-			augment(t, g.Name, mustEmbed(t, g))
+			augmented(t, g.Name, mustEmbed(t, g))
 		})
 	}
 }
@@ -264,9 +265,9 @@ func TestAugmentRandom(t *testing.T) {
 		g := graphgen.RandomPlanar(n, keep, uint64(3000+i))
 		name := fmt.Sprintf("%s-keep%.2f", g.Name, keep)
 		emb := mustEmbed(t, g)
-		augment(t, name, emb)
+		augmented(t, name, emb)
 		if i%10 == 0 {
-			augment(t, name+"-mirror", mirrored(t, emb))
+			augmented(t, name+"-mirror", mirrored(t, emb))
 		}
 		if t.Failed() {
 			return
@@ -274,7 +275,7 @@ func TestAugmentRandom(t *testing.T) {
 	}
 	for i := range 50 {
 		g := graphgen.RandomTree(3+i*20, uint64(4000+i))
-		augment(t, g.Name, mustEmbed(t, g))
+		augmented(t, g.Name, mustEmbed(t, g))
 	}
 }
 
@@ -288,8 +289,8 @@ func TestAugmentChordFaces(t *testing.T) {
 		k, i := c[0], c[1]
 		g := chordFace(k, i, 8)
 		emb := mustEmbed(t, g)
-		augment(t, g.Name, emb)
-		augment(t, g.Name+"-mirror", mirrored(t, emb))
+		augmented(t, g.Name, emb)
+		augmented(t, g.Name+"-mirror", mirrored(t, emb))
 		layoutEmbeddingAndCheck(t, g.Name, emb)
 	}
 }
@@ -339,7 +340,7 @@ func TestAugmentLarge(t *testing.T) {
 		graphgen.Star(100_000), graphgen.Path(100_000),
 		graphgen.NestedTrianglesPlain(33_334), graphgen.NestedTriangles(33_334),
 	} {
-		augment(t, g.Name, mustEmbed(t, g))
+		augmented(t, g.Name, mustEmbed(t, g))
 	}
 }
 
@@ -372,8 +373,8 @@ func BenchmarkAugment(b *testing.B) {
 				b.StopTimer()
 				work := emb.Clone()
 				b.StartTimer()
-				biconnect(work, noSkip)
-				triangulateFaces(work, noSkip, nil)
+				augment.Biconnect(work, noSkip)
+				augment.TriangulateFaces(work, noSkip, nil)
 				iters++
 				m = work.M()
 			}

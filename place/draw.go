@@ -20,6 +20,8 @@ var errNotPlanar = errors.New("place: internal error: kept subgraph is not plana
 type DrawOptions struct {
 	Layout   Options
 	Subgraph planarize.SubgraphOptions
+	// Readable keeps the kept graph's embedding for Result.Readable.
+	Readable bool
 	// Progress, if set, is called as each stage of Draw begins, and now
 	// and then during the planar subgraph, with the stage's name and
 	// roughly how far through Draw the run is (0 to 1).
@@ -52,11 +54,12 @@ type Result struct {
 	simple    [][2]int32
 	simpleOf  []int32
 	removedSP []int32
-	keptComp  []int32    // for Explain: each vertex's component in the kept graph
-	keptIn    [][]int32  // for Explain: the kept pairs of each component
-	local     *Drawing   // the drawing in Draw's own numbering
-	newID     []int32    // caller's vertex -> Draw's numbering
-	keptLocal [][2]int32 // kept pairs in Draw's numbering
+	keptComp  []int32              // for Explain: each vertex's component in the kept graph
+	keptIn    [][]int32            // for Explain: the kept pairs of each component
+	local     *Drawing             // the drawing in Draw's own numbering
+	newID     []int32              // caller's vertex -> Draw's numbering
+	keptLocal [][2]int32           // kept pairs in Draw's numbering
+	keptEmb   *planarize.Embedding // the kept graph's embedding (DrawOptions.Readable)
 }
 
 // Draw lays out the graph with n vertices and the given edges (ordered
@@ -164,6 +167,9 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	res.Times.Planarize = time.Since(start)
 	progress("placing", 0.7)
 	start = time.Now()
+	if opt.Readable {
+		res.keptEmb = emb.Clone()
+	}
 	d, err := layout(emb, lopt) // emb is ours to augment
 	res.Times.Layout = time.Since(start)
 	if err != nil {

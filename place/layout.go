@@ -5,6 +5,7 @@ import (
 	"math"
 	"slices"
 
+	"github.com/gridwood/gridwood/place/augment"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -221,7 +222,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		}
 	}
 	work.Reserve(extra)
-	biconnect(work, skip)
+	augment.Biconnect(work, skip)
 	// Each dart of a chosen face now lies on one piece; walk every piece
 	// once (marking its darts) and keep the longest.
 	onPiece := make(map[int32]bool)
@@ -269,7 +270,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			}
 		}
 	}
-	triangulateFaces(work, skip, func(face []int32, tri int32) {
+	augment.TriangulateFaces(work, skip, func(face []int32, tri int32) {
 		for _, d := range face {
 			if int(d) < len(wanted) && wanted[d] {
 				c := comp[work.Tail(tri)]

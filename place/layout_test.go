@@ -75,44 +75,6 @@ func describeProblem(d *Drawing, edges [][2]int32, p geomcheck.Problem) string {
 	}
 }
 
-// componentsOf labels the vertices of the graph by connected component,
-// numbering components by their smallest vertex, with its own union-find so
-// that it shares no code with the package under test.
-func componentsOf(n int, edges [][2]int32) (label []int, members [][]int32) {
-	parent := make([]int, n)
-	for v := range parent {
-		parent[v] = v
-	}
-	var find func(int) int
-	find = func(x int) int {
-		for parent[x] != x {
-			parent[x] = parent[parent[x]]
-			x = parent[x]
-		}
-		return x
-	}
-	for _, e := range edges {
-		a, b := find(int(e[0])), find(int(e[1]))
-		if a != b {
-			parent[max(a, b)] = min(a, b) // the root is the smallest vertex
-		}
-	}
-	label = make([]int, n)
-	id := make(map[int]int)
-	for v := range n {
-		r := find(v)
-		c, ok := id[r]
-		if !ok { // vertices are visited in increasing order
-			c = len(members)
-			id[r] = c
-			members = append(members, nil)
-		}
-		label[v] = c
-		members[c] = append(members[c], int32(v))
-	}
-	return label, members
-}
-
 // maxLexWork bounds vertices x edges for the quadratic check of Schnyder's
 // weak barycentric condition, so that the suite stays fast.
 const maxLexWork = 4_000_000
@@ -125,7 +87,7 @@ func checkDrawing(tb testing.TB, name string, n int, edges [][2]int32, d *Drawin
 		tb.Fatalf("%s: %d vertices, but len(X), len(Y), len(bary) = %d, %d, %d", name, n, len(d.X), len(d.Y), len(d.bary))
 	}
 	checkCrossingFree(tb, name, d, edges)
-	label, members := componentsOf(n, edges)
+	label, members := graphgen.Components(n, edges)
 	if len(d.Components) != len(members) {
 		tb.Errorf("%s: %d components reported, the graph has %d", name, len(d.Components), len(members))
 		return
@@ -307,7 +269,7 @@ func countFaces(emb *planarize.Embedding, label []int, comps int) []int {
 func checkEuler(tb testing.TB, name string, emb *planarize.Embedding) {
 	tb.Helper()
 	edges := embeddingEdges(emb)
-	label, members := componentsOf(emb.N(), edges)
+	label, members := graphgen.Components(emb.N(), edges)
 	faces := countFaces(emb, label, len(members))
 	ecount := make([]int, len(members))
 	for _, e := range edges {
@@ -384,70 +346,9 @@ func named(g graphgen.Graph, name string) graphgen.Graph {
 	return g
 }
 
-// familyGraphs lists the named families the layout and augmentation tests
-// run on.
-func familyGraphs() []graphgen.Graph {
-	var gs []graphgen.Graph
-	gs = append(gs,
-		graphgen.Graph{N: 0, Name: "empty"},
-		graphgen.Graph{N: 1, Name: "single-node"},
-		graphgen.Graph{N: 2, Name: "two-isolated"},
-		graphgen.Graph{N: 57, Name: "isolated-57"},
-		graphgen.Tetrahedron(), graphgen.Cube(), graphgen.Octahedron(),
-		graphgen.Dodecahedron(), graphgen.Icosahedron(),
-	)
-	for _, k := range []int{1, 2, 3, 4, 5, 10, 17, 31, 60} {
-		gs = append(gs, graphgen.Grid(k, k))
-	}
-	gs = append(gs, graphgen.Grid(1, 40), graphgen.Grid(2, 30), graphgen.Grid(7, 3))
-	for _, r := range []int{3, 4, 5, 10, 100, 500} {
-		gs = append(gs, graphgen.Wheel(r))
-	}
-	for _, l := range []int{0, 1, 2, 3, 4, 10, 1000} {
-		gs = append(gs, graphgen.Star(l))
-	}
-	for _, n := range []int{1, 2, 3, 4, 5, 100, 2000} {
-		gs = append(gs, graphgen.Path(n))
-	}
-	for _, n := range []int{3, 4, 5, 6, 100, 1000} {
-		gs = append(gs, graphgen.Cycle(n))
-	}
-	for i, n := range []int{3, 4, 5, 10, 50, 200, 1000, 3000} {
-		gs = append(gs, graphgen.RandomTree(n, uint64(100+i)))
-	}
-	for _, l := range []int{1, 2, 3, 4, 10, 50, 100, 300} {
-		gs = append(gs, graphgen.NestedTriangles(l), graphgen.NestedTrianglesPlain(l))
-	}
-	for _, rc := range [][2]int{{1, 1}, {1, 5}, {2, 2}, {2, 9}, {5, 7}, {20, 20}, {40, 25}} {
-		gs = append(gs, graphgen.TriangulatedGrid(rc[0], rc[1]))
-	}
-	gs = append(gs,
-		named(graphgen.Relabel(graphgen.Grid(12, 9), 5), "grid-12x9-relabelled"),
-		named(graphgen.Relabel(graphgen.NestedTrianglesPlain(40), 6), "nested-plain-40-relabelled"),
-		named(graphgen.Relabel(graphgen.Wheel(50), 7), "wheel-50-relabelled"),
-		named(graphgen.Relabel(graphgen.Star(200), 8), "star-200-relabelled"),
-		named(graphgen.Relabel(graphgen.TriangulatedGrid(9, 13), 9), "trigrid-9x13-relabelled"),
-	)
-	// Disjoint unions of everything small, with isolated vertices between.
-	var parts []graphgen.Graph
-	for _, g := range gs {
-		if g.N <= 400 {
-			parts = append(parts, g, graphgen.Graph{N: 2, Name: "pair-isolated"})
-		}
-	}
-	gs = append(gs, named(graphgen.DisjointUnion(parts...), "union-of-small-families"))
-	gs = append(gs, named(graphgen.Relabel(graphgen.DisjointUnion(parts...), 11), "union-of-small-families-relabelled"))
-	all := slices.Clone(gs)
-	gs = append(gs, named(graphgen.DisjointUnion(all...), "union-of-all-families"))
-	gs = append(gs, named(graphgen.DisjointUnion(
-		graphgen.Path(2), graphgen.Path(2), graphgen.Cycle(3), graphgen.Path(1), graphgen.Path(3),
-	), "union-tiny"))
-	return gs
-}
-
 // TestLayoutFamilies draws the named families and checks every drawing.
 func TestLayoutFamilies(t *testing.T) {
-	for _, g := range familyGraphs() {
+	for _, g := range graphgen.Zoo() {
 		t.Run(g.Name, func(t *testing.T) {
 			emb := mustEmbed(t, g)
 			checkEuler(t, g.Name, emb)
@@ -1027,7 +928,7 @@ func TestCheckersCatchDefects(t *testing.T) {
 	}
 	// The weak barycentric check alone catches two swapped triples.
 	d := clone()
-	label, members := componentsOf(g.N, edges)
+	label, members := graphgen.Components(g.N, edges)
 	d.bary[u], d.bary[v] = d.bary[v], d.bary[u]
 	if ok, _ := rejects(t, func(tb testing.TB) { checkWeakBarycentric(tb, "swapped", label, members, edges, d) }); !ok {
 		t.Errorf("swapping two barycentric triples passes the weak barycentric check")
@@ -1049,7 +950,7 @@ func TestComponentsMatchUnionFind(t *testing.T) {
 			t.Errorf("%s: interval path taken = %v, want %v", name, got, wantInterval)
 		}
 		comp, members := components(emb)
-		label, want := componentsOf(n, simple)
+		label, want := graphgen.Components(n, simple)
 		if len(members) != len(want) {
 			t.Fatalf("%s: %d components, want %d", name, len(members), len(want))
 		}

@@ -57,6 +57,9 @@ type Placed struct {
 	// Trees counts the components of three or more vertices that are
 	// trees, drawn in layers (see layeredTree) rather than on the grid.
 	Trees int
+	// Readable counts the components drawn by the readable stage
+	// (Result.Readable).
+	Readable int
 	// Relaxed counts the components whose drawing was then relaxed,
 	// nodes moved one at a time to where they have more room (see relax),
 	// which needed less area; they are counted here only.
@@ -128,59 +131,17 @@ func tooBig(half int64) bool { return half > maxBoxHalf }
 // Components are then packed in rows, one base unit apart.
 func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 	n := len(r.X)
-	if len(b.HalfW) != n || len(b.HalfH) != n {
-		return nil, errBoxes
+	hw, hh, gap, unit, err := r.localBoxes(b)
+	if err != nil {
+		return nil, err
 	}
-	if b.Gap > maxBoxHalf || slices.ContainsFunc(b.HalfW, tooBig) || slices.ContainsFunc(b.HalfH, tooBig) {
-		return nil, errBoxSize
+	if opt.Unit > 0 {
+		unit = opt.Unit
 	}
 	d := r.local
-	// Boxes in the local numbering.
-	hw, hh := make([]int64, n), make([]int64, n)
-	for v, w := range r.newID {
-		hw[w], hh[w] = max(0, b.HalfW[v]), max(0, b.HalfH[v])
-	}
-	gap := max(0, b.Gap)
-	unit := opt.Unit
-	if unit <= 0 {
-		for v := range n {
-			unit = max(unit, 2*max(hw[v], hh[v]))
-		}
-		unit = max(1, unit+gap)
-	}
 	out := &Placed{X: make([]int64, n), Y: make([]int64, n), Unit: unit}
 	members := d.members
-	compOf := make([]int32, n)
-	for c, vs := range members {
-		for _, v := range vs {
-			compOf[v] = int32(c)
-		}
-	}
-	// The kept edges grouped by component, in their order, by a counting
-	// sort into one array: growing a slice per component copies a million
-	// edges over and over.
-	edgesOf := make([][][2]int32, len(members))
-	if len(members) == 1 {
-		edgesOf[0] = r.keptLocal
-	} else {
-		end := make([]int, len(members)+1)
-		for _, e := range r.keptLocal {
-			end[compOf[e[0]]+1]++
-		}
-		for c := range members {
-			end[c+1] += end[c]
-		}
-		grouped := make([][2]int32, len(r.keptLocal))
-		fill := append([]int(nil), end[:len(members)]...)
-		for _, e := range r.keptLocal {
-			c := compOf[e[0]]
-			grouped[fill[c]] = e
-			fill[c]++
-		}
-		for c := range members {
-			edgesOf[c] = grouped[end[c]:end[c+1]:end[c+1]]
-		}
-	}
+	edgesOf := r.edgesByComponent()
 	w := &scratch{
 		px: make([]int64, n), py: make([]int64, n),
 		tx: make([]int64, n), ty: make([]int64, n),
@@ -209,17 +170,7 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 		if opt.Unit <= 0 {
 			r.spaceComponent(c, vs, edgesOf[c], unit, hw, hh, gap, opt.GridOnly, w, out)
 		}
-		// The component's box, node boxes included, moved to the origin.
-		minX, minY, maxX, maxY := int64(math.MaxInt64), int64(math.MaxInt64), int64(math.MinInt64), int64(math.MinInt64)
-		for _, v := range vs {
-			minX, minY = min(minX, px[v]-hw[v]), min(minY, py[v]-hh[v])
-			maxX, maxY = max(maxX, px[v]+hw[v]), max(maxY, py[v]+hh[v])
-		}
-		for _, v := range vs {
-			px[v] -= minX
-			py[v] -= minY
-		}
-		boxes[c] = Component{Vertices: len(vs), W: maxX - minX, H: maxY - minY}
+		boxes[c] = shiftToOrigin(vs, px, py, hw, hh)
 	}
 	packSpaced(boxes, unit)
 	for c, vs := range members {
@@ -235,6 +186,79 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 		out.X[v], out.Y[v] = px[w], py[w]
 	}
 	return out, nil
+}
+
+// localBoxes checks the boxes and returns them in Draw's numbering, with
+// the gap and the base unit: the largest box side plus the gap, so that
+// boxes on distinct grid points never overlap.
+func (r *Result) localBoxes(b Boxes) (hw, hh []int64, gap, unit int64, err error) {
+	n := len(r.X)
+	if len(b.HalfW) != n || len(b.HalfH) != n {
+		return nil, nil, 0, 0, errBoxes
+	}
+	if b.Gap > maxBoxHalf || slices.ContainsFunc(b.HalfW, tooBig) || slices.ContainsFunc(b.HalfH, tooBig) {
+		return nil, nil, 0, 0, errBoxSize
+	}
+	hw, hh = make([]int64, n), make([]int64, n)
+	for v, w := range r.newID {
+		hw[w], hh[w] = max(0, b.HalfW[v]), max(0, b.HalfH[v])
+	}
+	gap = max(0, b.Gap)
+	for v := range n {
+		unit = max(unit, 2*max(hw[v], hh[v]))
+	}
+	return hw, hh, gap, max(1, unit+gap), nil
+}
+
+// edgesByComponent returns the kept edges grouped by component, in their
+// order, by a counting sort into one array: growing a slice per component
+// copies a million edges over and over.
+func (r *Result) edgesByComponent() [][][2]int32 {
+	members := r.local.members
+	edgesOf := make([][][2]int32, len(members))
+	if len(members) == 1 {
+		edgesOf[0] = r.keptLocal
+		return edgesOf
+	}
+	compOf := make([]int32, len(r.X))
+	for c, vs := range members {
+		for _, v := range vs {
+			compOf[v] = int32(c)
+		}
+	}
+	end := make([]int, len(members)+1)
+	for _, e := range r.keptLocal {
+		end[compOf[e[0]]+1]++
+	}
+	for c := range members {
+		end[c+1] += end[c]
+	}
+	grouped := make([][2]int32, len(r.keptLocal))
+	fill := append([]int(nil), end[:len(members)]...)
+	for _, e := range r.keptLocal {
+		c := compOf[e[0]]
+		grouped[fill[c]] = e
+		fill[c]++
+	}
+	for c := range members {
+		edgesOf[c] = grouped[end[c]:end[c+1]:end[c+1]]
+	}
+	return edgesOf
+}
+
+// shiftToOrigin moves the component's points so that its box, node boxes
+// included, has its lower left corner at the origin, and returns that box.
+func shiftToOrigin(vs []int32, px, py, hw, hh []int64) Component {
+	minX, minY, maxX, maxY := int64(math.MaxInt64), int64(math.MaxInt64), int64(math.MinInt64), int64(math.MinInt64)
+	for _, v := range vs {
+		minX, minY = min(minX, px[v]-hw[v]), min(minY, py[v]-hh[v])
+		maxX, maxY = max(maxX, px[v]+hw[v]), max(maxY, py[v]+hh[v])
+	}
+	for _, v := range vs {
+		px[v] -= minX
+		py[v] -= minY
+	}
+	return Component{Vertices: len(vs), W: maxX - minX, H: maxY - minY}
 }
 
 // scratch is the working space of Space, of one entry per vertex of the

@@ -2,6 +2,7 @@ package place
 
 import (
 	"fmt"
+	"github.com/gridwood/gridwood/place/augment"
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/order"
@@ -32,8 +33,8 @@ func BenchmarkStage(b *testing.B) {
 				stagebench.PerEdge(b, m, func() {
 					work := emb.Clone()
 					work.Reserve(3*g.N - work.M())
-					biconnect(work, noSkip)
-					triangulateFaces(work, noSkip, nil)
+					augment.Biconnect(work, noSkip)
+					augment.TriangulateFaces(work, noSkip, nil)
 				})
 			})
 			b.Run(fmt.Sprintf("place/%s", g.Name), func(b *testing.B) {

@@ -285,3 +285,62 @@ func (e *Embedding) Restrict(vs []int32) (*Embedding, []int32) {
 	}
 	return out, oldDart
 }
+
+// FromRotation builds the embedding of the graph with n vertices and the
+// given edges in which the edges at each vertex v follow each other
+// counter-clockwise in the order around[v] lists them (edge indices; each
+// edge at v exactly once). It returns false if around does not list every
+// edge at each of its ends exactly once. The result need not be plane
+// (see IsPlane).
+func FromRotation(n int, edges [][2]int32, around [][]int32) (*Embedding, bool) {
+	if len(around) != n {
+		return nil, false
+	}
+	e := NewEmbedding(n)
+	e.edges = append([][2]int32(nil), edges...)
+	e.next = make([]int32, 2*len(edges))
+	e.prev = make([]int32, 2*len(edges))
+	placed := make([]bool, 2*len(edges))
+	for v, list := range around {
+		for i, id := range list {
+			if id < 0 || int(id) >= len(edges) {
+				return nil, false
+			}
+			d := dartAt(edges, id, int32(v))
+			if d < 0 || placed[d] {
+				return nil, false
+			}
+			placed[d] = true
+			nd := dartAt(edges, list[(i+1)%len(list)], int32(v))
+			if nd < 0 {
+				return nil, false
+			}
+			e.next[d] = nd
+			e.prev[nd] = d
+		}
+		if len(list) > 0 {
+			e.first[v] = dartAt(edges, list[0], int32(v))
+		}
+		e.deg[v] = int32(len(list))
+	}
+	for _, p := range placed {
+		if !p {
+			return nil, false
+		}
+	}
+	return e, true
+}
+
+// dartAt returns the dart of edge id leaving v, or -1 if v is not an end.
+func dartAt(edges [][2]int32, id, v int32) int32 {
+	switch v {
+	case edges[id][0]:
+		if edges[id][1] == v {
+			return -1 // a loop has no single dart at v
+		}
+		return 2 * id
+	case edges[id][1]:
+		return 2*id + 1
+	}
+	return -1
+}

@@ -1,17 +1,11 @@
-package place
+package augment
 
 import (
 	"github.com/gridwood/gridwood/internal/disjoint"
 	"github.com/gridwood/gridwood/planarize"
 )
 
-// augmentation records what triangulate added, so the dummy edges can be
-// told apart and the outer face chosen among the faces of the input.
-type augmentation struct {
-	firstDummy int // edges with index >= firstDummy were added
-}
-
-// biconnect adds edges to emb until every connected component with at least
+// Biconnect adds edges to emb until every connected component with at least
 // three vertices is biconnected. Around every vertex v it looks at each pair
 // of consecutive neighbours u, w; when the edges vu and vw lie in different
 // blocks it adds uw inside the face between them. Blocks are tracked with a
@@ -19,7 +13,7 @@ type augmentation struct {
 // and since u, w in different blocks are never adjacent, no parallel edge
 // can arise (the classical argument for this augmentation; common practice,
 // see e.g. Kant and Bodlaender 1997 for refined variants).
-func biconnect(emb *planarize.Embedding, skip func(int32) bool) {
+func Biconnect(emb *planarize.Embedding, skip func(int32) bool) {
 	n := emb.N()
 	block := blocks(emb, skip)
 	uf := disjoint.New(len(block))
@@ -114,7 +108,7 @@ func blocks(emb *planarize.Embedding, skip func(int32) bool) []int32 {
 	return block
 }
 
-// triangulateFaces adds edges inside every face of length four or more of a
+// TriangulateFaces adds edges inside every face of length four or more of a
 // biconnected embedding until all faces are triangles, never creating a
 // parallel edge. For a face v0 ... v(k-1) it takes as v0 a vertex of least
 // degree (so that the work of marking its neighbours sums to O(m) over all
@@ -128,7 +122,7 @@ func blocks(emb *planarize.Embedding, skip func(int32) bool) []int32 {
 // the face and one dart of a triangle made from it, so the caller can
 // pick an outer face inside a chosen face of the input. The face's darts
 // are passed as they were before the split.
-func triangulateFaces(emb *planarize.Embedding, skip func(int32) bool, onSplit func(face []int32, tri int32)) {
+func TriangulateFaces(emb *planarize.Embedding, skip func(int32) bool, onSplit func(face []int32, tri int32)) {
 	n := emb.N()
 	seen := make([]bool, 2*emb.M())
 	for d := range seen {

@@ -1,0 +1,362 @@
+package stress
+
+import (
+	"errors"
+	"math"
+	"slices"
+)
+
+// Options tune NewModel. The zero value is the default.
+type Options struct {
+	// FullLimit is the largest graph that keeps every pair (default 1500);
+	// larger ones use the sparse model.
+	FullLimit int
+	// Pivots is the number of pivots of the sparse model and of the
+	// pivot-MDS start (default 100, at most the number of vertices).
+	Pivots int
+}
+
+const (
+	defaultFullLimit = 1500
+	defaultPivots    = 100
+)
+
+// Model is the stress model of one connected graph: its adjacency with
+// edge lengths, and either all pairwise distances or the sparse model's
+// pivots.
+type Model struct {
+	n      int
+	start  []int32 // adjacency in compressed rows
+	adj    []int32
+	length []float64 // per adjacency entry
+
+	full []float32 // n x n distances (full model), nil otherwise
+
+	// The sparse model: pivot p's distance to every vertex, pivDist[p*n+v],
+	// and the weight it carries for v, pivWeight[p*n+v] (0 where v is p or
+	// a neighbour of p, whose term is exact).
+	pivots    []int32
+	pivDist   []float32
+	pivWeight []float32
+	pivOf     []int32 // index in pivots of each vertex that is one, else -1
+}
+
+// ErrDisconnected is returned for a graph that is not connected.
+var ErrDisconnected = errors.New("stress: the graph is not connected")
+
+var errInput = errors.New("stress: bad input")
+
+// NewModel builds the stress model of the connected graph with n vertices
+// and the given edges (no loops, no repeats), edge i of length
+// lengths[i] > 0 (nil: all 1).
+func NewModel(n int, edges [][2]int32, lengths []float64, opt Options) (*Model, error) {
+	if n <= 0 || (lengths != nil && len(lengths) != len(edges)) {
+		return nil, errInput
+	}
+	for i, e := range edges {
+		if e[0] < 0 || e[1] < 0 || int(e[0]) >= n || int(e[1]) >= n || e[0] == e[1] {
+			return nil, errInput
+		}
+		if lengths != nil && !(lengths[i] > 0 && lengths[i] < math.Inf(1)) {
+			return nil, errInput
+		}
+	}
+	if opt.FullLimit <= 0 {
+		opt.FullLimit = defaultFullLimit
+	}
+	if opt.Pivots <= 0 {
+		opt.Pivots = defaultPivots
+	}
+	m := &Model{n: n}
+	m.start = make([]int32, n+1)
+	for _, e := range edges {
+		m.start[e[0]+1]++
+		m.start[e[1]+1]++
+	}
+	for v := range n {
+		m.start[v+1] += m.start[v]
+	}
+	m.adj = make([]int32, 2*len(edges))
+	m.length = make([]float64, 2*len(edges))
+	fill := append([]int32(nil), m.start[:n]...)
+	for i, e := range edges {
+		l := 1.0
+		if lengths != nil {
+			l = lengths[i]
+		}
+		m.adj[fill[e[0]]], m.length[fill[e[0]]] = e[1], l
+		fill[e[0]]++
+		m.adj[fill[e[1]]], m.length[fill[e[1]]] = e[0], l
+		fill[e[1]]++
+	}
+	d := make([]float64, n)
+	sp := newPaths(m)
+	if sp.from(0, d); slices.Contains(d, math.Inf(1)) {
+		return nil, ErrDisconnected
+	}
+	if n <= opt.FullLimit {
+		m.full = make([]float32, n*n)
+		for s := range n {
+			sp.from(int32(s), d)
+			row := m.full[s*n : (s+1)*n]
+			for v, dv := range d {
+				row[v] = float32(dv)
+			}
+		}
+		return m, nil
+	}
+	m.sparse(min(opt.Pivots, n), sp)
+	return m, nil
+}
+
+// N returns the number of vertices.
+func (m *Model) N() int { return m.n }
+
+// Full reports whether the model keeps every pair.
+func (m *Model) Full() bool { return m.full != nil }
+
+// Distance returns the graph distance from a pivot or, in the full model,
+// any vertex u to v; ok is false when the model does not keep it.
+func (m *Model) Distance(u, v int32) (d float64, ok bool) {
+	if m.full != nil {
+		return float64(m.full[int(u)*m.n+int(v)]), true
+	}
+	if p := m.pivOf[u]; p >= 0 {
+		return float64(m.pivDist[int(p)*m.n+int(v)]), true
+	}
+	if p := m.pivOf[v]; p >= 0 {
+		return float64(m.pivDist[int(p)*m.n+int(u)]), true
+	}
+	return 0, false
+}
+
+// sparse sets up the sparse model with k pivots chosen by max-min
+// distance (each next pivot the vertex farthest from those chosen, ties to
+// the lowest index), the first the vertex farthest from vertex 0.
+func (m *Model) sparse(k int, sp *paths) {
+	n := m.n
+	m.pivots = make([]int32, 0, k)
+	m.pivDist = make([]float32, k*n)
+	m.pivOf = make([]int32, n)
+	for v := range m.pivOf {
+		m.pivOf[v] = -1
+	}
+	d := make([]float64, n)
+	nearest := make([]float64, n) // distance to the nearest pivot so far
+	region := make([]int32, n)    // index of that pivot
+	sp.from(0, d)
+	next := int32(argmax(d))
+	for v := range nearest {
+		nearest[v] = math.Inf(1)
+	}
+	for len(m.pivots) < k {
+		p := int32(len(m.pivots))
+		m.pivots = append(m.pivots, next)
+		m.pivOf[next] = p
+		sp.from(next, d)
+		row := m.pivDist[int(p)*n : int(p+1)*n]
+		for v, dv := range d {
+			row[v] = float32(dv)
+			if dv < nearest[v] {
+				nearest[v], region[v] = dv, p
+			}
+		}
+		next = int32(argmax(nearest))
+		if nearest[next] == 0 {
+			break // every vertex is a pivot
+		}
+	}
+	k = len(m.pivots)
+	m.pivDist = m.pivDist[:k*n]
+	// Pivot p stands, for vertex v, for the vertices of its region at
+	// most half of d(p, v) from p (Ortmann et al.'s weight).
+	members := make([][]float32, k)
+	for v := range n {
+		members[region[v]] = append(members[region[v]], float32(nearest[v]))
+	}
+	for _, ds := range members {
+		slices.Sort(ds)
+	}
+	m.pivWeight = make([]float32, k*n)
+	for p := range k {
+		row := m.pivDist[p*n : (p+1)*n]
+		w := m.pivWeight[p*n : (p+1)*n]
+		for v := range n {
+			dv := row[v]
+			if dv == 0 {
+				continue
+			}
+			count, _ := slices.BinarySearch(members[p], dv/2)
+			for count < len(members[p]) && members[p][count] <= dv/2 {
+				count++
+			}
+			w[v] = float32(float64(count) / float64(float64(dv)*float64(dv)))
+		}
+		// Neighbours' terms are exact edge terms already.
+		pv := m.pivots[p]
+		for i := m.start[pv]; i < m.start[pv+1]; i++ {
+			w[m.adj[i]] = 0
+		}
+	}
+}
+
+func argmax(d []float64) int {
+	best := 0
+	for v, dv := range d {
+		if dv > d[best] {
+			best = v
+		}
+	}
+	return best
+}
+
+// Target returns where the localized majorization moves v with every other
+// vertex held at (x, y): the weighted mean of each other vertex's position
+// pushed out along the line to v to its ideal distance (Gansner, Koren
+// and North 2004). ok is false when v has no term to go by (a lone vertex,
+// or every term's vertex at v's position).
+func (m *Model) Target(v int32, x, y []float64) (tx, ty float64, ok bool) {
+	tx, ty, _, ok = m.TargetWeight(v, x, y)
+	return tx, ty, ok
+}
+
+// TargetWeight is Target, also returning the sum w of the weights of v's
+// terms: the majorant of v's stress is w |q - target|^2 plus a constant
+// for v at q.
+func (m *Model) TargetWeight(v int32, x, y []float64) (tx, ty, w float64, ok bool) {
+	var sx, sy, sw float64
+	vx, vy := x[v], y[v]
+	term := func(j int32, d, w float64) {
+		dx, dy := vx-x[j], vy-y[j]
+		dist := math.Sqrt(float64(dx*dx) + float64(dy*dy))
+		if dist <= 0 {
+			return
+		}
+		f := d / dist
+		sx += float64(w * (x[j] + float64(f*dx)))
+		sy += float64(w * (y[j] + float64(f*dy)))
+		sw += w
+	}
+	if m.full != nil {
+		row := m.full[int(v)*m.n : int(v+1)*m.n]
+		for j, d := range row {
+			if int32(j) == v {
+				continue
+			}
+			dd := float64(d)
+			term(int32(j), dd, 1/float64(dd*dd))
+		}
+	} else {
+		for i := m.start[v]; i < m.start[v+1]; i++ {
+			l := m.length[i]
+			term(m.adj[i], l, 1/float64(l*l))
+		}
+		n := m.n
+		for p, pv := range m.pivots {
+			w := float64(m.pivWeight[p*n+int(v)])
+			if w == 0 || pv == v {
+				continue
+			}
+			term(pv, float64(m.pivDist[p*n+int(v)]), w)
+		}
+	}
+	if sw == 0 {
+		return vx, vy, 0, false
+	}
+	return sx / sw, sy / sw, sw, true
+}
+
+// Layout moves every vertex, in index order, to its Target, for the given
+// number of sweeps or until a sweep moves the vertices by less than tol
+// times the mean edge length on average; it returns the sweeps made.
+func (m *Model) Layout(x, y []float64, sweeps int, tol float64) int {
+	scale := m.meanLength()
+	for s := 0; s < sweeps; s++ {
+		moved := 0.0
+		for v := range int32(m.n) {
+			tx, ty, ok := m.Target(v, x, y)
+			if !ok {
+				continue
+			}
+			dx, dy := tx-x[v], ty-y[v]
+			moved += math.Sqrt(float64(dx*dx) + float64(dy*dy))
+			x[v], y[v] = tx, ty
+		}
+		if moved < tol*scale*float64(m.n) {
+			return s + 1
+		}
+	}
+	return sweeps
+}
+
+// meanLength is the mean edge length (1 without edges).
+func (m *Model) meanLength() float64 {
+	if len(m.length) == 0 {
+		return 1
+	}
+	sum := 0.0
+	for _, l := range m.length {
+		sum += l
+	}
+	return sum / float64(len(m.length))
+}
+
+// BestScale returns the factor s that minimizes the model's stress of the
+// drawing scaled by s about the origin, over the pairs the model keeps
+// (closed form: sum w d |x| / sum w |x|^2); 1 if undefined.
+func (m *Model) BestScale(x, y []float64) float64 {
+	var num, den float64
+	pair := func(u, v int32, d, w float64) {
+		dx, dy := x[u]-x[v], y[u]-y[v]
+		dist := math.Sqrt(float64(dx*dx) + float64(dy*dy))
+		num += float64(float64(w*d) * dist)
+		den += float64(float64(w*dist) * dist)
+	}
+	m.pairs(pair)
+	if den <= 0 || num <= 0 {
+		return 1
+	}
+	return num / den
+}
+
+// Stress returns the model's stress of the drawing over the pairs it
+// keeps (all pairs in the full model, edges and pivot terms otherwise).
+func (m *Model) Stress(x, y []float64) float64 {
+	var sum float64
+	m.pairs(func(u, v int32, d, w float64) {
+		dx, dy := x[u]-x[v], y[u]-y[v]
+		e := math.Sqrt(float64(dx*dx)+float64(dy*dy)) - d
+		sum += float64(float64(w*e) * e)
+	})
+	return sum
+}
+
+// pairs calls fn for every term of the model, each pair once.
+func (m *Model) pairs(fn func(u, v int32, d, w float64)) {
+	n := m.n
+	if m.full != nil {
+		for u := range n {
+			row := m.full[u*n : (u+1)*n]
+			for v := u + 1; v < n; v++ {
+				d := float64(row[v])
+				fn(int32(u), int32(v), d, 1/float64(d*d))
+			}
+		}
+		return
+	}
+	for u := range int32(n) {
+		for i := m.start[u]; i < m.start[u+1]; i++ {
+			if v := m.adj[i]; v > u {
+				l := m.length[i]
+				fn(u, v, l, 1/float64(l*l))
+			}
+		}
+	}
+	for p, pv := range m.pivots {
+		for v := range int32(n) {
+			if w := float64(m.pivWeight[p*n+int(v)]); w > 0 && v != pv {
+				fn(pv, v, float64(m.pivDist[p*n+int(v)]), w)
+			}
+		}
+	}
+}
