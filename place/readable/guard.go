@@ -24,6 +24,9 @@ type guard struct {
 	// minHeight is, per vertex, the distance from an edge (or another
 	// vertex) below which the barrier starts to cost.
 	minHeight []float64
+	// conflicts lists, with margins, the boxes and edges too near each
+	// vertex's box (see findConflicts), found anew every sweep.
+	conflicts [][]conflict
 }
 
 // Move rules: a vertex's least height is minHeightShare of its edges'
@@ -50,10 +53,16 @@ func (g *guard) run(sweeps int, tol float64) int {
 	unit := g.meanIdeal()
 	for s := 0; s < sweeps; s++ {
 		moved := 0.0
+		if g.margins {
+			g.findConflicts()
+		}
 		for v := range int32(n) {
 			tx, ty, w, ok := g.model.TargetWeight(v, g.x, g.y)
 			if !ok {
 				continue
+			}
+			if g.margins {
+				tx, ty = g.clearTarget(v, tx, ty, w)
 			}
 			moved += g.step(v, tx, ty, w)
 		}
@@ -190,6 +199,9 @@ func (g *guard) barrier(v int32, w, qx, qy float64) float64 {
 			need = max(need, g.boxDistance(v, a, ex/d, ey/d))
 		}
 		term(d, need)
+	}
+	if g.margins {
+		g.conflictBarrier(v, term, qx, qy)
 	}
 	return sum
 }

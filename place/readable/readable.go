@@ -1,8 +1,6 @@
 package readable
 
 import (
-	"fmt"
-	"os"
 	"errors"
 	"math"
 
@@ -174,14 +172,8 @@ func Draw(in Input, opt Options) (*Output, error) {
 	// Then the boxes: the same descent with the barrier keeping boxes, not
 	// points, off each other and off the edges.
 	best.margins = true
-	if debugDump {
-		fmt.Printf("edges %v\nhw %v\nhh %v\nbefore x %v\ny %v\n", in.Edges, hw, hh, best.x, best.y)
-	}
 	k := best.run(marginSweeps, 1e-4)
 	out.Sweeps += k
-	if debugDump {
-		fmt.Printf("after %d sweeps x %v\ny %v\n", k, best.x, best.y)
-	}
 	out.X, out.Y = best.x, best.y
 	out.Stress = model.Stress(best.x, best.y)
 	return out, nil
@@ -254,5 +246,3 @@ func minHeights(n int, edges [][2]int32, lengths []float64) []float64 {
 	}
 	return h
 }
-
-var debugDump = os.Getenv("GWDUMP") != ""
