@@ -617,7 +617,8 @@ func appendedLayout(out *ast.Graph, in *graphMeaning) (body []ast.Stmt, pos [][2
 }
 
 // nodeHalfSize returns half the box of a node in points from its width and
-// height in inches, DOT's defaults 0.75 and 0.5 (SOURCES.md) when unset;
+// height in inches, DOT's defaults 0.75 and 0.5 (SOURCES.md) when unset,
+// round shapes as wide as tall;
 // ok is false when a value is set but not a plain size gridwood honours
 // (README, Spacing: from 0 to below 1000; then nothing is checked for that
 // node).
@@ -635,6 +636,25 @@ func nodeHalfSize(a attrMap) (hw, hh float64, ok bool) {
 	}
 	w, ok1 := size("width", 0.75)
 	h, ok2 := size("height", 0.5)
+	// Round shapes (and square) are as wide as tall: width alone, height
+	// alone, or the larger of both; with neither, 0.5 inch (a point
+	// 0.05). README, Spacing.
+	switch strings.ToLower(strings.TrimSpace(a["shape"])) {
+	case "circle", "doublecircle", "square", "point":
+		_, wSet := a["width"]
+		_, hSet := a["height"]
+		switch {
+		case wSet && hSet:
+			w = max(w, h)
+		case hSet:
+			w = h
+		case !wSet && strings.EqualFold(strings.TrimSpace(a["shape"]), "point"):
+			w = 0.05
+		case !wSet:
+			w = 0.5
+		}
+		h = w
+	}
 	return w * 36, h * 36, ok1 && ok2
 }
 

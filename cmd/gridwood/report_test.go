@@ -359,45 +359,70 @@ type box struct{ hw, hh float64 }
 // width and height in inches (0.75 and 0.5), grown to fit the label unless
 // fixedsize=true, a label line being 0.6 em per character and 1.2 em per
 // line (fontsize, 14 points) plus 8 points across and 4 above and below;
-// circles as wide as tall. ok is false when a node has something the rule
-// does not cover simply (an escape or HTML in its label, another shape
-// README does not describe the size of).
+// a circle as wide as tall, from width alone, height alone or the larger
+// of both (0.5 inch if neither), grown to the least circle around the
+// label's box. ok is false when a node has something the rule does not
+// cover simply (an escape or HTML in its label, a margin or peripheries,
+// another shape than a box, plaintext or circle).
 func readmeBoxes(m *graphMeaning) ([]box, bool) {
-	num := func(a attrMap, key string, def float64) (float64, bool) {
+	num := func(a attrMap, key string, def float64) (float64, bool, bool) {
 		s, set := a[key]
 		if !set {
-			return def, true
+			return def, false, true
 		}
 		v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-		return v, err == nil && v > 0
+		return v, true, err == nil && v > 0
 	}
 	boxes := make([]box, len(m.Nodes))
 	for i, n := range m.Nodes {
-		w, ok1 := num(n.Attrs, "width", 0.75)
-		h, ok2 := num(n.Attrs, "height", 0.5)
-		font, ok3 := num(n.Attrs, "fontsize", 14)
+		w, wSet, ok1 := num(n.Attrs, "width", 0.75)
+		h, hSet, ok2 := num(n.Attrs, "height", 0.5)
+		font, _, ok3 := num(n.Attrs, "fontsize", 14)
 		if !ok1 || !ok2 || !ok3 {
 			return nil, false
 		}
-		w, h = w*72, h*72
-		shape := strings.ToLower(n.Attrs["shape"])
-		if shape == "point" || shape == "doublecircle" {
+		if _, set := n.Attrs["margin"]; set {
 			return nil, false
 		}
-		if !strings.EqualFold(n.Attrs["fixedsize"], "true") {
-			label, set := n.Attrs["label"]
-			if !set || label == `\N` {
-				label = n.Key
-			}
-			if strings.ContainsAny(label, "\\\x00\n") {
-				return nil, false
-			}
-			w = max(w, float64(utf8.RuneCountInString(label))*0.6*font+16)
-			h = max(h, 1.2*font+8)
+		if _, set := n.Attrs["peripheries"]; set {
+			return nil, false
 		}
-		if shape == "circle" {
-			w = max(w, h)
+		shape := strings.ToLower(n.Attrs["shape"])
+		circle := shape == "circle"
+		switch shape {
+		case "", "box", "rect", "rectangle", "plaintext", "none", "circle":
+		default:
+			return nil, false
+		}
+		if circle {
+			switch {
+			case wSet && hSet:
+				w = max(w, h)
+			case hSet:
+				w = h
+			case !wSet:
+				w = 0.5
+			}
 			h = w
+		}
+		w, h = w*72, h*72
+		fixed := strings.EqualFold(n.Attrs["fixedsize"], "true")
+		label, set := n.Attrs["label"]
+		if !set || label == `\N` {
+			label = n.Key
+		}
+		if strings.ContainsAny(label, "\\\x00\n") || strings.HasPrefix(label, "<") {
+			return nil, false
+		}
+		if !fixed && label != "" {
+			lw := float64(utf8.RuneCountInString(label))*0.6*font + 16
+			lh := 1.2*font + 8
+			if circle {
+				w = max(w, math.Hypot(lw, lh))
+				h = w
+			} else {
+				w, h = max(w, lw), max(h, lh)
+			}
 		}
 		boxes[i] = box{w / 2, h / 2}
 	}

@@ -16,6 +16,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/dotio/preview"
 	"github.com/gridwood/gridwood/place"
 	"github.com/gridwood/gridwood/planarize"
 )
@@ -124,7 +125,7 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 	fs.StringVar(&cfg.explainFile, "explain", "", "write to `FILE`, for each set-aside edge, a Kuratowski subgraph (a subdivision\nof K5 or K3,3 made of it and kept edges) proving it could not stay, as DOT\nexample: --explain why.dot")
 	fs.IntVar(&cfg.effort, "effort", 0, "extra search for fewer set-aside edges: `N` seeded restarts and a larger exact\nsearch on small blocks; the result for a given N is always the same\nexample: --effort 8")
 	fs.IntVar(&cfg.maxExpansion, "max-expansion", dotio.DefaultMaxExpansion, "refuse input whose edge statements with subgraph operands ({a b} -- {c d})\nexpand to more than `N` edges; negative means no limit\nexample: --max-expansion 20000000")
-	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE` (set-aside\nedges dashed and curved, underneath); open it in any browser\nexample: --svg preview.svg")
+	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE` (set-aside\nedges dashed and curved, underneath); open it in any browser; with --check, a\npicture of the drawing as the input gives it\nexample: --svg preview.svg")
 	fs.BoolVar(&cfg.check, "check", false, "do not lay out: check the pos of every node already in the input and report,\none per line on standard output (or -o FILE), crossing edges, nodes on edges\nthey do not end at, overlapping node boxes and edges through node boxes (boxes\nsized as the layout sizes them, grown to fit labels); exit status 1 if anything\nwas found; layout flags do not go with it\nexample: gridwood --check drawn.dot")
 	method := fs.String("method", "schnyder", "drawing `METHOD`: schnyder (every planar graph, (n-2) x (n-2) grid per component,\nthen spaced and smoothed for reading) or convex (every face a convex polygon,\non the (f-1) x (f-1) grid, for 3-connected components; the others fall back\nto schnyder and standard error names them)\nexample: --method convex")
 	outer := fs.String("outer", "", "`NAMES` of nodes that must lie on the outer boundary of the drawing, comma\nseparated (as the names are written, without quotes); applies to every graph\nthat has all of them. Default: a largest face of the graph is the outside\nexample: --outer Refectory,Gym,Chapel")
@@ -168,7 +169,9 @@ func parseFlags(args []string, out io.Writer) (*config, error) {
 	if cfg.check {
 		// --check lays nothing out: a layout flag with it would be
 		// silently ignored.
-		for _, name := range []string{"unit", "grid", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "svg", "method", "outer", "report"} {
+		// --svg is no layout flag: with --check it draws the input's own
+		// drawing.
+		for _, name := range []string{"unit", "grid", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "method", "outer", "report"} {
 			if fs.Changed(name) {
 				return nil, &usageError{"--check lays nothing out: --" + name + " does not go with it", short}
 			}
@@ -338,10 +341,10 @@ func versionString() string {
 // read and laid out, so a failure leaves no partial output.
 func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	if cfg.check {
-		return checkInputs(cfg, stdin, stdout)
+		return checkInputs(cfg, stdin, stdout, stderr)
 	}
 	var out, removedOut, explainOut, svgOut bytes.Buffer
-	var pictures []svgGraph
+	var pictures []preview.Graph
 	var reports []fileReport
 	prog := newProgress(stderr, cfg.quiet)
 	defer prog.stop()
@@ -395,7 +398,6 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		layouts := make([]dotio.Layout, len(f.Graphs))
 		removed := make([][]int, len(f.Graphs))
 		results := make([]*place.Result, len(f.Graphs))
-		nodeBoxesOf := make([]place.Boxes, len(f.Graphs))
 		totalEdges, edgesDone := 0, 0
 		for _, g := range f.Graphs {
 			totalEdges += len(g.Edges) + 1
@@ -407,7 +409,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			step := func(stage string, done float64) {
 				prog.set(drawing+stage, pct(ii, 0.4+0.5*(before+done*share)/float64(totalEdges)))
 			}
-			res, lay, boxes, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)), step)
+			res, lay, _, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)), step)
 			if err != nil {
 				return err
 			}
@@ -426,9 +428,6 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 			// would otherwise hold every graph's working state at once.
 			if cfg.explainFile != "" {
 				results[gi] = res
-			}
-			if cfg.svgFile != "" {
-				nodeBoxesOf[gi] = boxes
 			}
 			if len(cfg.outer) > 0 {
 				if missing := missingNames(g, cfg.outer); len(missing) == 0 {
@@ -475,7 +474,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		}
 		if cfg.svgFile != "" {
 			for gi, g := range f.Graphs {
-				pictures = append(pictures, svgGraph{g, layouts[gi], nodeBoxesOf[gi]})
+				pictures = append(pictures, preview.FromLayout(g, layouts[gi]))
 			}
 		}
 	}
@@ -500,7 +499,7 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 		files = append(files, pendingFile{path: cfg.reportFile, data: buf.Bytes()})
 	}
 	if cfg.svgFile != "" {
-		if err := writeSVG(&svgOut, pictures); err != nil {
+		if err := writeSVG(&svgOut, pictures, cfg.svgFile, cfg.quiet, stderr); err != nil {
 			return err
 		}
 		files = append(files, pendingFile{path: cfg.svgFile, data: svgOut.Bytes()})
@@ -526,10 +525,11 @@ func process(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 
 // checkInputs runs --check: every input's drawing is checked as given and
 // the problems are listed on stdout.
-func checkInputs(cfg *config, stdin io.Reader, stdout io.Writer) error {
+func checkInputs(cfg *config, stdin io.Reader, stdout, stderr io.Writer) error {
 	stdinUsed := false
 	problems := 0
 	var report bytes.Buffer
+	var pictures []preview.Graph
 	for _, in := range cfg.inputs {
 		src, name, err := readInput(in, stdin, &stdinUsed)
 		if err != nil {
@@ -544,13 +544,28 @@ func checkInputs(cfg *config, stdin io.Reader, stdout io.Writer) error {
 			return err
 		}
 		problems += k
+		if cfg.svgFile != "" {
+			pictures = appendInputPictures(pictures, f, cfg.quiet, stderr)
+		}
 	}
-	if cfg.output != "" {
-		if err := writeFilesAtomic([]pendingFile{{path: cfg.output, data: report.Bytes()}}); err != nil {
+	var files []pendingFile
+	if cfg.svgFile != "" {
+		var svg bytes.Buffer
+		if err := writeSVG(&svg, pictures, cfg.svgFile, cfg.quiet, stderr); err != nil {
 			return err
 		}
-	} else if _, err := stdout.Write(report.Bytes()); err != nil {
+		files = append(files, pendingFile{path: cfg.svgFile, data: svg.Bytes()})
+	}
+	if cfg.output != "" {
+		files = append(files, pendingFile{path: cfg.output, data: report.Bytes()})
+	}
+	if err := writeFilesAtomic(files); err != nil {
 		return err
+	}
+	if cfg.output == "" {
+		if _, err := stdout.Write(report.Bytes()); err != nil {
+			return err
+		}
 	}
 	if problems > 0 {
 		word := "problems"
