@@ -180,4 +180,3 @@ func atof(t *testing.T, s string) float64 {
 	}
 	return v
 }
-

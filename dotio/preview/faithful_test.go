@@ -277,8 +277,10 @@ func TestDrawsWhatTheDOTSays(t *testing.T) {
 				a [fontname=Courier, shape=egg, color=navyblue]; b [fontname=Times, style=diagonals]
 				a -> b [arrowhead=banana, samehead=x]
 				subgraph cluster_x { label=Zone; c }
+				t [label=<<TABLE><TR><TD BGCOLOR="nocolour"><IMG SRC="x.png"/></TD></TR></TABLE>>]
 			}`, func(t *testing.T, root *xmlNode, doc string, res Result) {
 			for _, want := range []string{
+				`colour "nocolour" (1 label)`, "HTML IMG (1 label)",
 				"graph attribute fontname", "node attribute fontname", `shape "egg" (drawn as our own box) (1 node)`,
 				`colour "navyblue" (1 node)`, `node style "diagonals" (1 node)`, `arrowhead "banana" (drawn as normal) (1 edge)`,
 				"subgraph attributes (cluster frames are not drawn yet): label",

@@ -23,6 +23,49 @@ func (n *pnode) inside(q pt) bool {
 	return math.Abs(dx) <= n.sw && math.Abs(dy) <= n.sh
 }
 
+// boundary is the distance from the node's centre to its outermost
+// outline in the direction of the unit vector (ux, uy): where inside
+// stops holding along that ray.
+func (n *pnode) boundary(ux, uy float64) float64 {
+	if n.sw <= 0 || n.sh <= 0 {
+		return 0
+	}
+	switch {
+	case n.kind == nodesize.Ellipse && !n.own:
+		return 1 / math.Hypot(ux/n.sw, uy/n.sh)
+	case n.kind == nodesize.Polygon && !n.own:
+		// The nearest crossing of the ray with the scaled outline.
+		poly := n.size.Shape.Poly
+		best := math.Inf(1)
+		for i := range poly {
+			p, q := poly[i], poly[(i+1)%len(poly)]
+			ax, ay := p[0]*2*n.sw, p[1]*2*n.sh
+			ex, ey := q[0]*2*n.sw-ax, q[1]*2*n.sh-ay
+			den := ux*ey - uy*ex
+			if den == 0 {
+				continue
+			}
+			t := (ax*ey - ay*ex) / den // along the ray
+			s := (ax*uy - ay*ux) / den // along the side
+			if t >= 0 && s >= 0 && s <= 1 {
+				best = min(best, t)
+			}
+		}
+		if math.IsInf(best, 1) {
+			return 0
+		}
+		return best
+	}
+	d := math.Inf(1)
+	if ux != 0 {
+		d = n.sw / math.Abs(ux)
+	}
+	if uy != 0 {
+		d = min(d, n.sh/math.Abs(uy))
+	}
+	return d
+}
+
 // inPolygon is the even-odd test of (x, y) against a polygon.
 func inPolygon(poly [][2]float64, x, y float64) bool {
 	in := false
@@ -91,8 +134,19 @@ func (p *panel) placeLink(l *plink) {
 	for _, q := range c.samples(routeSamples) {
 		p.extend(q[0], q[1])
 	}
-	t0 := c.firstOutside(a.inside, false)
-	t1 := c.firstOutside(b.inside, true)
+	var t0, t1 float64
+	if c.kind == straight {
+		// Straight from centre to centre: where the ray leaves each
+		// outline, exactly.
+		dx, dy := b.x-a.x, b.y-a.y
+		if L := math.Hypot(dx, dy); L > 0 {
+			t0 = min(a.boundary(dx/L, dy/L)/L, 1)
+			t1 = 1 - min(b.boundary(-dx/L, -dy/L)/L, 1)
+		}
+	} else {
+		t0 = c.firstOutside(a.inside, false)
+		t1 = c.firstOutside(b.inside, true)
+	}
 	if t0 >= t1 {
 		// The outlines overlap along the whole line: nothing shows.
 		t0, t1 = 0.5, 0.5
@@ -214,9 +268,7 @@ func (p *panel) graphLabel(g *dotio.Graph, graphName string, nd *notDrawn) {
 	}
 	if hasLabel {
 		p.label = labelOf(label, font, nodesize.Escapes{G: graphName})
-		for _, note := range p.label.Notes {
-			nd.add(note, "label")
-		}
+		labelNotes(p.label, nd)
 		if p.label.Empty() {
 			p.label = nil
 		}

@@ -437,18 +437,58 @@ func newNode(sizer *nodesize.Sizer, nt *dotio.AttrTable, v int, n dotio.Node, x,
 		pn.text = hexPaint(nodeText)
 	}
 	pn.text = colorOf(fontText, fontSet, pn.text, nd, "node")
-	if sz.Label != nil {
-		for _, note := range sz.Label.Notes {
-			nd.add(note, "label")
-		}
-	}
+	labelNotes(sz.Label, nd)
 	if a, ok := nt.Get(v, "xlabel"); ok {
 		fsText, fsSet := attrText(nt, v, "fontsize")
 		font := nodesize.FontSize(fsText, fsSet)
 		pn.xlabel = labelOf(a, font, nodesize.Escapes{N: pn.name, HasN: true, G: graphName})
+		labelNotes(pn.xlabel, nd)
 		pn.xcolor = colorOf(fontText, fontSet, hexPaint(inkColor), nd, "node")
 	}
 	return pn
+}
+
+// labelNotes notes what a label holds that is not drawn: what nodesize
+// could not lay out, and HTML colours that are not known.
+func labelNotes(l *nodesize.Label, nd *notDrawn) {
+	if l == nil {
+		return
+	}
+	for _, note := range l.Notes {
+		nd.add(note, "label")
+	}
+	color := func(c string) {
+		if c == "" {
+			return
+		}
+		if _, note, ok := parseColor(c); !ok || note != "" {
+			nd.add(note, "label")
+		}
+	}
+	lines := func(ls []nodesize.Line) {
+		for _, ln := range ls {
+			for _, r := range ln.Runs {
+				color(r.Color)
+			}
+		}
+	}
+	lines(l.Lines)
+	tables := []*nodesize.Table{l.Table}
+	for len(tables) > 0 {
+		t := tables[len(tables)-1]
+		tables = tables[:len(tables)-1]
+		if t == nil {
+			continue
+		}
+		color(t.Color)
+		color(t.BGColor)
+		for _, c := range t.Cells {
+			color(c.Color)
+			color(c.BGColor)
+			lines(c.Lines)
+			tables = append(tables, c.Table)
+		}
+	}
 }
 
 // labelOf lays out an extra label (xlabel, headlabel, taillabel, a graph
@@ -494,6 +534,7 @@ func newFrame(f Frame, graphName string, nd *notDrawn) pframe {
 		fsText, _, fsSet := get("fontsize")
 		font := nodesize.FontSize(fsText, fsSet)
 		fr.label = labelOf(a, font, nodesize.Escapes{G: f.Name})
+		labelNotes(fr.label, nd)
 		// Inside the frame: at its top by default (labelloc t for
 		// clusters, from memory), centred unless labeljust says l or r.
 		loc, _, _ := get("labelloc")
@@ -541,25 +582,27 @@ func newLinks(g *dotio.Graph, sizer *nodesize.Sizer, removed []bool, graphName s
 		}
 		return b.String()
 	}
-	var links []plink
-	var firstLook string
+	groups := 0
+	for j, i := range order {
+		if j == 0 || cmpKey(keyOf(order[j-1]), keyOf(i)) != 0 {
+			groups++
+		}
+	}
+	links := make([]plink, 0, groups)
 	for j, i := range order {
 		k := keyOf(i)
 		e := g.Edges[i]
 		if j == 0 || cmpKey(keyOf(order[j-1]), k) != 0 {
 			links = append(links, newLink(g, et, i, k.u, k.v, k.removed, nd))
-			firstLook = look(i)
 		}
 		l := &links[len(links)-1]
 		l.count++
-		if l.count > 1 && look(i) != firstLook {
+		if l.count > 1 && !l.differ && look(i) != look(l.first) {
 			l.differ = true
 		}
 		// Labels of every copy, each distinct one once.
 		if lab := sizer.EdgeLabel(i); !lab.Empty() {
-			for _, note := range lab.Notes {
-				nd.add(note, "label")
-			}
+			labelNotes(lab, nd)
 			if !slices.ContainsFunc(l.labels, func(x *nodesize.Label) bool { return sameText(x, lab) }) {
 				l.labels = append(l.labels, lab)
 			}
@@ -638,6 +681,10 @@ func sameText(a, b *nodesize.Label) bool {
 	return true
 }
 
+// normalArrow is the arrowhead DOT draws when none is named; shared, never
+// changed.
+var normalArrow = []arrowPart{{shape: "normal"}}
+
 // newLink starts a group from its first copy, edge i.
 func newLink(g *dotio.Graph, et *dotio.AttrTable, i int, u, v int32, removed bool, nd *notDrawn) plink {
 	l := plink{u: u, v: v, removed: removed, first: i, loop: u == v}
@@ -687,12 +734,12 @@ func newLink(g *dotio.Graph, et *dotio.AttrTable, i int, u, v int32, removed boo
 	arrow := func(key string) []arrowPart {
 		text, ok := attrText(et, i, key)
 		if !ok {
-			return []arrowPart{{shape: "normal"}}
+			return normalArrow
 		}
 		parts, ok := parseArrow(text)
 		if !ok {
 			nd.add(fmt.Sprintf("%s %q (drawn as normal)", key, text), "edge")
-			return []arrowPart{{shape: "normal"}}
+			return normalArrow
 		}
 		return parts
 	}

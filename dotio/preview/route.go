@@ -22,11 +22,12 @@ import (
 // curve; a polyline's corners) misses every other node's box. Boxes are
 // taken at three strengths in turn, the next only when no route clears
 // the one before: the box and its label where the label spills out of a
-// fixed size, grown by routeClearance; the box grown; the box itself. Of
-// the clear routes the first that runs along kept edges (within keptNear)
-// for at most a tenth of its samples wins, else the clear one that runs
-// along them least, a polyline counted a tenth worse than a curve; if
-// none is clear, the one through the fewest boxes, and it is counted
+// fixed size, grown by routeClearance; the box grown; the box itself. At
+// each strength the curves come first, the polylines only when no curve
+// is clear. Of the clear routes the first that runs along kept edges
+// (within keptNear) for at most a tenth of its samples wins, else the
+// clear one that runs along them least; if none is clear even of the
+// bare boxes, the one through the fewest, and it is counted
 // (Result.Unrouted). The work is bounded in box and segment tests
 // (routeBudget); past it, edges get the first curve unchecked, and count
 // as unrouted.
@@ -51,18 +52,38 @@ type obstacle struct {
 	node int32
 }
 
-// grid is a uniform bucket grid over boxes and kept segments.
+// grid is a uniform bucket grid over boxes and kept segments, each
+// bucket list stored contiguously (offsets per cell, then the entries).
 type grid struct {
 	x0, y0, cell float64
 	nx, ny       int
-	boxes        map[[2]int][]int32 // obstacle indices
-	segs         map[[2]int][]int32 // kept segment indices
+	boxStart     []int32 // per cell and one more: where its boxes begin in boxes
+	boxes        []int32 // obstacle indices
+	segStart     []int32
+	segs         []int32 // kept segment indices
 }
 
 func (g *grid) cellOf(x, y float64) (int, int) {
 	i := int(math.Floor((x - g.x0) / g.cell))
 	j := int(math.Floor((y - g.y0) / g.cell))
 	return min(max(i, 0), g.nx-1), min(max(j, 0), g.ny-1)
+}
+
+// bucket fills a contiguous bucket list from a function that calls add
+// with (cell, item) for every entry, called twice: to count, then to fill.
+func bucket(cells int, each func(add func(cell int, item int32))) (start, items []int32) {
+	start = make([]int32, cells+1)
+	each(func(c int, _ int32) { start[c+1]++ })
+	for c := range cells {
+		start[c+1] += start[c]
+	}
+	items = make([]int32, start[cells])
+	fill := slices.Clone(start[:cells])
+	each(func(c int, it int32) {
+		items[fill[c]] = it
+		fill[c]++
+	})
+	return start, items
 }
 
 // router routes the set-aside edges of a panel.
@@ -105,40 +126,48 @@ func newRouter(p *panel) *router {
 	if len(r.obs) == 0 {
 		return r
 	}
-	// Cells about two median boxes wide, at most 1024 a side.
+	// Cells about two median boxes wide, and no more cells than about
+	// four per node.
 	slices.Sort(sides)
-	cell := max(2*sides[len(sides)/2], 16, (maxX-minX)/1024, (maxY-minY)/1024)
-	r.g = grid{x0: minX, y0: minY, cell: cell, boxes: map[[2]int][]int32{}, segs: map[[2]int][]int32{}}
+	area := (maxX - minX) * (maxY - minY)
+	cell := max(2*sides[len(sides)/2], 16, math.Sqrt(area/float64(4*len(r.obs)+64)))
+	r.g = grid{x0: minX, y0: minY, cell: cell}
 	r.g.nx = int((maxX-minX)/cell) + 1
 	r.g.ny = int((maxY-minY)/cell) + 1
-	for k, o := range r.obs {
-		i0, j0 := r.g.cellOf(o.r[0][0], o.r[0][1])
-		i1, j1 := r.g.cellOf(o.r[0][2], o.r[0][3])
-		for i := i0; i <= i1; i++ {
-			for j := j0; j <= j1; j++ {
-				r.g.boxes[[2]int{i, j}] = append(r.g.boxes[[2]int{i, j}], int32(k))
+	cells := r.g.nx * r.g.ny
+	r.g.boxStart, r.g.boxes = bucket(cells, func(add func(int, int32)) {
+		for k, o := range r.obs {
+			i0, j0 := r.g.cellOf(o.r[0][0], o.r[0][1])
+			i1, j1 := r.g.cellOf(o.r[0][2], o.r[0][3])
+			for i := i0; i <= i1; i++ {
+				for j := j0; j <= j1; j++ {
+					add(i*r.g.ny+j, int32(k))
+				}
 			}
 		}
-	}
-	for k, s := range r.segs {
-		// Every cell within reach of the segment: stepped along it at
-		// half a cell, with the neighbours of each.
-		n := int(math.Hypot(s[1][0]-s[0][0], s[1][1]-s[0][1])/(cell/2)) + 1
-		seen := map[[2]int]bool{}
-		for t := 0; t <= n; t++ {
-			f := float64(t) / float64(n)
-			ci, cj := r.g.cellOf(s[0][0]+f*(s[1][0]-s[0][0]), s[0][1]+f*(s[1][1]-s[0][1]))
-			for di := -1; di <= 1; di++ {
-				for dj := -1; dj <= 1; dj++ {
-					c := [2]int{ci + di, cj + dj}
-					if !seen[c] {
-						seen[c] = true
-						r.g.segs[c] = append(r.g.segs[c], int32(k))
+	})
+	// Every cell within reach of a segment: stepped along it at half a
+	// cell, with the neighbours of each; a stamp per cell keeps each
+	// segment once in a cell.
+	stamp := make([]int32, cells)
+	r.g.segStart, r.g.segs = bucket(cells, func(add func(int, int32)) {
+		clear(stamp)
+		for k, s := range r.segs {
+			n := int(math.Hypot(s[1][0]-s[0][0], s[1][1]-s[0][1])/(cell/2)) + 1
+			for t := 0; t <= n; t++ {
+				f := float64(t) / float64(n)
+				ci, cj := r.g.cellOf(s[0][0]+f*(s[1][0]-s[0][0]), s[0][1]+f*(s[1][1]-s[0][1]))
+				for i := max(ci-1, 0); i <= min(ci+1, r.g.nx-1); i++ {
+					for j := max(cj-1, 0); j <= min(cj+1, r.g.ny-1); j++ {
+						if c := i*r.g.ny + j; stamp[c] != int32(k)+1 {
+							stamp[c] = int32(k) + 1
+							add(c, int32(k))
+						}
 					}
 				}
 			}
 		}
-	}
+	})
 	r.mark = make([]uint32, len(r.obs))
 	r.smark = make([]uint32, len(r.segs))
 	return r
@@ -156,7 +185,8 @@ func (r *router) hits(a, b pt, u, v int32, tier int) int {
 	n := 0
 	for i := i0; i <= i1; i++ {
 		for j := j0; j <= j1; j++ {
-			for _, k := range r.g.boxes[[2]int{i, j}] {
+			c := i*r.g.ny + j
+			for _, k := range r.g.boxes[r.g.boxStart[c]:r.g.boxStart[c+1]] {
 				if r.mark[k] == r.query {
 					continue
 				}
@@ -182,7 +212,8 @@ func (r *router) nearKept(p pt) bool {
 	}
 	r.query++
 	ci, cj := r.g.cellOf(p[0], p[1])
-	for _, k := range r.g.segs[[2]int{ci, cj}] {
+	c := ci*r.g.ny + cj
+	for _, k := range r.g.segs[r.g.segStart[c]:r.g.segStart[c+1]] {
 		if r.smark[k] == r.query {
 			continue
 		}
@@ -231,23 +262,37 @@ func pointSegDist(p, a, b pt) float64 {
 	return math.Hypot(p[0]-(a[0]+u*dx), p[1]-(a[1]+u*dy))
 }
 
-// candidates lists the routes tried for a set-aside edge from a to b.
-func (r *router) candidates(a, b pt, u, v int32) []path {
+// quads lists the curves tried for a set-aside edge from a to b.
+func quads(a, b pt) []path {
 	dx, dy := b[0]-a[0], b[1]-a[1]
 	L := math.Hypot(dx, dy)
 	if L == 0 {
 		return []path{{straight, []pt{a, b}}}
 	}
-	ux, uy := dx/L, dy/L
-	nx, ny := -uy, ux // left of the way from a to b
+	nx, ny := -dy/L, dx/L // left of the way from a to b
 	mid := pt{(a[0] + b[0]) / 2, (a[1] + b[1]) / 2}
 	var out []path
 	for _, h := range bows {
 		out = append(out, path{quadratic, []pt{a, {mid[0] + nx*h*L, mid[1] + ny*h*L}, b}})
 	}
+	return out
+}
+
+// detours lists the polylines tried when no curve is clear: out sideways
+// past every box alongside the edge, parallel to it, and back. Finding
+// how far costs a look at every box, charged to the work bound.
+func (r *router) detours(a, b pt, u, v int32) []path {
+	dx, dy := b[0]-a[0], b[1]-a[1]
+	L := math.Hypot(dx, dy)
+	if L == 0 {
+		return nil
+	}
+	ux, uy := dx/L, dy/L
+	nx, ny := -uy, ux
 	// How far each side a parallel run must stay to pass every box that
 	// lies alongside the edge: the box's far extent along the normal.
 	need := [2]float64{0, 0} // left, right
+	r.tests += int64(len(r.obs))
 	for _, o := range r.obs {
 		if o.node == u || o.node == v {
 			continue
@@ -272,12 +317,10 @@ func (r *router) candidates(a, b pt, u, v int32) []path {
 		}
 	}
 	step := max(L/8, 8)
+	var out []path
 	for k := range 4 {
 		for s, sign := range [2]float64{1, -1} {
-			d := need[s] + routeClearance + float64(k)*step
-			if d < step {
-				d = step
-			}
+			d := max(need[s]+routeClearance+float64(k)*step, step)
 			ox, oy := sign*nx*d, sign*ny*d
 			out = append(out, path{polyline, []pt{a, {a[0] + ox, a[1] + oy}, {b[0] + ox, b[1] + oy}, b}})
 			slant := min(d, L/4)
@@ -293,33 +336,45 @@ func (r *router) candidates(a, b pt, u, v int32) []path {
 // is false when it runs through some other node's box (or was not
 // checked).
 func (r *router) route(a, b pt, u, v int32) (path, bool) {
-	cands := r.candidates(a, b, u, v)
-	var c path
+	curves := quads(a, b)
+	var polys []path
+	best, bestHits := curves[0], math.MaxInt
 	for tier := range 3 {
-		if r.tests > r.budget {
-			return cands[0], false
-		}
-		var clear bool
-		if c, clear = r.pick(cands, a, b, u, v, tier); clear {
-			return c, true
+		for _, cands := range [2]*[]path{&curves, &polys} {
+			if r.tests > r.budget {
+				return curves[0], false
+			}
+			if cands == &polys && polys == nil {
+				polys = r.detours(a, b, u, v)
+			}
+			c, hits := r.pick(*cands, u, v, tier)
+			if hits == 0 {
+				return c, true
+			}
+			if tier == 2 && hits < bestHits {
+				best, bestHits = c, hits
+			}
 		}
 	}
-	return c, false
+	return best, false
 }
 
-// pick chooses among the candidates at one tier of obstacles.
-func (r *router) pick(cands []path, a, b pt, u, v int32, tier int) (path, bool) {
-	best, bestScore, bestHits := -1, math.MaxInt, math.MaxInt
-	fallback := -1
+// pick chooses among candidates at one tier of obstacles: the first clear
+// one that runs along kept edges (within keptNear) for at most a tenth of
+// its samples, else the clear one that runs along them least; with none
+// clear, the one through the fewest boxes, and how many.
+func (r *router) pick(cands []path, u, v int32, tier int) (path, int) {
+	best, bestNear := -1, math.MaxInt
+	fallback, fewest := 0, math.MaxInt
 	for ci, c := range cands {
 		s := c.samples(routeSamples)
 		hits := 0
-		for k := 1; k < len(s) && hits < bestHits; k++ {
+		for k := 1; k < len(s) && hits < fewest; k++ {
 			hits += r.hits(s[k-1], s[k], u, v, tier)
 		}
 		if hits > 0 {
-			if hits < bestHits {
-				bestHits, fallback = hits, ci
+			if hits < fewest {
+				fallback, fewest = ci, hits
 			}
 			continue
 		}
@@ -335,28 +390,22 @@ func (r *router) pick(cands []path, a, b pt, u, v int32, tier int) (path, bool) 
 			}
 		}
 		if near*10 <= len(pts) {
-			return c, true
+			return c, 0
 		}
-		// A detour with corners counts as running along kept edges for
-		// a tenth of its length more than a curve.
-		score := near
-		if c.kind == polyline {
-			score += len(pts) / 10
-		}
-		if score < bestScore {
-			best, bestScore = ci, score
+		if near < bestNear {
+			best, bestNear = ci, near
 		}
 		if r.tests > r.budget {
 			break
 		}
 	}
 	if best >= 0 {
-		return cands[best], true
+		return cands[best], 0
 	}
-	if fallback >= 0 {
-		return cands[fallback], false
+	if len(cands) == 0 {
+		return path{}, math.MaxInt
 	}
-	return cands[0], false
+	return cands[fallback], fewest
 }
 
 // densify puts about n points along a polyline, its corners among them.
