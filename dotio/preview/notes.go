@@ -14,7 +14,10 @@ type notDrawn struct {
 	unit  map[string]string // what is counted ("node", "edge", ...)
 }
 
-func (n *notDrawn) add(what, unit string) {
+func (n *notDrawn) add(what, unit string) { n.addN(what, unit, 1) }
+
+// addN counts k more of what.
+func (n *notDrawn) addN(what, unit string, k int) {
 	if n.count == nil {
 		n.count = map[string]int{}
 		n.unit = map[string]string{}
@@ -23,7 +26,7 @@ func (n *notDrawn) add(what, unit string) {
 		n.order = append(n.order, what)
 		n.unit[what] = unit
 	}
-	n.count[what]++
+	n.count[what] += k
 }
 
 // list words each entry: "node attribute fontname (3 nodes)".

@@ -92,8 +92,7 @@ func Write(w io.Writer, graphs []Graph) (Result, error) {
 		height = 2 * pad
 	}
 	if unrouted > 0 {
-		nd.add("clear routes for set-aside edges (drawn through node boxes)", "edge")
-		nd.count["clear routes for set-aside edges (drawn through node boxes)"] = unrouted
+		nd.addN("clear routes for set-aside edges (drawn through node boxes)", "edge", unrouted)
 	}
 	bw := bufio.NewWriter(w)
 	W, H := num(math.Ceil(width)), num(math.Ceil(height))
@@ -652,8 +651,8 @@ func newLinks(g *dotio.Graph, sizer *nodesize.Sizer, removed []bool, graphName s
 			differ++
 		}
 	}
-	for range differ {
-		nd.add("the looks of repeated edges after the first (each pair is drawn once)", "pair")
+	if differ > 0 {
+		nd.addN("the looks of repeated edges after the first (each pair is drawn once)", "pair", differ)
 	}
 	return links
 }

@@ -1,7 +1,6 @@
 package preview
 
 import (
-	"fmt"
 	"math"
 	"strconv"
 	"strings"
@@ -243,5 +242,3 @@ func num(v float64) string {
 	}
 	return strconv.FormatFloat(v, 'f', -1, 64)
 }
-
-func quoted(s string) string { return fmt.Sprintf("%q", s) }
