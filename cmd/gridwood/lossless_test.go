@@ -636,6 +636,11 @@ func nodeHalfSize(a attrMap) (hw, hh float64, ok bool) {
 	}
 	w, ok1 := size("width", 0.75)
 	h, ok2 := size("height", 0.5)
+	if strings.EqualFold(strings.TrimSpace(a["shape"]), "plain") {
+		// plain has no size of its own.
+		w, _ = size("width", 0)
+		h, _ = size("height", 0)
+	}
 	// Round shapes (and square) are as wide as tall: width alone, height
 	// alone, or the larger of both; with neither, 0.5 inch (a point
 	// 0.05). README, Spacing.
