@@ -55,6 +55,15 @@
 //     of the statement that has the operand ("a -- {b -- c}" gives b-c,
 //     a-b, a-c).
 //
+// # Attributes
+//
+// Node.Attrs holds the few node attributes the layout reads. NodeTable
+// and EdgeTable give the effective value of any chosen keys for every
+// node or edge (defaults in scope, then the node's or edge's own
+// statements), at a cost of the keys asked for; GraphAttrs gives the
+// graph's own attributes and AttrKeys every key a graph's statements set.
+// Attr.Text unquotes a value for its reader, keeping DOT's label escapes.
+//
 // # Writing
 //
 // Write prints the statements of each graph in their original order and
@@ -67,6 +76,6 @@
 // lwidth and lheight of graphs and subgraphs), and each top-level graph
 // ends with one
 // `ID [pos="X,Y"]` statement per node and a `graph [bb="..."]` statement.
-// Edges the layout set aside can be dropped or marked (WriteOptions), and
+// Edges the layout removed can be dropped or marked (WriteOptions), and
 // WriteRemoved writes them to a graph of their own.
 package dotio

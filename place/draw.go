@@ -66,7 +66,7 @@ type Result struct {
 // pairs; direction, loops and repeats are ignored for the layout). Each
 // vertex gets an integer grid point; edges that are kept are straight
 // segments that neither cross nor touch except at common ends. If the graph
-// is not planar, an inclusion-minimal set of vertex pairs is set aside first
+// is not planar, an inclusion-minimal set of vertex pairs is removed first
 // (see planarize.MaximalPlanar) and reported in Result.Removed.
 func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	if err := checkInput(n, edges); err != nil {

@@ -21,14 +21,14 @@ func ExampleDraw() {
 	for v := range 5 {
 		fmt.Printf("vertex %d at (%d,%d)\n", v, res.X[v], res.Y[v])
 	}
-	fmt.Println("set aside:", len(res.Removed))
+	fmt.Println("removed:", len(res.Removed))
 	// Output:
 	// vertex 0 at (1,2)
 	// vertex 1 at (1,1)
 	// vertex 2 at (0,3)
 	// vertex 3 at (3,1)
 	// vertex 4 at (1,0)
-	// set aside: 0
+	// removed: 0
 }
 
 // DrawGraph takes any gonum graph; a non-planar one loses a few pairs.
@@ -45,10 +45,10 @@ func ExampleDrawGraph() {
 		panic(err)
 	}
 	fmt.Println("nodes:", d.IDs)
-	fmt.Println("set aside:", d.Removed)
+	fmt.Println("removed:", d.Removed)
 	// Output:
 	// nodes: [1 2 3 10 20 30]
-	// set aside: [[3 20]]
+	// removed: [[3 20]]
 }
 
 // The command's pipeline in a few lines: read DOT, draw each graph, write

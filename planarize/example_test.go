@@ -38,7 +38,7 @@ func ExampleMaximalPlanar() {
 		}
 	}
 	sub := planarize.MaximalPlanar(5, edges, planarize.SubgraphOptions{})
-	fmt.Println("links set aside:", len(sub.Removed), "optimal:", sub.Optimal)
+	fmt.Println("links removed:", len(sub.Removed), "optimal:", sub.Optimal)
 
 	// Explain the removed link: it closes a subdivision of K5 with the
 	// kept ones.
@@ -49,7 +49,7 @@ func ExampleMaximalPlanar() {
 	k, ok := planarize.FindKuratowski(5, edges, subset, sub.Removed, nil)
 	fmt.Println("explained:", ok, "by a", k.Kind, "with", len(k.Paths), "paths")
 	// Output:
-	// links set aside: 1 optimal: true
+	// links removed: 1 optimal: true
 	// explained: true by a K5 with 10 paths
 }
 

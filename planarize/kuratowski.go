@@ -78,7 +78,7 @@ func (t *tester) planar(sets ...[]int32) (planar, ok bool) {
 // graph formed by the edges with indices in subset (all edges when subset
 // is nil). The search stays in the block of the first edge of must and
 // prefers the edges of must: when every non-planar subgraph of subset
-// contains them (as for an edge set aside from a planar graph: subset is
+// contains them (as for an edge removed from a planar graph: subset is
 // the kept graph plus that edge) the result contains them all; otherwise
 // an edge of must may be left out.
 // It deletes edges in adaptively sized groups while the rest stays
@@ -260,7 +260,7 @@ const (
 // nearFirst returns the edges of rest inside the smallest tube of radius
 // 1, 2, 4, ... around a shortest path between the ends of edge e (in the
 // graph of rest) that, with fixed, is non-planar, or rest itself when no
-// smaller tube is (ok is false when the budget ran out). An edge set aside
+// smaller tube is (ok is false when the budget ran out). An edge removed
 // from a big mesh has a Kuratowski subgraph along such a path: in a
 // triangulation, the wheel around one end, three disjoint paths from the
 // other end to that wheel, and the edge make a subdivision of K5, and the

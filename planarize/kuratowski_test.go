@@ -533,7 +533,7 @@ func TestExplainWithinBudget(t *testing.T) {
 	edges, _ := Simplify(g.N, g.Edges)
 	res := MaximalPlanar(g.N, edges, SubgraphOptions{})
 	if len(res.Removed) == 0 {
-		t.Fatal("no edge set aside: the strays are planar with the mesh")
+		t.Fatal("no edge removed: the strays are planar with the mesh")
 	}
 	gone := make([]bool, len(edges))
 	for _, e := range res.Removed {

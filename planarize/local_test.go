@@ -93,7 +93,7 @@ func TestLocalProofWorkBound(t *testing.T) {
 
 // TestLocalProofSameResult checks that the local proofs change the time
 // of MaximalPlanar and nothing else: on a triangulation plus as many random
-// pairs (where the proofs reject most strays) the set aside is the same
+// pairs (where the proofs reject most strays) the removed is the same
 // with them and without, planar and inclusion-minimal (checkSubgraph).
 func TestLocalProofSameResult(t *testing.T) {
 	g := graphgen.PlanarPlusExtra(1500, 1500, 9)
@@ -104,12 +104,12 @@ func TestLocalProofSameResult(t *testing.T) {
 	without := MaximalPlanar(g.N, edges, SubgraphOptions{})
 	localProofSize = saved
 	if !slices.Equal(with.Removed, without.Removed) {
-		t.Fatalf("%d set aside with local proofs, %d without, or other edges", len(with.Removed), len(without.Removed))
+		t.Fatalf("%d removed with local proofs, %d without, or other edges", len(with.Removed), len(without.Removed))
 	}
 	if err := checkSubgraph(g.N, edges, with, -1); err != nil {
 		t.Fatal(err)
 	}
 	if len(with.Removed) < 1500 {
-		t.Fatalf("%d set aside: fewer than the Euler bound allows", len(with.Removed))
+		t.Fatalf("%d removed: fewer than the Euler bound allows", len(with.Removed))
 	}
 }

@@ -17,7 +17,7 @@ package planarize
 // ends, and the candidate (see planarWith).
 //
 // Where the kept graph is a spanning tree plus a few cycles, as in a sparse
-// random graph most of whose edges are set aside, that is a few times
+// random graph most of whose edges are removed, that is a few times
 // smaller than the kept graph (G(5000, 15000): 669 branch vertices and
 // 1,158 chains against 5,000 vertices and 5,479 kept edges at the end). On
 // a kept graph close to a triangulation it is no smaller, and build says

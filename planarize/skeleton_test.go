@@ -137,7 +137,7 @@ func TestSkeletonSparseGraphs(t *testing.T) {
 }
 
 // TestSkeletonKeepsResults checks that testing single candidates on the
-// skeleton changes no result of MaximalPlanar: the same edges set aside,
+// skeleton changes no result of MaximalPlanar: the same edges removed,
 // the same bounds, on graphs where it is used and where it is not.
 func TestSkeletonKeepsResults(t *testing.T) {
 	graphs := []graphgen.Graph{
@@ -163,7 +163,7 @@ func TestSkeletonKeepsResults(t *testing.T) {
 	for i, g := range graphs {
 		a, b := with[i], without[i]
 		if !slices.Equal(a.Removed, b.Removed) || a.LowerBound != b.LowerBound || a.Optimal != b.Optimal {
-			t.Errorf("%s: %d set aside with the skeleton, %d without", g.Name, len(a.Removed), len(b.Removed))
+			t.Errorf("%s: %d removed with the skeleton, %d without", g.Name, len(a.Removed), len(b.Removed))
 		}
 		if err := checkSubgraph(g.N, g.Edges, a, -1); err != nil {
 			t.Errorf("%s: %v", g.Name, err)

@@ -33,7 +33,7 @@ func BenchmarkStage(b *testing.B) {
 			stagebench.PerEdge(b, len(xe), func() { MaximalPlanar(x.N, xe, SubgraphOptions{}) })
 		})
 		if n <= 10_000 {
-			// Many edges to set aside in one block: a triangulation plus as
+			// Many edges to removed in one block: a triangulation plus as
 			// many random edges (local proofs reject most), and a random
 			// graph with 3n edges (they reject none, and single candidates
 			// go to the skeleton): each rejection costs a test, so these

@@ -305,7 +305,7 @@ func TestMaximalPlanarDense(t *testing.T) {
 // cluster on some of its vertices: the mesh alone already has Euler's 3n-6
 // edges, so at least as many edges as the cluster adds must go (the lower
 // bound), and keeping the mesh reaches it. Taking the cluster's edges first
-// (the dense-first order alone) set aside 503 edges here, the mesh-first
+// (the dense-first order alone) removed 503 edges here, the mesh-first
 // order 193 (measured when written); the check allows 5% over the bound.
 func TestMaximalPlanarMeshWithCluster(t *testing.T) {
 	g := graphgen.RandomMaximalPlanar(3000, 2)
@@ -325,7 +325,7 @@ func TestMaximalPlanarMeshWithCluster(t *testing.T) {
 		t.Errorf("lower bound %d, want Euler's %d", res.LowerBound, lower)
 	}
 	if len(res.Removed)*100 > lower*105 {
-		t.Errorf("%d edges set aside, more than 5%% over the lower bound %d", len(res.Removed), lower)
+		t.Errorf("%d edges removed, more than 5%% over the lower bound %d", len(res.Removed), lower)
 	}
 }
 
@@ -354,7 +354,7 @@ func TestMaximalPlanarMeshWithStrays(t *testing.T) {
 			t.Fatal(err)
 		}
 		if len(res.Removed) > 10 {
-			t.Errorf("%s + 10: %d edges set aside, where the 10 strays would do", g.Name, len(res.Removed))
+			t.Errorf("%s + 10: %d edges removed, where the 10 strays would do", g.Name, len(res.Removed))
 		}
 	}
 }
@@ -489,7 +489,7 @@ func TestMaximalPlanarProgress(t *testing.T) {
 	var seen []float64
 	watched := MaximalPlanar(g.N, edges, SubgraphOptions{Progress: func(done float64) { seen = append(seen, done) }})
 	if !slices.Equal(plain.Removed, watched.Removed) {
-		t.Fatalf("%d set aside with progress reports, %d without", len(watched.Removed), len(plain.Removed))
+		t.Fatalf("%d removed with progress reports, %d without", len(watched.Removed), len(plain.Removed))
 	}
 	if len(seen) < 3 {
 		t.Fatalf("%d progress reports: %v", len(seen), seen)

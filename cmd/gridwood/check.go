@@ -12,6 +12,7 @@ import (
 	"strings"
 
 	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/dotio/nodesize"
 	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/planarize"
 )
@@ -73,10 +74,11 @@ const maxPosDecimals = 6
 // Edges are straight segments between node centres: edge pos (spline
 // points) and ports are ignored, the graph is taken as undirected, loops
 // are ignored and repeated edges count once. Boxes are the node boxes the
-// layout itself keeps clear (README, Spacing; nodeBoxes): the width x
-// height of each node (DOT's 0.75 x 0.5 inches when unset), grown to fit
-// its label unless fixedsize is set, centred on its pos; so a drawing
-// gridwood made passes unless its report counts it crowded or unchecked.
+// layout itself keeps clear (README, Spacing; package nodesize): the width
+// x height of each node (DOT's 0.75 x 0.5 inches when unset), grown to fit
+// its label unless fixedsize is set, round shapes as wide as tall, centred
+// on its pos; so a drawing gridwood made passes unless its report counts
+// it crowded or unchecked.
 //
 // The judgement is exact (package geomcheck): the coordinates of a graph
 // are scaled by 10^d, d the largest number of decimals any of its pos
@@ -153,6 +155,7 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 	hw := make([]int64, len(g.Nodes))
 	hh := make([]int64, len(g.Nodes))
 	grown := nodeBoxes(g) // half sizes in whole points, labels included
+	sizer := nodesize.New(g)
 	unit := int64(1)
 	for range scale {
 		unit *= 10
@@ -169,26 +172,30 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 		}
 		for _, s := range [2]struct {
 			attr, name string
-			def        string
-			half       *int64
-		}{{n.Attrs.Width, "width", "0.75", &hw[v]}, {n.Attrs.Height, "height", "0.5", &hh[v]}} {
-			val := strings.TrimSpace(s.attr)
-			if val == "" {
-				val = s.def
+		}{{n.Attrs.Width, "width"}, {n.Attrs.Height, "height"}} {
+			if val := strings.TrimSpace(s.attr); val != "" {
+				if _, err := halfSize(val, scale); err != "" {
+					add(checkBadSize, n.Line, n.Col, 0, 0, "node %s: %s %s %s", strconv.Quote(n.Name), s.name, strconv.Quote(s.attr), err)
+				}
 			}
-			h, err := halfSize(val, scale)
-			if err != "" {
-				add(checkBadSize, n.Line, n.Col, 0, 0, "node %s: %s %s %s", strconv.Quote(n.Name), s.name, strconv.Quote(s.attr), err)
-			}
-			*s.half = h
 		}
-		// A label the box is grown to fit (whole points, which the
-		// exact check needs in the scaled unit; a box is at most
-		// maxBoxSide, so at 10^6 to the point it stays far inside
-		// geomcheck.MaxCoord).
-		if !strings.EqualFold(strings.TrimSpace(n.Attrs.FixedSize), "true") {
-			hw[v] = max(hw[v], grown.HalfW[v]*unit)
-			hh[v] = max(hh[v], grown.HalfH[v]*unit)
+		// The box the layout keeps clear (package nodesize): a side that
+		// is a width or height as written is taken exactly, one grown to
+		// fit a label (or derived by a shape's rule) in the whole points
+		// the layout rounds it up to, which the exact check needs in the
+		// scaled unit; a box is at most maxBoxSide, so at 10^6 to the
+		// point it stays far inside geomcheck.MaxCoord.
+		sz := sizer.Node(v)
+		hw[v], hh[v] = grown.HalfW[v]*unit, grown.HalfH[v]*unit
+		if sz.ExactW != "" {
+			if h, err := halfSize(sz.ExactW, scale); err == "" {
+				hw[v] = h
+			}
+		}
+		if sz.ExactH != "" {
+			if h, err := halfSize(sz.ExactH, scale); err == "" {
+				hh[v] = h
+			}
 		}
 	}
 	if len(probs) > 0 {

@@ -132,7 +132,7 @@ func splitLines(s string) []string {
 
 // Every example laid out by the command and checked: the kept edges form a
 // plane straight-line drawing, so there is no crossing, overlap, node on
-// an edge or shared point, and the spacing keeps node boxes apart. With the set-aside edges put back, a graph that
+// an edge or shared point, and the spacing keeps node boxes apart. With the removed edges put back, a graph that
 // had to lose edges must show a problem: a straight-line drawing with none
 // would be a plane drawing of a non-planar graph, which Kuratowski's
 // theorem (1930) rules out.
@@ -144,7 +144,7 @@ func TestCheckLaidOutExamples(t *testing.T) {
 	geometric := func(p checkProblem) bool {
 		return p.kind == checkCrossing || p.kind == checkOverlap || p.kind == checkOnEdge || p.kind == checkSamePoint
 	}
-	// With the set-aside edges put back, those may pass through boxes:
+	// With the removed edges put back, those may pass through boxes:
 	// the spacing clears the boxes of the kept edges only.
 	for _, path := range paths {
 		t.Run(filepath.Base(path), func(t *testing.T) {
@@ -197,7 +197,7 @@ func TestCheckLaidOutExamples(t *testing.T) {
 					case (drop || !setAside) && len(geo) > 0:
 						t.Errorf("drop=%v graph %d: kept edges drawn with problems: %v", drop, gi, geo)
 					case !drop && setAside && len(geo) == 0:
-						t.Errorf("graph %d: %d edges were set aside, yet with them the drawing has no problem", gi, len(rm.Graphs[gi].Edges))
+						t.Errorf("graph %d: %d edges were removed, yet with them the drawing has no problem", gi, len(rm.Graphs[gi].Edges))
 					}
 				}
 			}

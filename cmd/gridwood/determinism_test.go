@@ -121,7 +121,7 @@ func TestDeterministicAcrossProcesses(t *testing.T) {
 						t.Fatalf("side files: %v %v", err1, err2)
 					}
 					if fromFile {
-						// --explain says where each set-aside edge was
+						// --explain says where each removed edge was
 						// written, so it names its input.
 						e = bytes.ReplaceAll(e, []byte(path), []byte("<stdin>"))
 					}
@@ -142,7 +142,7 @@ func TestDeterministicAcrossProcesses(t *testing.T) {
 			if bytes.Contains(first.removed, []byte(" -- ")) || bytes.Contains(first.removed, []byte(" -> ")) {
 				nonPlanar++
 				if len(bytes.TrimSpace(first.explain)) == 0 {
-					t.Errorf("edges set aside but --explain is empty")
+					t.Errorf("edges removed but --explain is empty")
 				}
 			}
 		})
@@ -158,7 +158,7 @@ func TestDeterministicAcrossProcesses(t *testing.T) {
 // its nodes declared first, written with every edge one way, with each
 // single edge reversed in turn, with a seeded half of them reversed, and
 // as a digraph with arrows, gets the same positions every time; so does a
-// non-planar graph, whose set-aside edges must not depend on direction
+// non-planar graph, whose removed edges must not depend on direction
 // either.
 func TestDirectionDoesNotChangeLayout(t *testing.T) {
 	for _, g := range []graphgen.Graph{graphgen.RandomPlanar(20, 0.6, 1), graphgen.RandomPlanar(200, 0.6, 2), graphgen.RandomGnm(40, 160, 3)} {
@@ -243,7 +243,7 @@ func nodeLines(out string) string {
 // that runs gridwood over files it laid out before changes nothing. The
 // inputs are the lossless test's (repositoryDOT: every DOT file and
 // test-file literal in the repository), among them graphs that lose edges
-// (the set-aside edges are kept, so the layout sees the same graph) and
+// (the removed edges are kept, so the layout sees the same graph) and
 // pinned input positions.
 func TestOutputReadAgainIsTheSame(t *testing.T) {
 	texts := repositoryDOT(t) // the lossless test's inputs

@@ -11,12 +11,12 @@ import (
 )
 
 // TestExplainFile checks the --explain output from the outside: it parses
-// as DOT (gonum's parser), holds one subgraph per set-aside edge, and each
+// as DOT (gonum's parser), holds one subgraph per removed edge, and each
 // subgraph is a subdivision of the obstruction it names (Kuratowski 1930):
 // its chains are paths between the named branch vertices (5 for K5, 6 for
 // K3,3), every branch vertex ends 4 (K5) or 3 (K3,3) chains, chains share
 // no inner vertex, every chain edge is an edge of the input, and the
-// set-aside edge is one of them.
+// removed edge is one of them.
 func TestExplainFile(t *testing.T) {
 	in := "graph G {\n a -- b -- c -- d -- e -- a -- c -- e -- b -- d -- a\n}\n" +
 		"graph H {\n {x y z} -- {p q r}\n s -- t\n}\n"
@@ -111,17 +111,17 @@ func TestExplainFile(t *testing.T) {
 				}
 			}
 			if !foundRemoved {
-				t.Errorf("%s: the set-aside edge %v is on no chain", g.ID, removed)
+				t.Errorf("%s: the removed edge %v is on no chain", g.ID, removed)
 			}
 		}
 		if subs != 1 {
-			t.Errorf("%s: %d certificates, want 1 (one edge set aside)", g.ID, subs)
+			t.Errorf("%s: %d certificates, want 1 (one edge removed)", g.ID, subs)
 		}
 	}
 }
 
 // TestExplainNotComputed: when the work bounds run out, the --explain file
-// says so for each set-aside edge left without a certificate (README,
+// says so for each removed edge left without a certificate (README,
 // Non-planar graphs) instead of leaving it out: with no work at all every
 // entry is "not computed"; with plenty, none is; with a total bound that
 // covers the first certificate only, the first is computed and a later

@@ -25,7 +25,7 @@ var inputMessage = regexp.MustCompile(`^gridwood: <stdin>:([0-9]+):([0-9]+): [^\
 //   - 0: the output parses, every node has an integral pos, the drawing of
 //     the kept edges passes geomcheck and nothing is lost (filterCheck, see
 //     lossless_test.go), with --mark-removed and --drop-removed too when
-//     edges were set aside; under --planar-only nothing was set aside;
+//     edges were removed; under --planar-only nothing was removed;
 //   - 2: nothing on standard output, no --removed file, and one positioned
 //     line on standard error;
 //   - 3: as 2, and the input really loses edges without --planar-only.

@@ -631,7 +631,8 @@ func appendedLayout(out *ast.Graph, in *graphMeaning) (body []ast.Stmt, pos [][2
 }
 
 // nodeHalfSize returns half the box of a node in points from its width and
-// height in inches, DOT's defaults 0.75 and 0.5 (SOURCES.md) when unset;
+// height in inches, DOT's defaults 0.75 and 0.5 (SOURCES.md) when unset,
+// round shapes as wide as tall;
 // ok is false when a value is set but not a plain size gridwood honours
 // (README, Spacing: from 0 to below 1000; then nothing is checked for that
 // node).
@@ -649,6 +650,30 @@ func nodeHalfSize(a attrMap) (hw, hh float64, ok bool) {
 	}
 	w, ok1 := size("width", 0.75)
 	h, ok2 := size("height", 0.5)
+	if strings.EqualFold(strings.TrimSpace(a["shape"]), "plain") {
+		// plain has no size of its own.
+		w, _ = size("width", 0)
+		h, _ = size("height", 0)
+	}
+	// Round shapes (and square) are as wide as tall: width alone, height
+	// alone, or the larger of both; with neither, 0.5 inch (a point
+	// 0.05). README, Spacing.
+	switch strings.ToLower(strings.TrimSpace(a["shape"])) {
+	case "circle", "doublecircle", "square", "point":
+		_, wSet := a["width"]
+		_, hSet := a["height"]
+		switch {
+		case wSet && hSet:
+			w = max(w, h)
+		case hSet:
+			w = h
+		case !wSet && strings.EqualFold(strings.TrimSpace(a["shape"]), "point"):
+			w = 0.05
+		case !wSet:
+			w = 0.5
+		}
+		h = w
+	}
 	return w * 36, h * 36, ok1 && ok2
 }
 
@@ -804,7 +829,7 @@ func drawingProblems(m *graphMeaning, pos [][2]int64) ([]geomcheck.Problem, erro
 }
 
 // removedSet is what a --removed file says of one graph: the texts of the
-// set-aside edges with their effective attributes (pos left out), counted.
+// removed edges with their effective attributes (pos left out), counted.
 type removedSet struct {
 	count map[string]int
 	pairs map[[2]string]bool // unordered pairs of canonical node IDs
@@ -848,16 +873,16 @@ func checkRemovedSet(mi *graphMeaning, rg *ast.Graph, rs removedSet, p *problems
 		}
 		t := mi.edgeText(e, e.Attrs.without(staleEdgeKeys...))
 		if e.From == e.To {
-			p.add("graph %s: loop %s set aside", mi.ID, t)
+			p.add("graph %s: loop %s removed", mi.ID, t)
 		} else if rs.count[t] != inCount[t] {
-			p.add("graph %s: pair of %s set aside but this copy is not listed", mi.ID, t)
+			p.add("graph %s: pair of %s removed but this copy is not listed", mi.ID, t)
 		}
 	}
 }
 
 // compareSplit checks a --mark-removed (mark != nil) or --drop-removed
 // output graph: nodes, their order, attributes and subgraph membership as
-// in the input; the edges are the input's, the set-aside ones marked or
+// in the input; the edges are the input's, the removed ones marked or
 // gone. Edges are compared as multisets: splitting a statement may print
 // its edges in another order.
 func compareSplit(in, out *ast.Graph, rs removedSet, mark attrMap, p *problems) [][2]int64 {
@@ -919,7 +944,7 @@ func compareSplit(in, out *ast.Graph, rs removedSet, mark attrMap, p *problems) 
 }
 
 // filterCheck runs the command on src in default mode and, if asked or
-// when edges were set aside, with --mark-removed and --drop-removed, and
+// when edges were removed, with --mark-removed and --drop-removed, and
 // checks everything above.
 type filterCheck struct {
 	extra    []string // more flags for every run
@@ -932,13 +957,13 @@ type filterResult struct {
 	code           int
 	stdout, stderr []byte
 	removedFile    bool // the --removed file was written
-	removed        int  // edges set aside, all graphs
+	removed        int  // edges removed, all graphs
 	problems       problems
 }
 
-var markAttrs = attrMap{"class": "gw set aside", "style": "dashed"}
+var markAttrs = attrMap{"class": "gw removed", "style": "dashed"}
 
-const markFlag = `class="gw set aside",style=dashed`
+const markFlag = `class="gw removed",style=dashed`
 
 func (fc filterCheck) check(src []byte) (res filterResult) {
 	p := &res.problems
@@ -995,7 +1020,7 @@ func (fc filterCheck) check(src []byte) (res filterResult) {
 		if positions[gi] == nil {
 			continue
 		}
-		// The drawing of the kept edges: the input's edges but the set-aside pairs.
+		// The drawing of the kept edges: the input's edges but the removed pairs.
 		kept := &graphMeaning{Nodes: mi.Nodes}
 		for _, e := range mi.Edges {
 			if !sets[gi].hasPair(mi, e) {
@@ -1503,7 +1528,7 @@ func TestInterpreterMeaning(t *testing.T) {
 // is one subgraph however often it is opened; common DOT practice, from
 // memory). Here a through e form K5 as DOT defines it. dotio used to take
 // only the nodes mentioned inside the operand: gridwood drew K5 minus
-// e -- a, reported nothing set aside, and the renderer's edge e -- a ran
+// e -- a, reported nothing removed, and the renderer's edge e -- a ran
 // straight through d (fixed in commit 3aaa889; kept as a regression test).
 func TestReopenedSubgraphOperandMeansWholeSubgraph(t *testing.T) {
 	in := "graph {\n\tsubgraph s { a }\n\ta -- b -- c -- d -- a\n\ta -- c\n\tb -- d\n\te -- subgraph s { b c d }\n}\n"
@@ -1519,7 +1544,7 @@ func TestReopenedSubgraphOperandMeansWholeSubgraph(t *testing.T) {
 	if err != nil || code != exitOK {
 		t.Fatalf("exit %d %v %s", code, err, errs)
 	}
-	// K5 is not planar (Kuratowski 1930): either an edge is set aside and
+	// K5 is not planar (Kuratowski 1930): either an edge is removed and
 	// reported, or the drawing has a crossing.
 	if len(errs) > 0 {
 		return
@@ -1534,5 +1559,5 @@ func TestReopenedSubgraphOperandMeansWholeSubgraph(t *testing.T) {
 		t.Fatalf("%v", p)
 	}
 	probs, err := drawingProblems(m, pos)
-	t.Errorf("K5 (as DOT defines this input) reported as planar with nothing set aside; its drawing has problems %v %v:\n%s", probs, err, out)
+	t.Errorf("K5 (as DOT defines this input) reported as planar with nothing removed; its drawing has problems %v %v:\n%s", probs, err, out)
 }

@@ -140,7 +140,7 @@ func TestExamplesMakefile(t *testing.T) {
 		upToDate("after rebuilding a deleted " + suffix)
 	}
 
-	// make check lints the built drawings, without their set-aside edges.
+	// make check lints the built drawings, without their removed edges.
 	msg, err = mk("check")
 	if err != nil {
 		t.Fatalf("make check: %v\n%s", err, msg)
@@ -156,7 +156,7 @@ func TestExamplesMakefile(t *testing.T) {
 	if srcs := laidOut(msg); len(srcs) != 0 {
 		t.Errorf("make check laid out %q again:\n%s", srcs, msg)
 	}
-	// What it checked has the built positions and none of the set-aside edges.
+	// What it checked has the built positions and none of the removed edges.
 	setAside := 0
 	for _, name := range names {
 		built := makefileRead(t, filepath.Join(out, name+".dot"))
@@ -164,7 +164,7 @@ func TestExamplesMakefile(t *testing.T) {
 		if b, k := makefilePositions(built), makefilePositions(kept); len(b) == 0 || !slices.Equal(b, k) {
 			t.Errorf("%s: checked positions %q differ from the built ones %q", name, k, b)
 		}
-		// The Makefile marks set-aside edges with style=dashed,color=gray.
+		// The Makefile marks removed edges with style=dashed,color=gray.
 		removed := 0 // removed.dot has one edge a line
 		for _, line := range strings.Split(makefileRead(t, filepath.Join(out, name+".removed.dot")), "\n") {
 			if strings.Contains(line, " -- ") || strings.Contains(line, " -> ") {
@@ -173,14 +173,14 @@ func TestExamplesMakefile(t *testing.T) {
 		}
 		setAside += removed
 		if n := strings.Count(built, "style=dashed, color=gray]"); n != removed {
-			t.Errorf("%s: the built drawing marks %d edges, want the %d set aside:\n%s", name, n, removed, built)
+			t.Errorf("%s: the built drawing marks %d edges, want the %d removed:\n%s", name, n, removed, built)
 		}
 		if strings.Contains(kept, "style=dashed, color=gray]") {
-			t.Errorf("%s: the checked drawing keeps set-aside edges:\n%s", name, kept)
+			t.Errorf("%s: the checked drawing keeps removed edges:\n%s", name, kept)
 		}
 	}
 	if setAside == 0 {
-		t.Error("no example has set-aside edges: make check's dropping them is not tested")
+		t.Error("no example has removed edges: make check's dropping them is not tested")
 	}
 	// A broken drawing in out/ fails make check (it is not laid out again).
 	keptFile := filepath.Join(out, touched+".kept.dot")

@@ -91,7 +91,7 @@ var reportExamples = []string{
 // edges, a bipartite one at most 2n-4 (both from Euler's formula v-e+f=2;
 // e.g. Diestel, Graph Theory, Corollary 4.2.10), and K5 or K3,3 minus any
 // edge is planar (Kuratowski's minimal non-planar graphs); so K5 needs
-// exactly 10-9 = 1 pair set aside and K3,3 exactly 9-8 = 1. README.md says
+// exactly 10-9 = 1 pair removed and K3,3 exactly 9-8 = 1. README.md says
 // gridwood proves that minimum where Euler's bound matches, so
 // removal_optimal must be true there. Wheels are planar.
 var reportExpect = map[string]struct {
@@ -239,7 +239,7 @@ type drawn struct {
 	pos    [][2]int64
 	bbW    int64
 	bbH    int64
-	kept   [][2]int // distinct node pairs, loops and set-aside pairs left out
+	kept   [][2]int // distinct node pairs, loops and removed pairs left out
 	all    [][2]int // distinct node pairs of every edge, loops left out
 	rs     removedSet
 	nRmEdg int
@@ -359,45 +359,70 @@ type box struct{ hw, hh float64 }
 // width and height in inches (0.75 and 0.5), grown to fit the label unless
 // fixedsize=true, a label line being 0.6 em per character and 1.2 em per
 // line (fontsize, 14 points) plus 8 points across and 4 above and below;
-// circles as wide as tall. ok is false when a node has something the rule
-// does not cover simply (an escape or HTML in its label, another shape
-// README does not describe the size of).
+// a circle as wide as tall, from width alone, height alone or the larger
+// of both (0.5 inch if neither), grown to the least circle around the
+// label's box. ok is false when a node has something the rule does not
+// cover simply (an escape or HTML in its label, a margin or peripheries,
+// another shape than a box, plaintext or circle).
 func readmeBoxes(m *graphMeaning) ([]box, bool) {
-	num := func(a attrMap, key string, def float64) (float64, bool) {
+	num := func(a attrMap, key string, def float64) (float64, bool, bool) {
 		s, set := a[key]
 		if !set {
-			return def, true
+			return def, false, true
 		}
 		v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-		return v, err == nil && v > 0
+		return v, true, err == nil && v > 0
 	}
 	boxes := make([]box, len(m.Nodes))
 	for i, n := range m.Nodes {
-		w, ok1 := num(n.Attrs, "width", 0.75)
-		h, ok2 := num(n.Attrs, "height", 0.5)
-		font, ok3 := num(n.Attrs, "fontsize", 14)
+		w, wSet, ok1 := num(n.Attrs, "width", 0.75)
+		h, hSet, ok2 := num(n.Attrs, "height", 0.5)
+		font, _, ok3 := num(n.Attrs, "fontsize", 14)
 		if !ok1 || !ok2 || !ok3 {
 			return nil, false
 		}
-		w, h = w*72, h*72
-		shape := strings.ToLower(n.Attrs["shape"])
-		if shape == "point" || shape == "doublecircle" {
+		if _, set := n.Attrs["margin"]; set {
 			return nil, false
 		}
-		if !strings.EqualFold(n.Attrs["fixedsize"], "true") {
-			label, set := n.Attrs["label"]
-			if !set || label == `\N` {
-				label = n.Key
-			}
-			if strings.ContainsAny(label, "\\\x00\n") {
-				return nil, false
-			}
-			w = max(w, float64(utf8.RuneCountInString(label))*0.6*font+16)
-			h = max(h, 1.2*font+8)
+		if _, set := n.Attrs["peripheries"]; set {
+			return nil, false
 		}
-		if shape == "circle" {
-			w = max(w, h)
+		shape := strings.ToLower(n.Attrs["shape"])
+		circle := shape == "circle"
+		switch shape {
+		case "", "box", "rect", "rectangle", "plaintext", "none", "circle":
+		default:
+			return nil, false
+		}
+		if circle {
+			switch {
+			case wSet && hSet:
+				w = max(w, h)
+			case hSet:
+				w = h
+			case !wSet:
+				w = 0.5
+			}
 			h = w
+		}
+		w, h = w*72, h*72
+		fixed := strings.EqualFold(n.Attrs["fixedsize"], "true")
+		label, set := n.Attrs["label"]
+		if !set || label == `\N` {
+			label = n.Key
+		}
+		if strings.ContainsAny(label, "\\\x00\n") || strings.HasPrefix(label, "<") {
+			return nil, false
+		}
+		if !fixed && label != "" {
+			lw := float64(utf8.RuneCountInString(label))*0.6*font + 16
+			lh := 1.2*font + 8
+			if circle {
+				w = max(w, math.Hypot(lw, lh))
+				h = w
+			} else {
+				w, h = max(w, lw), max(h, lh)
+			}
 		}
 		boxes[i] = box{w / 2, h / 2}
 	}
@@ -448,7 +473,7 @@ func checkRecord(t *testing.T, rec graphRecord, out *ast.Graph, d drawn, unitFla
 		t.Errorf("%s: removed_edges %d removed_pairs %d, --removed lists %d edges on %d pairs", id, rec.RemovedEdges, rec.RemovedPairs, d.nRmEdg, len(d.rs.pairs))
 	}
 	if rec.RemovedEdges == 0 && !rec.RemovalOptimal {
-		t.Errorf("%s: nothing set aside but removal_optimal false", id)
+		t.Errorf("%s: nothing removed but removal_optimal false", id)
 	}
 	_, ncomp := components(n, d.all)
 	if want, ok := reportExpect[id]; ok {
@@ -696,7 +721,7 @@ func TestReportFieldsAreDocumented(t *testing.T) {
 		if len(d.m.Nodes) == 2 {
 			say("area_ratio", "2 nodes, (n-2)^2 = 0", strconv.FormatFloat(rec.AreaRatio, 'g', -1, 64), regexp.MustCompile(`(?i)fewer than (3|three)|n\s*<\s*3|n\s*(<=|≤)\s*2|\b`+regexp.QuoteMeta(strconv.FormatFloat(rec.AreaRatio, 'g', -1, 64))+` (for|when|with|below)`))
 		}
-		// Set-aside edges stay in the output (README, Non-planar graphs)
+		// Removed edges stay in the output (README, Non-planar graphs)
 		// and a renderer draws them; where measuring them too would give
 		// another figure, README must say they are left out.
 		kept := regexp.MustCompile(`(?i)\bkept\b|set.aside|drawn edges|planar subgraph`)
@@ -704,7 +729,7 @@ func TestReportFieldsAreDocumented(t *testing.T) {
 		lit := func(field string, got, all float64) {
 			t.Helper()
 			if !nearRel(got, all, 1e-9) && !keptDoc && !kept.MatchString(doc.meaning[field]) {
-				t.Errorf("%s: %s = %v is measured over the kept edges only; over every edge in the output (set-aside ones too) it is %v, and README.md does not say which edges count", id, field, got, all)
+				t.Errorf("%s: %s = %v is measured over the kept edges only; over every edge in the output (removed ones too) it is %v, and README.md does not say which edges count", id, field, got, all)
 			}
 		}
 		if a, ok := minAngle(d.pos, d.all); ok {

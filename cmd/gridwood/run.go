@@ -18,6 +18,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/dotio/preview"
 	"github.com/gridwood/gridwood/place"
 	"github.com/gridwood/gridwood/planarize"
 )
@@ -173,7 +174,7 @@ func parseFlags(args []string) (*config, error) {
 	fs.StringVar(&cfg.explainFile, "explain", "", "write to `FILE`, for each removed edge, a Kuratowski subgraph (a\nsubdivision of K5 or K3,3 made of it and kept edges) proving it\ncould not stay, as DOT; one graph per input graph")
 	fs.IntVar(&cfg.effort, "effort", 0, "search more for fewer removed edges: `N` seeded restarts and a\nwider exact search on small blocks; the same N always gives the\nsame result")
 	fs.BoolVar(&cfg.check, "check", false, "lay nothing out: check the positions already in the input and\nlist crossing edges, nodes on edges, overlapping node boxes and\nedges through node boxes, one per line; exit status 1 if any\nexample: gridwood -q net.dot | gridwood --check")
-	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE`")
+	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE`;\nwith --check, a picture of the drawing as the input gives it")
 	fs.StringVar(&cfg.reportFile, "report", "", "write a JSON quality report to `FILE` (README, Quality report)")
 	fs.BoolVar(&cfg.version, "version", false, "print the version and exit")
 	fs.BoolVarP(&cfg.help, "help", "h", false, "print this help and exit")
@@ -208,7 +209,9 @@ func parseFlags(args []string) (*config, error) {
 	if cfg.check {
 		// --check lays nothing out: a layout flag with it would be
 		// silently ignored.
-		for _, name := range []string{"unit", "grid", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "svg", "method", "outer", "report"} {
+		// --svg is no layout flag: with --check it draws the input's own
+		// drawing.
+		for _, name := range []string{"unit", "grid", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "method", "outer", "report"} {
 			if fs.Changed(name) {
 				return nil, &usageError{"--check lays nothing out: --" + name + " does not go with it"}
 			}
@@ -516,7 +519,7 @@ func process(cfg *config, std *stdStreams) error {
 		return checkInputs(cfg, std)
 	}
 	var out, removedOut, explainOut, svgOut bytes.Buffer
-	var pictures []svgGraph
+	var pictures []preview.Graph
 	var reports []fileReport
 	prog := newProgress(stderr, cfg.quiet)
 	defer prog.stop()
@@ -573,7 +576,6 @@ func process(cfg *config, std *stdStreams) error {
 		layouts := make([]dotio.Layout, len(f.Graphs))
 		removed := make([][]int, len(f.Graphs))
 		results := make([]*place.Result, len(f.Graphs))
-		nodeBoxesOf := make([]place.Boxes, len(f.Graphs))
 		totalEdges, edgesDone := 0, 0
 		for _, g := range f.Graphs {
 			totalEdges += len(g.Edges) + 1
@@ -585,7 +587,7 @@ func process(cfg *config, std *stdStreams) error {
 			step := func(stage string, done float64) {
 				prog.set(drawing+stage, pct(ii, 0.4+0.5*(before+done*share)/float64(totalEdges)))
 			}
-			res, lay, boxes, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)), step)
+			res, lay, _, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)), step)
 			if err != nil {
 				return err
 			}
@@ -604,9 +606,6 @@ func process(cfg *config, std *stdStreams) error {
 			// would otherwise hold every graph's working state at once.
 			if cfg.explainFile != "" {
 				results[gi] = res
-			}
-			if cfg.svgFile != "" {
-				nodeBoxesOf[gi] = boxes
 			}
 			if len(cfg.outer) > 0 {
 				if missing := missingNames(g, cfg.outer); len(missing) == 0 {
@@ -658,7 +657,7 @@ func process(cfg *config, std *stdStreams) error {
 		}
 		if cfg.svgFile != "" {
 			for gi, g := range f.Graphs {
-				pictures = append(pictures, svgGraph{g, layouts[gi], nodeBoxesOf[gi]})
+				pictures = append(pictures, preview.FromLayout(g, layouts[gi]))
 			}
 		}
 	}
@@ -680,7 +679,7 @@ func process(cfg *config, std *stdStreams) error {
 		o.data = buf.Bytes()
 	}
 	if o := cfg.sideFile("--svg"); o != nil {
-		if err := writeSVG(&svgOut, pictures); err != nil {
+		if err := writeSVG(&svgOut, pictures, cfg.svgFile, cfg.quiet, stderr); err != nil {
 			return err
 		}
 		o.data = svgOut.Bytes()
@@ -698,10 +697,11 @@ func process(cfg *config, std *stdStreams) error {
 // checkInputs runs --check: every input's drawing is checked as given and
 // the problems are listed on stdout.
 func checkInputs(cfg *config, std *stdStreams) error {
-	stdin := std.in
+	stdin, stderr := std.in, std.err
 	stdinUsed := false
 	problems := 0
 	var report bytes.Buffer
+	var pictures []preview.Graph
 	for _, in := range cfg.inputs {
 		src, name, err := readInput(in, stdin, &stdinUsed)
 		if err != nil {
@@ -721,6 +721,16 @@ func checkInputs(cfg *config, std *stdStreams) error {
 			return err
 		}
 		problems += k
+		if cfg.svgFile != "" {
+			pictures = appendInputPictures(pictures, f, cfg.quiet, stderr)
+		}
+	}
+	if o := cfg.sideFile("--svg"); o != nil {
+		var svg bytes.Buffer
+		if err := writeSVG(&svg, pictures, cfg.svgFile, cfg.quiet, stderr); err != nil {
+			return err
+		}
+		o.data = svg.Bytes()
 	}
 	cfg.outs[len(cfg.outs)-1].data = report.Bytes()
 	if err := commitOutputs(cfg.outs, std); err != nil {

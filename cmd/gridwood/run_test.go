@@ -499,7 +499,7 @@ func TestOutputThroughLinksAndPipes(t *testing.T) {
 func TestRemovedFileListsExactlyTheSetAsideEdges(t *testing.T) {
 	dir := t.TempDir()
 	rm := filepath.Join(dir, "removed.dot")
-	// K3,3 written with a repeated edge and a loop: the pair set aside
+	// K3,3 written with a repeated edge and a loop: the pair removed
 	// takes its copies with it, the loop never counts.
 	in := "digraph U {\n {h1 h2 h3} -> {w g p}\n h1 -> w\n h1 -> h1\n}\n"
 	code, out, errs := runCmd(t, in, "-q", "--removed", rm)
@@ -560,7 +560,7 @@ func TestRemovedFileListsExactlyTheSetAsideEdges(t *testing.T) {
 	}
 }
 
-// TestRemovedFileInInputOrder: the --removed file lists the set-aside
+// TestRemovedFileInInputOrder: the --removed file lists the removed
 // edges in input order, one per line, each with its attributes as written
 // (README, Non-planar graphs). K7, its 21 edges in a shuffled order each
 // tagged with its place, loses 21 - (3*7 - 6) = 6 (Euler's bound,

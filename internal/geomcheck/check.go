@@ -449,7 +449,7 @@ type drawing struct {
 	positions []Point
 	posStart  []int32 // vertices at positions[k] are order[posStart[k]:posStart[k+1]]
 	order     []int32
-	removed   []bool            // per segment: set aside by the sweep
+	removed   []bool            // per segment: removed by the sweep
 	inside    map[int32][]int32 // per segment: increasing positions the sweep found inside it
 }
 

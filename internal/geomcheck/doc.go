@@ -59,9 +59,9 @@
 // Algorithmica 16 (1996) 464-497). By Shamos and Hoey's argument (the first
 // conflict point is preceded by its two segments being neighbours) the
 // segments that stay are pairwise free of problems. Only pairs with a
-// set-aside segment are then classified exactly, each pair once, found by a
+// removed segment are then classified exactly, each pair once, found by a
 // path query of the larger segment among the bounding boxes of smaller ones
-// in packed bounding-box trees; vertices inside set-aside segments are
+// in packed bounding-box trees; vertices inside removed segments are
 // found the same way.
 //
 // On a drawing without problems this takes O((n+m) log(n+m)) time and
@@ -71,6 +71,6 @@
 // 0.1 s for a star of 100,000 edges. With problems, the extra cost is that
 // of the path queries, which is proportional to the boxes each query
 // touches: near-linear in the number of problems for typical drawings, but
-// without a worst-case bound better than O(m) per set-aside segment (many
-// long, mutually near-parallel set-aside segments are the bad case).
+// without a worst-case bound better than O(m) per removed segment (many
+// long, mutually near-parallel removed segments are the bad case).
 package geomcheck
