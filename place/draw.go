@@ -51,15 +51,16 @@ type Result struct {
 	// drawing).
 	Times StageTimes
 
-	simple    [][2]int32
-	simpleOf  []int32
-	removedSP []int32
-	keptComp  []int32              // for Explain: each vertex's component in the kept graph
-	keptIn    [][]int32            // for Explain: the kept pairs of each component
-	local     *Drawing             // the drawing in Draw's own numbering
-	newID     []int32              // caller's vertex -> Draw's numbering
-	keptLocal [][2]int32           // kept pairs in Draw's numbering
-	keptEmb   *planarize.Embedding // the kept graph's embedding (DrawOptions.Readable)
+	simple     [][2]int32
+	simpleOf   []int32
+	removedSP  []int32
+	keptComp   []int32              // for Explain: each vertex's component in the kept graph
+	keptIn     [][]int32            // for Explain: the kept pairs of each component
+	local      *Drawing             // the drawing in Draw's own numbering
+	newID      []int32              // caller's vertex -> Draw's numbering
+	keptLocal  [][2]int32           // kept pairs in Draw's numbering
+	keptEmb    *planarize.Embedding // the kept graph's embedding (DrawOptions.Readable)
+	outerAsked bool                 // Options.Outer was given: Readable keeps the outer face
 }
 
 // Draw lays out the graph with n vertices and the given edges (ordered
@@ -145,6 +146,7 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	}
 	lopt := opt.Layout
 	if len(lopt.Outer) > 0 {
+		res.outerAsked = true
 		// Find an embedding with all of Outer on one face: join them to a
 		// new vertex, embed, and take the vertex out again.
 		outer := make([]int32, len(lopt.Outer))

@@ -3,17 +3,21 @@ package place
 import (
 	"errors"
 	"math"
+	"os"
 
 	"github.com/gridwood/gridwood/place/mesh"
 	"github.com/gridwood/gridwood/place/readable"
 )
 
 // maxRoundings bounds the scalings tried when rounding a readable drawing
-// to integer points; errRounding reports running out (a bug: a plane
-// drawing rounds to a plane one at a large enough scale).
-const maxRoundings = 40
+// to integer points, and maxReadableScale the scale: past either, the
+// drawing is too crowded somewhere to keep (errCrowded).
+const (
+	maxRoundings     = 40
+	maxReadableScale = 64
+)
 
-var errRounding = errors.New("place: internal error: the readable drawing does not round to a plane one")
+var errCrowded = errors.New("place: the readable drawing is crowded")
 
 // ReadableOptions tune Readable. The zero value is the default.
 type ReadableOptions struct {
@@ -22,38 +26,52 @@ type ReadableOptions struct {
 	Work int64
 }
 
-// Readable turns the grid drawing into a readable one in points: each
-// connected component of three or more vertices is drawn by the readable
-// stage (package place/readable: stress majorization kept plane by a
-// triangulation, started from the grid drawing or from a plane drawing
-// near the component's stress layout), with ideal edge lengths from the
-// node boxes; the result is rounded to integer points, checked exactly to
-// be plane, and stretched by the least factor that clears every box (as
-// Space does) where the stage left a box too near. Components are then
-// packed in rows. Draw must have been run with DrawOptions.Readable.
+// Readable turns the grid drawing into a readable one in points: Space
+// first spaces it as usual, and then each connected component of three or
+// more vertices is drawn by the readable stage (package place/readable:
+// stress majorization kept plane by a triangulation, started from the
+// spaced drawing or from a plane drawing near the component's stress
+// layout), with ideal edge lengths from the node boxes. Its result is
+// rounded to integer points, checked exactly to be plane, and stretched by
+// the least factor that clears every box (as Space does) where the stage
+// left a box too near; a component whose drawing would need more than
+// maxReadableScale for that keeps its spaced drawing (counted in
+// Placed.Crowded). Components are then packed in rows. Draw must have
+// been run with DrawOptions.Readable.
 func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
+	sp, err := r.Space(b, SpaceOptions{})
+	if err != nil {
+		return nil, err
+	}
 	n := len(r.X)
 	hw, hh, gap, unit, err := r.localBoxes(b)
 	if err != nil {
 		return nil, err
 	}
 	d := r.local
-	out := &Placed{X: make([]int64, n), Y: make([]int64, n), Unit: unit}
+	out := &Placed{X: make([]int64, n), Y: make([]int64, n), Unit: unit, Unchecked: sp.Unchecked}
 	px, py := make([]int64, n), make([]int64, n)
+	sx, sy := make([]int64, n), make([]int64, n) // the spaced drawing, local
+	for v, w := range r.newID {
+		sx[w], sy[w] = sp.X[v], sp.Y[v]
+	}
 	edgesOf := r.edgesByComponent()
 	boxes := make([]Component, len(d.members))
 	stamp := make([]int32, n)
 	for c, vs := range d.members {
-		k := len(vs)
-		switch {
-		case k == 1:
-			px[vs[0]], py[vs[0]] = 0, 0
-		case k == 2:
-			u, v := vs[0], vs[1]
-			px[u], py[u] = 0, 0
-			px[v], py[v] = hw[u]+hw[v]+gap, 0
-		default:
-			if err := r.readableComponent(c, vs, edgesOf[c], hw, hh, gap, opt, px, py, stamp, out); err != nil {
+		for _, v := range vs {
+			px[v], py[v] = sx[v], sy[v]
+		}
+		if len(vs) >= 3 {
+			err := r.readableComponent(vs, edgesOf[c], sx, sy, hw, hh, gap, opt, px, py, stamp, out)
+			if errors.Is(err, errCrowded) {
+				for _, v := range vs {
+					px[v], py[v] = sx[v], sy[v]
+				}
+				out.Crowded++
+				err = nil
+			}
+			if err != nil {
 				return nil, err
 			}
 		}
@@ -74,11 +92,10 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 	return out, nil
 }
 
-// readableComponent draws component c (vertices vs, kept edges in Draw's
-// numbering) by the readable stage and writes its integer points into
-// px, py.
-func (r *Result) readableComponent(c int, vs []int32, edges [][2]int32, hw, hh []int64, gap int64, opt ReadableOptions, px, py []int64, stamp []int32, out *Placed) error {
-	d := r.local
+// readableComponent draws the component with vertices vs and kept edges
+// (Draw's numbering), spaced at sx, sy, by the readable stage, and writes
+// its integer points into px, py.
+func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh []int64, gap int64, opt ReadableOptions, px, py []int64, stamp []int32, out *Placed) error {
 	emb, _ := r.keptEmb.Restrict(vs)
 	k := len(vs)
 	index := make(map[int32]int32, k)
@@ -89,9 +106,9 @@ func (r *Result) readableComponent(c int, vs []int32, edges [][2]int32, hw, hh [
 	for i := range local {
 		local[i] = emb.Edge(i)
 	}
-	in := readable.Input{Edges: local, X: make([]float64, k), Y: make([]float64, k), HalfW: make([]float64, k), HalfH: make([]float64, k), Gap: float64(gap), Embedding: emb}
+	in := readable.Input{Edges: local, X: make([]float64, k), Y: make([]float64, k), HalfW: make([]float64, k), HalfH: make([]float64, k), Gap: float64(gap), Embedding: emb, KeepOuter: r.outerAsked}
 	for i, v := range vs {
-		in.X[i], in.Y[i] = float64(d.X[v]), float64(d.Y[v])
+		in.X[i], in.Y[i] = float64(sx[v]), float64(sy[v])
 		in.HalfW[i], in.HalfH[i] = float64(hw[v]), float64(hh[v])
 	}
 	res, err := readable.Draw(in, readable.Options{Work: opt.Work})
@@ -99,13 +116,23 @@ func (r *Result) readableComponent(c int, vs []int32, edges [][2]int32, hw, hh [
 		return err
 	}
 	out.Readable++
+	if debugReadable {
+		println("chosen", res.Chosen)
+		for _, ph := range res.Phases {
+			println(" ", ph.Name, ph.Sweeps, ph.Stress, ph.Stretch)
+		}
+	}
 	// To integer points: round, check plane exactly, stretch to clear the
 	// boxes; each scaling of the float drawing keeps it plane, and a
 	// rounding that is not is tried again at twice the scale.
 	scale := 1.0
 	for attempt := 0; ; attempt++ {
-		if attempt > maxRoundings {
-			return errRounding
+		if attempt > maxRoundings || scale > maxReadableScale {
+			// Some spot of the drawing is crowded past what rounding and
+			// stretching can clear in reasonable size: the component is
+			// spaced from its grid drawing instead.
+			out.Readable--
+			return errCrowded
 		}
 		fx, fy := make([]float64, k), make([]float64, k)
 		for i, v := range vs {
@@ -121,6 +148,9 @@ func (r *Result) readableComponent(c int, vs []int32, edges [][2]int32, hw, hh [
 		if !checked {
 			out.Unchecked++
 		}
+		if debugReadable {
+			println("  round attempt", attempt, scale, s)
+		}
 		if s <= 1 {
 			break
 		}
@@ -128,3 +158,5 @@ func (r *Result) readableComponent(c int, vs []int32, edges [][2]int32, hw, hh [
 	}
 	return nil
 }
+
+var debugReadable = os.Getenv("GWDEBUG") != ""

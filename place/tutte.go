@@ -1,6 +1,9 @@
 package place
 
-import "github.com/gridwood/gridwood/planarize"
+import (
+	"github.com/gridwood/gridwood/internal/trig"
+	"github.com/gridwood/gridwood/planarize"
+)
 
 // fineSpan is the side of the integer frame the barycentric drawing is
 // rounded into: fine enough for detail, small enough that orientation
@@ -158,43 +161,12 @@ func roundClamp(f float64) int64 {
 	return int64(f + 0.5)
 }
 
-// circlePoint returns cos and sin of -2*pi*i/k, computed with plain
-// arithmetic only (argument reduction and a Taylor polynomial, each
-// product rounded explicitly), so that the polygon is the same on every
-// machine: the standard library's trigonometry may be fused differently
-// on different architectures.
+// circlePoint returns cos and sin of -2*pi*i/k, the same bits on every
+// machine (package internal/trig).
 func circlePoint(i, k int) (float64, float64) {
 	const pi = 3.14159265358979323846
-	// Angle in turns, reduced to an octant for accuracy.
 	t := -2 * pi * float64(i) / float64(k)
-	for t < -pi {
-		t += 2 * pi
-	}
-	for t > pi {
-		t -= 2 * pi
-	}
-	return taylorCos(t), taylorSin(t)
-}
-
-func taylorSin(t float64) float64 {
-	// sin t = t - t^3/3! + ... ; 12 terms are ample on [-pi, pi].
-	term, sum := t, t
-	t2 := float64(t * t)
-	for n := 1; n < 12; n++ {
-		term = float64(-term*t2) / float64((2*n)*(2*n+1))
-		sum += term
-	}
-	return sum
-}
-
-func taylorCos(t float64) float64 {
-	term, sum := 1.0, 1.0
-	t2 := float64(t * t)
-	for n := 1; n < 12; n++ {
-		term = float64(-term*t2) / float64((2*n-1)*(2*n))
-		sum += term
-	}
-	return sum
+	return trig.Cos(t), trig.Sin(t)
 }
 
 // triangleSign returns the orientation sign of the triangle on the left

@@ -1,53 +1,60 @@
-// Command quality lays out a fixed corpus (the shipped examples and seeded
-// generated graphs) with each drawing method and prints the quality figures
-// as a Markdown table, for README.md ("barycentric", "convex", "face
-// counts" and "layered tree" name the drawings some components were taken
-// from, "relaxed" those relaxed after; see README, Spacing):
+// Command quality lays out a corpus of graphs with gridwood and with an
+// unconstrained stress majorization of the same kept graph (the reference:
+// same ideal edge lengths from the same node boxes, crossings allowed and
+// counted), and prints both side by side as a Markdown table, with a
+// summary: normalized stress and its ratio, the reference's crossings,
+// edge-length spread, angular resolution, closest node pair, size and time.
 //
 //	go build -o /tmp/gridwood ./cmd/gridwood
-//	go run ./bench/quality /tmp/gridwood
+//	go run ./bench/quality /tmp/gridwood [FILE.dot ...]
+//
+// The corpus is the shipped examples, the real graphs of bench/corpus (see
+// its README for their sources) and seeded generated families; files given
+// on the command line are laid out instead.
 package main
 
 import (
 	"bytes"
 	"encoding/json"
 	"fmt"
+	"math"
+	"math/rand/v2"
 	"os"
 	"os/exec"
 	"path/filepath"
+	"slices"
+	"strconv"
+	"strings"
+	"time"
 
+	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/dotio/nodesize"
+	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/mesh"
+	"github.com/gridwood/gridwood/place/quality"
+	"github.com/gridwood/gridwood/place/readable"
+	"github.com/gridwood/gridwood/place/stress"
 )
 
-type report struct {
-	Files []struct {
-		Graphs []struct {
-			Graph           string   `json:"graph"`
-			Nodes           int      `json:"nodes"`
-			Edges           int      `json:"edges"`
-			Removed         int      `json:"removed_edges"`
-			Components      int      `json:"components"`
-			Bary            int      `json:"barycentric_components"`
-			Convex          int      `json:"convex_components"`
-			Trees           int      `json:"tree_components"`
-			FaceCounts      int      `json:"face_count_components"`
-			Relaxed         int      `json:"relaxed_components"`
-			AreaRatio       float64  `json:"area_ratio"`
-			CompactionSaved float64  `json:"compaction_saved"`
-			W               int64    `json:"width_pt"`
-			H               int64    `json:"height_pt"`
-			MinAngle        float64  `json:"min_angle_deg"`
-			EdgeRatio       float64  `json:"edge_length_ratio"`
-			MinVE           *float64 `json:"min_vertex_edge_distance"`
-			Overlaps        int      `json:"box_overlaps"`
-			Through         int      `json:"edges_through_boxes"`
-		} `json:"graphs"`
-	} `json:"files"`
+// boxGap is the command's clear space between boxes, in points.
+const boxGap = 18
+
+type row struct {
+	name          string
+	nodes, edges  int
+	removed       int
+	gw, ref       quality.Measures
+	refCrossings  int
+	gwW, gwH      float64
+	refW, refH    float64
+	gwSec, refSec float64
+	problems      int
 }
 
 func main() {
-	if len(os.Args) != 2 {
-		fmt.Fprintln(os.Stderr, "usage: quality GRIDWOOD-BINARY")
+	if len(os.Args) < 2 {
+		fmt.Fprintln(os.Stderr, "usage: quality GRIDWOOD-BINARY [FILE.dot ...]")
 		os.Exit(2)
 	}
 	bin := os.Args[1]
@@ -56,75 +63,305 @@ func main() {
 		fail(err)
 	}
 	defer os.RemoveAll(dir)
-	inputs := []string{"examples/campus-fibre.dot", "examples/tram-network.dot", "examples/cottages.dot"}
-	for _, g := range []graphgen.Graph{
-		graphgen.Grid(10, 10), graphgen.TriangulatedGrid(8, 8), graphgen.Wheel(20),
-		graphgen.RandomTree(50, 1), graphgen.RandomPlanar(200, 0.6, 1), graphgen.RandomMaximalPlanar(100, 1),
-		graphgen.NestedTriangles(10), graphgen.Dodecahedron(), graphgen.RandomGnm(60, 150, 1),
-	} {
+	inputs := os.Args[2:]
+	if len(inputs) == 0 {
+		inputs = corpus(dir)
+	}
+	if keep := os.Getenv("QUALITY_KEEP"); keep != "" {
+		for _, in := range inputs {
+			data, _ := os.ReadFile(in)
+			os.WriteFile(filepath.Join(keep, filepath.Base(in)), data, 0o644)
+		}
+	}
+	var rows []row
+	for _, in := range inputs {
+		rs, err := measure(bin, dir, in)
+		if err != nil {
+			fail(fmt.Errorf("%s: %v", in, err))
+		}
+		rows = append(rows, rs...)
+	}
+	print(rows)
+}
+
+// corpus writes the generated graphs into dir and returns every input.
+func corpus(dir string) []string {
+	inputs, _ := filepath.Glob("examples/*.dot")
+	real, _ := filepath.Glob("bench/corpus/*.dot")
+	inputs = append(inputs, real...)
+	gs := []graphgen.Graph{
+		graphgen.Grid(10, 10), graphgen.Grid(20, 15), graphgen.TriangulatedGrid(8, 8),
+		graphgen.Wheel(20), graphgen.Dodecahedron(), graphgen.Icosahedron(),
+		graphgen.RandomTree(50, 1), graphgen.RandomTree(300, 2), graphgen.RandomTree(1000, 3),
+		graphgen.RandomPlanar(200, 0.6, 1), graphgen.RandomPlanar(1000, 0.5, 2),
+		graphgen.RandomMaximalPlanar(100, 1), graphgen.RandomMaximalPlanar(500, 2),
+		graphgen.NestedTriangles(10), graphgen.RandomGnm(60, 150, 1),
+		delaunay("delaunay-100", 100, 1, false), delaunay("delaunay-1000", 1000, 2, false),
+		delaunay("mesh-holes-300", 300, 3, true), delaunay("mesh-holes-1500", 1500, 4, true),
+	}
+	for _, g := range gs {
 		p := filepath.Join(dir, g.Name+".dot")
 		var b bytes.Buffer
-		graphgen.WriteDOT(&b, g)
+		if err := graphgen.WriteDOT(&b, g); err != nil {
+			fail(err)
+		}
 		if err := os.WriteFile(p, b.Bytes(), 0o644); err != nil {
 			fail(err)
 		}
 		inputs = append(inputs, p)
 	}
-	fmt.Println("| graph | method | nodes | edges | removed | grid area / (n-2)^2 | saved by compaction | size (pt) | smallest angle | longest / shortest edge | closest node to an edge (base units) | box overlaps | edges through boxes |")
-	fmt.Println("| --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- |")
-	for _, in := range inputs {
-		for _, m := range []struct {
-			name string
-			args []string
-		}{
-			{"schnyder", nil},
-			{"schnyder --grid", []string{"--grid"}},
-			{"convex", []string{"--method", "convex"}},
-		} {
-			rp := filepath.Join(dir, "r.json")
-			args := append([]string{"-q", "--report", rp}, m.args...)
-			args = append(args, in)
-			cmd := exec.Command(bin, args...)
-			cmd.Stdout = nil
-			if out, err := cmd.CombinedOutput(); err != nil {
-				fail(fmt.Errorf("%s %v: %v\n%s", bin, args, err, out))
+	return inputs
+}
+
+// delaunay returns the Delaunay triangulation of n seeded random points in
+// the unit square (the sides of mesh's triangulation without edges), with
+// holes: the points in three discs left out, and the long edges along the
+// hull and the holes' rims dropped, so that faces of many sides remain.
+func delaunay(name string, n int, seed uint64, holes bool) graphgen.Graph {
+	rng := rand.New(rand.NewPCG(seed, 99))
+	var x, y []float64
+	type disc struct{ x, y, r float64 }
+	ds := []disc{{0.3, 0.3, 0.12}, {0.7, 0.6, 0.15}, {0.35, 0.75, 0.1}}
+	for len(x) < n {
+		px, py := rng.Float64(), rng.Float64()
+		inHole := false
+		for _, d := range ds {
+			if holes && math.Hypot(px-d.x, py-d.y) < d.r {
+				inHole = true
 			}
-			data, err := os.ReadFile(rp)
+		}
+		if !inHole {
+			x, y = append(x, px), append(y, py)
+		}
+	}
+	m, err := mesh.New(x, y, nil, 0)
+	if err != nil {
+		fail(err)
+	}
+	var edges [][2]int32
+	limit := 2.5 / math.Sqrt(float64(n))
+	m.Rings(func(v int32, ring []int32) {
+		for _, w := range ring {
+			if int(w) < n && v < w && (!holes || math.Hypot(x[v]-x[w], y[v]-y[w]) < limit) {
+				edges = append(edges, [2]int32{v, w})
+			}
+		}
+	})
+	return graphgen.Graph{N: n, Edges: edges, Name: name}
+}
+
+type report struct {
+	Files []struct {
+		Graphs []struct {
+			Graph   string `json:"graph"`
+			Removed int    `json:"removed_edges"`
+			Seconds struct {
+				Planarize float64 `json:"planarize"`
+				Layout    float64 `json:"layout"`
+				Space     float64 `json:"space"`
+			} `json:"seconds"`
+		} `json:"graphs"`
+	} `json:"files"`
+}
+
+// measure lays out one file with the binary (kept edges only), and each of
+// its graphs with the reference.
+func measure(bin, dir, in string) ([]row, error) {
+	rp := filepath.Join(dir, "r.json")
+	cmd := exec.Command(bin, "-q", "--drop-removed", "--report", rp, in)
+	var out, errs bytes.Buffer
+	cmd.Stdout, cmd.Stderr = &out, &errs
+	if err := cmd.Run(); err != nil {
+		return nil, fmt.Errorf("%v: %s", err, errs.String())
+	}
+	var rep report
+	data, err := os.ReadFile(rp)
+	if err != nil {
+		return nil, err
+	}
+	if err := json.Unmarshal(data, &rep); err != nil {
+		return nil, err
+	}
+	f, err := dotio.Read(out.Bytes(), dotio.ReadOptions{Name: in})
+	if err != nil {
+		return nil, err
+	}
+	var rows []row
+	for gi, g := range f.Graphs {
+		r := row{name: g.Name, nodes: len(g.Nodes)}
+		if r.name == "" {
+			r.name = strings.TrimSuffix(filepath.Base(in), ".dot")
+		}
+		gr := rep.Files[0].Graphs[gi]
+		r.removed = gr.Removed
+		r.gwSec = gr.Seconds.Planarize + gr.Seconds.Layout + gr.Seconds.Space
+		n := len(g.Nodes)
+		x, y := make([]float64, n), make([]float64, n)
+		for i, nd := range g.Nodes {
+			p := strings.Split(strings.TrimSuffix(nd.Attrs.Pos, "!"), ",")
+			if len(p) != 2 {
+				return nil, fmt.Errorf("node %s: pos %q", nd.Name, nd.Attrs.Pos)
+			}
+			x[i], _ = strconv.ParseFloat(p[0], 64)
+			y[i], _ = strconv.ParseFloat(p[1], 64)
+		}
+		edges := simple(n, g.Edges)
+		r.edges = len(edges)
+		sizes := nodesize.New(g)
+		hw, hh := make([]float64, n), make([]float64, n)
+		for i := range n {
+			s := sizes.Node(i)
+			hw[i], hh[i] = math.Ceil(s.W/2), math.Ceil(s.H/2)
+		}
+		r.gw = quality.Measure(x, y, edges)
+		r.gwW, r.gwH = extent(x, y, hw, hh)
+		r.problems = problems(x, y, edges)
+
+		start := time.Now()
+		rx, ry := reference(n, edges, hw, hh)
+		r.refSec = time.Since(start).Seconds()
+		r.ref = quality.Measure(rx, ry, edges)
+		r.refW, r.refH = extent(rx, ry, hw, hh)
+		r.refCrossings = problems(rx, ry, edges)
+		rows = append(rows, r)
+	}
+	return rows, nil
+}
+
+// simple returns the distinct non-loop pairs of the edges.
+func simple(n int, es []dotio.Edge) [][2]int32 {
+	seen := map[[2]int32]bool{}
+	var out [][2]int32
+	for _, e := range es {
+		a, b := min(e.From, e.To), max(e.From, e.To)
+		if a == b || seen[[2]int32{a, b}] {
+			continue
+		}
+		seen[[2]int32{a, b}] = true
+		out = append(out, [2]int32{a, b})
+	}
+	return out
+}
+
+// reference lays out every component by full stress majorization from a
+// pivot-MDS start until it moves less than 1e-5 edge lengths a vertex per
+// sweep (at most 2,000 sweeps), and places the components side by side.
+func reference(n int, edges [][2]int32, hw, hh []float64) ([]float64, []float64) {
+	x, y := make([]float64, n), make([]float64, n)
+	label, members := graphgen.Components(n, edges)
+	index := make([]int32, n)
+	for _, vs := range members {
+		for i, v := range vs {
+			index[v] = int32(i)
+		}
+	}
+	offset := 0.0
+	for c, vs := range members {
+		var local [][2]int32
+		for _, e := range edges {
+			if label[e[0]] == c {
+				local = append(local, [2]int32{index[e[0]], index[e[1]]})
+			}
+		}
+		lhw, lhh := make([]float64, len(vs)), make([]float64, len(vs))
+		for i, v := range vs {
+			lhw[i], lhh[i] = hw[v], hh[v]
+		}
+		var cx, cy []float64
+		if len(vs) == 1 {
+			cx, cy = []float64{0}, []float64{0}
+		} else {
+			m, err := stress.NewModel(len(vs), local, readable.IdealLengths(local, lhw, lhh, boxGap), stress.Options{FullLimit: len(vs)})
 			if err != nil {
 				fail(err)
 			}
-			var r report
-			if err := json.Unmarshal(data, &r); err != nil {
-				fail(err)
-			}
-			for _, g := range r.Files[0].Graphs {
-				ve := "n/a"
-				if g.MinVE != nil {
-					ve = fmt.Sprintf("%.2f", *g.MinVE)
-				}
-				method := m.name
-				switch {
-				case m.name == "convex" && g.Convex == 0 && g.Relaxed > 0:
-					method += fmt.Sprintf(" (fell back, %d of %d relaxed)", g.Relaxed, g.Components)
-				case g.Relaxed > 0:
-					method += fmt.Sprintf(" (%d of %d relaxed)", g.Relaxed, g.Components)
-				case g.Convex > 0:
-					method += fmt.Sprintf(" (%d of %d convex)", g.Convex, g.Components)
-				case g.Trees > 0:
-					method += " (layered tree)"
-				case g.FaceCounts > 0:
-					method += fmt.Sprintf(" (%d of %d by face counts)", g.FaceCounts, g.Components)
-				case m.name == "convex":
-					method += " (fell back)"
-				case g.Bary > 0:
-					method += " (barycentric)"
-				}
-				fmt.Printf("| %s | %s | %d | %d | %d | %.2f | %.0f%% | %d x %d | %.1f° | %.1f | %s | %d | %d |\n",
-					g.Graph, method, g.Nodes, g.Edges, g.Removed,
-					g.AreaRatio, 100*g.CompactionSaved, g.W, g.H, g.MinAngle, g.EdgeRatio, ve, g.Overlaps, g.Through)
-			}
+			cx, cy = m.Start()
+			m.Layout(cx, cy, 2000, 1e-5)
 		}
+		minX := math.Inf(1)
+		maxX := math.Inf(-1)
+		for i := range vs {
+			minX, maxX = min(minX, cx[i]-lhw[i]), max(maxX, cx[i]+lhw[i])
+		}
+		for i, v := range vs {
+			x[v], y[v] = cx[i]-minX+offset, cy[i]
+		}
+		offset += maxX - minX + boxGap
 	}
+	return x, y
+}
+
+// problems counts what the independent checker finds in the drawing,
+// rounded to 1/64 point.
+func problems(x, y []float64, edges [][2]int32) int {
+	minX, minY := math.Inf(1), math.Inf(1)
+	for i := range x {
+		minX, minY = min(minX, x[i]), min(minY, y[i])
+	}
+	pts := make([]geomcheck.Point, len(x))
+	for i := range x {
+		pts[i] = geomcheck.Point{X: int64(math.Round((x[i] - minX) * 64)), Y: int64(math.Round((y[i] - minY) * 64))}
+	}
+	p, err := geomcheck.Check(pts, edges)
+	if err != nil {
+		return -1
+	}
+	return len(p)
+}
+
+// extent is the size of the drawing with its boxes.
+func extent(x, y, hw, hh []float64) (float64, float64) {
+	minX, minY, maxX, maxY := math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)
+	for i := range x {
+		minX, maxX = min(minX, x[i]-hw[i]), max(maxX, x[i]+hw[i])
+		minY, maxY = min(minY, y[i]-hh[i]), max(maxY, y[i]+hh[i])
+	}
+	return maxX - minX, maxY - minY
+}
+
+func print(rows []row) {
+	fmt.Println("| graph | nodes | edges | removed | stress | reference stress | ratio | reference crossings | edge-length CV | angular resolution | closest pair / mean edge | size (pt) | reference size (pt) | seconds | reference seconds |")
+	fmt.Println("| --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- |")
+	var ratios, planeRatios, cvs []float64
+	for _, r := range rows {
+		ratio := r.gw.Stress / max(r.ref.Stress, 1e-12)
+		ratios = append(ratios, ratio)
+		if r.refCrossings == 0 {
+			planeRatios = append(planeRatios, ratio)
+		}
+		cvs = append(cvs, r.gw.EdgeCV)
+		mark := ""
+		if r.problems != 0 {
+			mark = fmt.Sprintf(" (%d problems!)", r.problems)
+		}
+		fmt.Printf("| %s%s | %d | %d | %d | %.4f | %.4f | %.2f | %d | %.2f / %.2f | %.2f / %.2f | %.2f / %.2f | %.0f x %.0f | %.0f x %.0f | %.2f | %.2f |\n",
+			r.name, mark, r.nodes, r.edges, r.removed, r.gw.Stress, r.ref.Stress, ratio, r.refCrossings,
+			r.gw.EdgeCV, r.ref.EdgeCV, r.gw.AngularResolution, r.ref.AngularResolution, r.gw.ClosestPair, r.ref.ClosestPair,
+			r.gwW, r.gwH, r.refW, r.refH, r.gwSec, r.refSec)
+	}
+	fmt.Println()
+	fmt.Printf("median stress ratio %.2f over %d graphs; worst %.2f where the reference is plane (%d graphs); median edge-length CV %.2f\n",
+		median(ratios), len(ratios), maxOf(planeRatios), len(planeRatios), median(cvs))
+}
+
+func median(v []float64) float64 {
+	if len(v) == 0 {
+		return 0
+	}
+	s := slices.Clone(v)
+	slices.Sort(s)
+	if len(s)%2 == 1 {
+		return s[len(s)/2]
+	}
+	return (s[len(s)/2-1] + s[len(s)/2]) / 2
+}
+
+func maxOf(v []float64) float64 {
+	m := 0.0
+	for _, x := range v {
+		m = max(m, x)
+	}
+	return m
 }
 
 func fail(err error) {

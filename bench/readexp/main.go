@@ -4,6 +4,7 @@ package main
 import (
 	"flag"
 	"fmt"
+	"github.com/gridwood/gridwood/dotio"
 	"math"
 	"os"
 	"time"
@@ -23,9 +24,31 @@ func main() {
 	seed := flag.Uint64("seed", 1, "seed")
 	svg := flag.String("svg", "", "svg file")
 	follow := flag.Bool("follow", false, "embedding from the reference")
+	dotFile := flag.String("dot", "", "DOT file instead of a family")
 	lr := flag.Bool("lr", false, "LR embedding, outer face from the reference")
 	flag.Parse()
 	g, ok := graphgen.Named(*family, *n, 0, *seed)
+	if *dotFile != "" {
+		src, err := os.ReadFile(*dotFile)
+		if err != nil {
+			panic(err)
+		}
+		f, err := dotio.Read(src, dotio.ReadOptions{Name: *dotFile})
+		if err != nil {
+			panic(err)
+		}
+		dg := f.Graphs[0]
+		g = graphgen.Graph{N: len(dg.Nodes), Name: *dotFile}
+		seen := map[[2]int32]bool{}
+		for _, e := range dg.Edges {
+			a, b := min(e.From, e.To), max(e.From, e.To)
+			if a != b && !seen[[2]int32{a, b}] {
+				seen[[2]int32{a, b}] = true
+				g.Edges = append(g.Edges, [2]int32{a, b})
+			}
+		}
+		ok = true
+	}
 	if !ok {
 		fmt.Println("no family")
 		os.Exit(2)
@@ -91,6 +114,9 @@ func main() {
 		panic(err)
 	}
 	el := time.Since(start)
+	for _, ph := range out.Phases {
+		fmt.Printf("  %-10s sweeps %5d stress %.4g  %.3fs least height %.3g stretch %.3g\n", ph.Name, ph.Sweeps, ph.Stress, ph.Seconds, ph.LeastHeight, ph.Stretch)
+	}
 	{
 		lo, hi := 0, 0
 		for i := range out.X {
@@ -117,7 +143,7 @@ func main() {
 	cross := crossings(rx, ry, edges)
 	pc := crossings(out.X, out.Y, edges)
 	fmt.Printf("%s n=%d m=%d: start %.4f out %.4f ref %.4f ratio %.3f (start %.2f) | cv %.2f/%.2f ang %.2f/%.2f | refcross %d outcross %d | sweeps %d ref=%v %.3fs\n",
-		*family, k, len(edges), qs.Stress, qo.Stress, qr.Stress, qo.Stress/qr.Stress, qs.Stress/qr.Stress, qo.EdgeCV, qr.EdgeCV, qo.AngularResolution, qr.AngularResolution, cross, pc, out.Sweeps, out.Reference, el.Seconds())
+		*family, k, len(edges), qs.Stress, qo.Stress, qr.Stress, qo.Stress/qr.Stress, qs.Stress/qr.Stress, qo.EdgeCV, qr.EdgeCV, qo.AngularResolution, qr.AngularResolution, cross, pc, out.Sweeps, out.Chosen, el.Seconds())
 	if *svg != "" {
 		writeSVG(*svg, out.X, out.Y, edges, rx, ry)
 	}
@@ -142,6 +168,10 @@ func crossings(x, y []float64, edges [][2]int32) int {
 	}
 	if len(p) > 0 {
 		fmt.Println("problems", kinds, p[0])
+		if p[0].Kind == geomcheck.Crossing {
+			a, b := edges[p[0].A], edges[p[0].B]
+			fmt.Printf("  edge %v: (%.3f,%.3f)-(%.3f,%.3f)  edge %v: (%.3f,%.3f)-(%.3f,%.3f)\n", a, x[a[0]], y[a[0]], x[a[1]], y[a[1]], b, x[b[0]], y[b[0]], x[b[1]], y[b[1]])
+		}
 	}
 	return len(p)
 }
@@ -200,4 +230,3 @@ func writeSVG(path string, x, y []float64, edges [][2]int32, rx, ry []float64) {
 	}
 	fmt.Fprintf(f, `<svg xmlns="http://www.w3.org/2000/svg" width="1200" height="600"><rect width="1200" height="600" fill="white"/>%s%s</svg>`, draw(x, y, 0), draw(rx, ry, 600))
 }
-

@@ -782,12 +782,8 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 		outer = append(outer, int32(i))
 	}
 	readable := cfg.unit == 0 && !cfg.gridOnly && cfg.method == place.Schnyder
-	smooth := smoothSweeps
-	if readable {
-		smooth = 0 // the readable stage starts from the grid drawing itself
-	}
 	res, err := place.Draw(len(g.Nodes), edges, place.DrawOptions{
-		Layout:   place.Options{Compact: true, Smooth: smooth, Outer: outer, Method: cfg.method},
+		Layout:   place.Options{Compact: true, Smooth: smoothSweeps, Outer: outer, Method: cfg.method},
 		Readable: readable,
 		Subgraph: planarize.SubgraphOptions{Effort: cfg.effort},
 		Progress: func(stage string, done float64) { step(stage, 0.85*done) },

@@ -303,6 +303,11 @@ func TestRouteKeepsDisc(t *testing.T) {
 			if err := m.CheckCombinatorics(); err != nil {
 				t.Fatalf("trial %d: after routing %d-%d: %v", trial, u, v, err)
 			}
+			for _, e := range edges {
+				if !m.Fixed(e[0], e[1]) && !m.Fixed(e[1], e[0]) {
+					t.Fatalf("trial %d: after routing %d-%d, edge %v is not fixed", trial, u, v, e)
+				}
+			}
 		}
 		hasEdges(t, m, edges)
 		tx, ty := tutte(m)

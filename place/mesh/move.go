@@ -206,3 +206,35 @@ func (m *Mesh) AddEdge(a, b int32) bool {
 	m.legalizeQueue(-1)
 	return true
 }
+
+// LeastHeight returns the least height (corner to opposite side) over the
+// triangles with no frame vertex, and a vertex at that corner.
+func (m *Mesh) LeastHeight() (float64, int32) {
+	best, at := math.Inf(1), int32(-1)
+	n := int32(m.n)
+	for t := range m.tri {
+		a, b, c := m.tri[t][0], m.tri[t][1], m.tri[t][2]
+		if a >= n || b >= n || c >= n {
+			continue
+		}
+		area := float64((m.x[b]-m.x[a])*(m.y[c]-m.y[a])) - float64((m.y[b]-m.y[a])*(m.x[c]-m.x[a]))
+		for k, p := range [3]int32{a, b, c} {
+			q, r := m.tri[t][(k+1)%3], m.tri[t][(k+2)%3]
+			l := math.Sqrt(float64((m.x[r]-m.x[q])*(m.x[r]-m.x[q])) + float64((m.y[r]-m.y[q])*(m.y[r]-m.y[q])))
+			if h := area / l; h < best {
+				best, at = h, p
+			}
+		}
+	}
+	return best, at
+}
+
+// Scale multiplies every position, the frame's included, by f > 0 about
+// the origin: every orientation is kept, so the triangulation stays
+// valid.
+func (m *Mesh) Scale(f float64) {
+	for v := range m.x {
+		m.x[v] *= f
+		m.y[v] *= f
+	}
+}

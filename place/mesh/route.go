@@ -24,18 +24,14 @@ func (m *Mesh) Route(u, v, afterU, afterV int32) bool {
 		m.fix(t, i)
 		return true
 	}
+	// A shortest corridor through the face: the dual graph of a face's
+	// triangles is a tree, so within a face the corridor is the only one.
 	path := m.dualPath(m.sector(u, afterU), m.sector(v, afterV))
 	if path == nil && (afterU >= 0 || afterV >= 0) {
 		// The corners asked for lie on different faces: any will do.
 		path = m.dualPath(m.sector(u, -1), m.sector(v, -1))
 	}
 	if path == nil {
-		return false
-	}
-	// The corridor's two chains, from u to v: left (counter-clockwise of
-	// the path, seen walking from u) and right.
-	left, right, ok := m.chains(u, v, path)
-	if !ok {
 		return false
 	}
 	// Outer neighbours and fixed flags of the corridor's boundary sides,
@@ -49,22 +45,51 @@ func (m *Mesh) Route(u, v, afterU, afterV int32) bool {
 	for _, t := range path {
 		inPath[t] = true
 	}
+	wasFixed := map[[2]int32]bool{} // sides inside the corridor that are edges (a slit)
 	for _, t := range path {
 		for i := range 3 {
+			a, b := m.tri[t][(i+1)%3], m.tri[t][(i+2)%3]
 			if nb := m.adj[t][i]; !inPath[nb] {
-				a, b := m.tri[t][(i+1)%3], m.tri[t][(i+2)%3]
 				boundary[[2]int32{a, b}] = outside{nb, m.fixed[t][i]}
+			} else if m.fixed[t][i] {
+				wasFixed[[2]int32{min(a, b), max(a, b)}] = true
 			}
 		}
 	}
-	// Triangulate the two polygons, each counter-clockwise: the left chain
-	// walked back from v to u, and the right chain from u to v.
-	polyL := []int32{v}
-	for i := len(left) - 1; i >= 0; i-- {
-		polyL = append(polyL, left[i])
+	// The corridor's boundary, walked counter-clockwise, split at u and v
+	// into the two polygons the new side closes.
+	walk := m.boundaryWalk(path, inPath)
+	iu, iv := -1, -1
+	for i, c := range walk {
+		switch c {
+		case u:
+			if iu >= 0 {
+				return false // the corridor meets u twice
+			}
+			iu = i
+		case v:
+			if iv >= 0 {
+				return false
+			}
+			iv = i
+		}
 	}
-	polyL = append(polyL, u)
-	polyR := append(append([]int32{u}, right...), v)
+	if iu < 0 || iv < 0 || len(walk) != len(path)+2 {
+		return false
+	}
+	var polyL, polyR []int32 // from v round to u, and from u round to v
+	for i := iv; ; i = (i + 1) % len(walk) {
+		polyL = append(polyL, walk[i])
+		if i == iu {
+			break
+		}
+	}
+	for i := iu; ; i = (i + 1) % len(walk) {
+		polyR = append(polyR, walk[i])
+		if i == iv {
+			break
+		}
+	}
 	// The corridor's inner sides go away: they do not count as existing.
 	gone := map[[2]int32]bool{}
 	for i := 0; i+1 < len(path); i++ {
@@ -76,8 +101,9 @@ func (m *Mesh) Route(u, v, afterU, afterV int32) bool {
 		}
 	}
 	var tris [][3]int32
+	made := map[[2]int32]bool{{min(u, v), max(u, v)}: true}
 	for _, poly := range [][]int32{polyL, polyR} {
-		t, ok := m.fillPolygon(poly, u, v, gone)
+		t, ok := m.fillPolygon(poly, gone, made)
 		if !ok {
 			return false
 		}
@@ -107,7 +133,7 @@ func (m *Mesh) Route(u, v, afterU, afterV int32) bool {
 			if other, ok := inner[[2]int32{b, a}]; ok {
 				m.adj[t][i] = other[0]
 				m.adj[other[0]][other[1]] = t
-				if (a == u && b == v) || (a == v && b == u) {
+				if (a == u && b == v) || (a == v && b == u) || wasFixed[[2]int32{min(a, b), max(a, b)}] {
 					m.fixed[t][i] = true
 					m.fixed[other[0]][other[1]] = true
 				}
@@ -212,8 +238,8 @@ func (m *Mesh) cornerTriangle(v int32, c Corner) int32 {
 }
 
 // dualPath returns a shortest sequence of triangles, the first among from
-// and the last among to, each across a free side from the one before; nil
-// if there is none.
+// and the last among to, each across a free side from the one before;
+// nil if there is none.
 func (m *Mesh) dualPath(from, to []int32) []int32 {
 	prev := map[int32]int32{}
 	target := map[int32]bool{}
@@ -254,139 +280,105 @@ func (m *Mesh) dualPath(from, to []int32) []int32 {
 	return nil
 }
 
-// chains returns the vertices on either side of the corridor path from u
-// to v, in order from u, the left one counter-clockwise of the walk; a
-// vertex met again on its side after others (the corridor wrapping a
-// pocket) is listed again. ok is false if a vertex shows up on both sides
-// (the corridor pinches).
-func (m *Mesh) chains(u, v int32, path []int32) (left, right []int32, ok bool) {
-	if len(path) == 1 {
-		return nil, nil, false // u and v in one triangle are joined
-	}
-	// The side crossed from path[0] into path[1], then onward: each shared
-	// side's ends are one left, one right.
-	seen := map[int32]int{u: 3, v: 3}
-	add := func(c int32, side int) bool {
-		chain := &right
-		if side == 1 {
-			chain = &left
+// boundaryWalk returns the corners of the corridor's boundary in order,
+// counter-clockwise (the corridor on the left); a vertex the boundary
+// passes more than once is listed each time, and an edge between two of
+// the corridor's triangles (a slit) is walked along both its sides. From each boundary side a->b
+// the next is found by turning round b through the corridor's triangles
+// until a side leaves it.
+func (m *Mesh) boundaryWalk(path []int32, inPath map[int32]bool) []int32 {
+	// A first boundary side: one of path[0]'s.
+	t0, i0 := path[0], -1
+	for i := range 3 {
+		if !inPath[m.adj[t0][i]] || m.fixed[t0][i] {
+			i0 = i
+			break
 		}
-		if s, ok := seen[c]; ok {
-			if s != side {
-				return false
+	}
+	if i0 < 0 {
+		return nil
+	}
+	var walk []int32
+	t, i := t0, i0
+	for steps := 0; steps < 4*len(path)+8; steps++ {
+		// Boundary side of t opposite corner i, from a to b; then turn
+		// round b: in t the next side at b is b -> c, opposite a.
+		a, b := m.tri[t][(i+1)%3], m.tri[t][(i+2)%3]
+		walk = append(walk, a)
+		for {
+			ka := (i + 1) % 3 // corner of a in t: the side b -> c is opposite it
+			nb := m.adj[t][ka]
+			if !inPath[nb] || m.fixed[t][ka] {
+				// Out of the corridor, or along an edge inside it (a slit,
+				// whose two sides are both boundary).
+				i = ka
+				break
 			}
-			if (*chain)[len(*chain)-1] == c {
-				return true // still the same corner
-			}
-			// Met again on the same side: the corridor wraps a pocket.
+			// Into the triangle across b -> c, which holds c -> b; go on
+			// round b there.
+			c := m.tri[t][i]
+			t = nb
+			j := m.corner(t, oppositeOf(m, t, b, c))
+			// In the new t, with its corner j opposite c-b, the side after
+			// c -> b at b is b -> d, opposite c: make c play a's part.
+			i = j
 		}
-		seen[c] = side
-		*chain = append(*chain, c)
-		return true
-	}
-	for i := 0; i+1 < len(path); i++ {
-		t, next := path[i], path[i+1]
-		var k int
-		for k = 0; k < 3 && m.adj[t][k] != next; k++ {
-		}
-		// Side of t opposite corner k, from a to b counter-clockwise in t:
-		// walking across it away from t, a is on the right, b on the left.
-		a, b := m.tri[t][(k+1)%3], m.tri[t][(k+2)%3]
-		if !add(a, 2) || !add(b, 1) {
-			return nil, nil, false
+		if t == t0 && i == i0 {
+			return walk
 		}
 	}
-	return left, right, true
+	return nil
 }
 
-// fillPolygon triangulates the polygon (its vertices in order, u-v one of
-// its sides) combinatorially without using a side that exists outside it
-// (other than u-v; the sides in gone are about to go): from its vertex of least degree, a fan when that
-// vertex has no neighbour among the others, else first cut off the part
-// beyond such a chord (the argument of the augmentation that triangulates
-// faces: a chord outside the polygon separates its two arcs). The
-// triangles are listed counter-clockwise.
-func (m *Mesh) fillPolygon(poly []int32, u, v int32, gone map[[2]int32]bool) ([][3]int32, bool) {
-	var out [][3]int32
+// fillPolygon triangulates the polygon (its vertices in order; a vertex
+// may come more than once, where the polygon wraps round a piece of the
+// drawing it touches) combinatorially by cutting ears: three consecutive
+// corners whose outer two are neither the same vertex nor already joined
+// (by a side outside the polygon, one of its own sides, or a diagonal in
+// made, where each cut adds its own; the sides in gone are about to go
+// and do not count). Any sequence of such cuts triangulates the polygon as a
+// disc; it fails only if no corner is left to cut. The triangles are
+// listed counter-clockwise.
+func (m *Mesh) fillPolygon(poly []int32, gone, made map[[2]int32]bool) ([][3]int32, bool) {
 	joined := func(a, b int32) bool {
-		if (a == u && b == v) || (a == v && b == u) {
+		if a == b {
+			return true
+		}
+		k := [2]int32{min(a, b), max(a, b)}
+		if made[k] {
 			return true
 		}
 		if gone[[2]int32{a, b}] {
 			return false
 		}
-		t, _ := m.side(a, b)
-		if t < 0 {
-			t, _ = m.side(b, a)
-		}
-		return t >= 0
-	}
-	var rec func(p []int32) bool
-	// A walk that meets a vertex twice is a polygon with pockets: each
-	// pocket, from a vertex back to it, is filled on its own.
-	split := func(walk []int32) [][]int32 {
-		var polys [][]int32
-		var stack []int32
-		at := map[int32]int{}
-		for _, c := range walk {
-			if i, ok := at[c]; ok {
-				pocket := append([]int32(nil), stack[i:]...)
-				polys = append(polys, pocket)
-				for _, d := range stack[i+1:] {
-					delete(at, d)
-				}
-				stack = stack[:i+1]
-				continue
-			}
-			at[c] = len(stack)
-			stack = append(stack, c)
-		}
-		return append(polys, stack)
-	}
-	rec = func(p []int32) bool {
-		k := len(p)
-		if k < 3 {
-			return k == 2
-		}
-		if k == 3 {
-			out = append(out, [3]int32{p[0], p[1], p[2]})
+		if t, _ := m.side(a, b); t >= 0 {
 			return true
 		}
-		best := 0
-		for i := range p {
-			if m.deg[p[i]] < m.deg[p[best]] {
-				best = i
-			}
-		}
-		q := append(append([]int32(nil), p[best:]...), p[:best]...)
-		for i := 2; i <= k-2; i++ {
-			if joined(q[0], q[i]) {
-				// q0-qi exists elsewhere: cut with q1-q(i+1)...: use q[1]
-				// as the apex of the part beyond, which cannot be joined to
-				// q(i+1)..q(k-1) by planarity.
-				for j := i + 1; j <= k-1; j++ {
-					if joined(q[1], q[j]) {
-						return false
-					}
-				}
-				// Triangles q1 q(j) q(j+1) for j = i+1..k-2, and q0 q1 q(k-1),
-				// then the rest q1..q(i+1).
-				out = append(out, [3]int32{q[0], q[1], q[k-1]})
-				for j := k - 1; j > i+1; j-- {
-					out = append(out, [3]int32{q[1], q[j-1], q[j]})
-				}
-				return rec(q[1 : i+2])
-			}
-		}
-		for i := 1; i+1 < k; i++ {
-			out = append(out, [3]int32{q[0], q[i], q[i+1]})
-		}
-		return true
+		t, _ := m.side(b, a)
+		return t >= 0
 	}
-	for _, p := range split(poly) {
-		if !rec(p) {
+	p := append([]int32(nil), poly...)
+	var out [][3]int32
+	for len(p) > 3 {
+		cut := -1
+		for i := range p {
+			a, c := p[(i+len(p)-1)%len(p)], p[(i+1)%len(p)]
+			if !joined(a, c) {
+				cut = i
+				break
+			}
+		}
+		if cut < 0 {
 			return nil, false
 		}
+		k := len(p)
+		a, b, c := p[(cut+k-1)%k], p[cut], p[(cut+1)%k]
+		out = append(out, [3]int32{a, b, c})
+		made[[2]int32{min(a, c), max(a, c)}] = true
+		p = append(p[:cut], p[cut+1:]...)
+	}
+	if len(p) == 3 {
+		out = append(out, [3]int32{p[0], p[1], p[2]})
 	}
 	return out, true
 }
@@ -402,3 +394,4 @@ func (m *Mesh) Rings(fn func(v int32, ring []int32)) {
 		fn(v, ring)
 	}
 }
+

@@ -196,3 +196,80 @@ func (g *guard) conflictBarrier(v int32, term func(h, need float64), qx, qy floa
 		term(hypot(qx-fx, qy-fy), g.reachAcross(v, ex, ey))
 	}
 }
+
+// expand scales the whole drawing up by the factor that clears all but
+// the tightest tenth of its conflicts (each conflict's own factor: the
+// scale at which its two boxes, or its box and edge, part), when that is
+// more than 1, and returns the factor. A drawing whose boxes crowd each
+// other all over cannot be cleared by moving vertices one at a time, as
+// every move meets as many conflicts as it clears; after the expansion
+// the margins phase has only the tightest few left to clear.
+func (g *guard) expand() float64 {
+	need := g.conflictFactors()
+	if len(need) == 0 {
+		return 1
+	}
+	slices.Sort(need)
+	f := need[int(float64(len(need))*expandShare)]
+	if !(f > 1) || math.IsInf(f, 0) {
+		return 1
+	}
+	f = min(f, maxExpand)
+	g.mesh.Scale(f)
+	for v := range g.x {
+		g.x[v] *= f
+		g.y[v] *= f
+	}
+	return f
+}
+
+// stretchNeeded is the uniform scale that clears every conflict of the
+// drawing (1 if none): how much bigger it must grow to clear its boxes.
+func (g *guard) stretchNeeded() float64 {
+	f := 1.0
+	for _, x := range g.conflictFactors() {
+		f = max(f, x)
+	}
+	return f
+}
+
+// conflictFactors finds the conflicts and returns, for each, the scale at
+// which its two boxes, or its box and edge, part.
+func (g *guard) conflictFactors() []float64 {
+	g.findConflicts()
+	var need []float64
+	for v, cs := range g.conflicts {
+		for _, c := range cs {
+			if c.w >= 0 {
+				if c.w < int32(v) {
+					continue // each pair once
+				}
+				dx, dy := math.Abs(g.x[v]-g.x[c.w]), math.Abs(g.y[v]-g.y[c.w])
+				f := math.Inf(1)
+				if dx > 0 {
+					f = (g.hw[v] + g.hw[c.w] + g.gap) / dx
+				}
+				if dy > 0 {
+					f = min(f, (g.hh[v]+g.hh[c.w]+g.gap)/dy)
+				}
+				need = append(need, f)
+				continue
+			}
+			a, b := c.edge[0], c.edge[1]
+			d := segmentDistance(g.x[v], g.y[v], g.x[a], g.y[a], g.x[b], g.y[b])
+			if d > 0 {
+				need = append(need, g.reachAcross(int32(v), g.x[b]-g.x[a], g.y[b]-g.y[a])/d)
+			} else {
+				need = append(need, math.Inf(1))
+			}
+		}
+	}
+	return need
+}
+
+// expandShare is the share of conflicts expand clears by scaling;
+// maxExpand caps its factor.
+const (
+	expandShare = 0.9
+	maxExpand   = 16
+)

@@ -23,26 +23,71 @@ import (
 // left out has no face to go into: the kept part's embedding does not
 // extend to the whole graph, and the caller should embed it otherwise.
 func Follow(x, y []float64, edges [][2]int32) (emb *planarize.Embedding, outer []int32, ok bool) {
+	sorted := shortestFirst(x, y, edges)
+	doubtful := make([]bool, len(sorted))
+	first := make([]bool, len(sorted))
+	for try := 0; try < followTries; try++ {
+		emb, failed, ok := followOnce(x, y, sorted, doubtful, first)
+		if !ok {
+			return nil, nil, false
+		}
+		if len(failed) == 0 {
+			return emb, OuterFace(emb, x, y), true
+		}
+		// The edges drawn crossing an edge that found no face are what
+		// boxed it out: next time that edge goes in first, and they are
+		// left out of the drawing's part and added last.
+		added := 0
+		for _, f := range failed {
+			if !first[f] {
+				first[f] = true
+				added++
+			}
+			a, b := sorted[f][0], sorted[f][1]
+			for i, e := range sorted {
+				if !doubtful[i] && !first[i] && segmentsCross(x, y, a, b, e[0], e[1]) {
+					doubtful[i] = true
+					added++
+				}
+			}
+		}
+		if added == 0 {
+			return nil, nil, false
+		}
+	}
+	return nil, nil, false
+}
+
+// followTries bounds Follow's attempts.
+const followTries = 4
+
+// followOnce is one attempt of Follow: the edges not marked doubtful are
+// forced in shortest first as far as they cross nothing, the rest added
+// combinatorially, those marked first before the others and the doubtful
+// ones last; it returns the embedding and the indices (in sorted) of the
+// edges that found no face.
+func followOnce(x, y []float64, sorted [][2]int32, doubtful, first []bool) (*planarize.Embedding, []int, bool) {
 	n := len(x)
-	order := make([]int32, len(edges))
-	length := make([]float64, len(edges))
-	for i, e := range edges {
-		order[i] = int32(i)
-		length[i] = hypot(x[e[0]]-x[e[1]], y[e[0]]-y[e[1]])
+	var tryEdges [][2]int32
+	var tryIndex []int
+	for i, e := range sorted {
+		if !doubtful[i] && !first[i] {
+			tryEdges = append(tryEdges, e)
+			tryIndex = append(tryIndex, i)
+		}
 	}
-	slices.SortStableFunc(order, func(a, b int32) int { return cmp.Compare(length[a], length[b]) })
-	sorted := make([][2]int32, len(edges))
-	for i, id := range order {
-		sorted[i] = edges[id]
-	}
-	m, kept, err := mesh.Greedy(x, y, sorted, 0)
+	m, keptTry, err := mesh.Greedy(x, y, tryEdges, 0)
 	if err != nil {
 		return nil, nil, false
+	}
+	kept := make([]bool, len(sorted))
+	for k, i := range tryIndex {
+		kept[i] = keptTry[k]
 	}
 	// The kept edges, numbered in the order they were forced in, and the
 	// rotation the drawing gives them.
 	var keptEdges [][2]int32
-	id := make(map[[2]int32]int32, len(edges))
+	id := make(map[[2]int32]int32, len(sorted))
 	for i, e := range sorted {
 		if kept[i] {
 			id[[2]int32{min(e[0], e[1]), max(e[0], e[1])}] = int32(len(keptEdges))
@@ -55,27 +100,56 @@ func Follow(x, y []float64, edges [][2]int32) (emb *planarize.Embedding, outer [
 			around[v] = append(around[v], id[[2]int32{min(v, w), max(v, w)}])
 		}
 	}
-	emb, ok = planarize.FromRotation(n, keptEdges, around)
+	emb, ok := planarize.FromRotation(n, keptEdges, around)
 	if !ok || !emb.IsPlane() {
 		return nil, nil, false
 	}
 	comp := newComponents(n, keptEdges)
-	failed := 0
-	for i, e := range sorted {
-		if kept[i] {
-			continue
+	var failed []int
+	for pass := range 3 {
+		for i, e := range sorted {
+			// Pass 0: the edges marked first; 1: the other edges left out;
+			// 2: the doubtful ones.
+			if kept[i] || (pass == 0) != first[i] || (pass == 2) != (doubtful[i] && !first[i]) {
+				continue
+			}
+			if !addFollowing(emb, comp, x, y, e[0], e[1]) {
+				failed = append(failed, i)
+			}
 		}
-		if !addFollowing(emb, comp, x, y, e[0], e[1]) {
-			failed++
+	}
+	return emb, failed, emb.IsPlane()
+}
+
+// segmentsCross reports whether the drawn edges a-b and c-d meet other
+// than at a shared end (exact orientation tests; touching counts).
+func segmentsCross(x, y []float64, a, b, c, d int32) bool {
+	if a == c || a == d || b == c || b == d {
+		return false
+	}
+	o := func(p, q, r int32) int { return exact.Orient(x[p], y[p], x[q], y[q], x[r], y[r]) }
+	o1, o2, o3, o4 := o(a, b, c), o(a, b, d), o(c, d, a), o(c, d, b)
+	if o1*o2 > 0 || o3*o4 > 0 {
+		return false
+	}
+	if o1 == 0 && o2 == 0 {
+		// Collinear: they meet if their extents along the line overlap.
+		lo := func(p, q int32) (float64, float64) {
+			if x[p] != x[q] {
+				return min(x[p], x[q]), max(x[p], x[q])
+			}
+			return min(y[p], y[q]), max(y[p], y[q])
 		}
+		if x[a] == x[b] && x[c] == x[d] {
+			l1, h1 := min(y[a], y[b]), max(y[a], y[b])
+			l2, h2 := min(y[c], y[d]), max(y[c], y[d])
+			return l1 <= h2 && l2 <= h1
+		}
+		l1, h1 := lo(a, b)
+		l2, h2 := lo(c, d)
+		return l1 <= h2 && l2 <= h1
 	}
-	if failed > 0 {
-		return nil, nil, false
-	}
-	if !emb.IsPlane() {
-		return nil, nil, false
-	}
-	return emb, OuterFace(emb, x, y), true
+	return true
 }
 
 // components tracks which vertices are joined, by union-find.

@@ -16,11 +16,10 @@ const (
 	halfTanHigh = 60
 )
 
-// floaterSweeps bounds the solver's iterations of one solve; Pull makes
-// morphRounds rounds toward the target and then floaterRounds at it.
+// floaterSweeps bounds the solver's iterations of one solve;
+// floaterRounds the solves of nearPlane.
 const (
 	floaterSweeps = 400
-	morphRounds   = 10
 	floaterRounds = 3
 )
 
@@ -258,30 +257,22 @@ func nearPlane(rx, ry []float64, edges [][2]int32, emb *planarize.Embedding, rea
 		}
 		route = append(route, e)
 	}
+	if len(route) == 0 {
+		// The target is itself plane, with this embedding: nothing to do.
+		return append([]float64(nil), rx...), append([]float64(nil), ry...), true
+	}
 	m, err := mesh.New(rx, ry, keep, reach)
 	if err != nil {
 		return nil, nil, false
 	}
-	routed := true
 	for _, e := range route {
 		u, v := e[0], e[1]
 		if !m.Route(u, v, rot.before(u, v, sign), rot.before(v, u, sign)) {
-			routed = false
-			break
+			return nil, nil, false
 		}
 		rot.mark(u, v)
 	}
 	rings := m.Rings
-	if !routed {
-		// Triangulate emb itself instead, its faces split without regard
-		// to the drawing; the rounds that follow fit the triangulation to
-		// it.
-		t, ok := framed(emb, outerDart(emb, rx, ry), sign < 0)
-		if !ok {
-			return nil, nil, false
-		}
-		rings = embeddingRings(t, n)
-	}
 	for round := 0; round < floaterRounds; round++ {
 		nx, ny := solve(n, rings, rx, ry, reach)
 		next, err := mesh.New(nx, ny, edges, reach)
@@ -428,48 +419,3 @@ func shortestFirst(x, y []float64, edges [][2]int32) [][2]int32 {
 	return sorted
 }
 
-// fit returns x, y moved by the similarity transform that brings them
-// closest to tx, ty in the least-squares sense, reflection allowed
-// (orthogonal Procrustes analysis in the plane, common practice).
-func fit(x, y, tx, ty []float64) (fx, fy []float64) {
-	n := float64(len(x))
-	var mx, my, mtx, mty float64
-	for v := range x {
-		mx += x[v]
-		my += y[v]
-		mtx += tx[v]
-		mty += ty[v]
-	}
-	mx, my, mtx, mty = mx/n, my/n, mtx/n, mty/n
-	best := -1.0
-	fx, fy = make([]float64, len(x)), make([]float64, len(x))
-	for _, flip := range [2]float64{1, -1} {
-		// With y reflected by flip: the rotation maximizing sum of
-		// a . R b has cos, sin proportional to (sum a.b, sum a x b).
-		var dot, cross, norm float64
-		for v := range x {
-			ax, ay := x[v]-mx, float64(flip*(y[v]-my))
-			bx, by := tx[v]-mtx, ty[v]-mty
-			dot += float64(ax*bx) + float64(ay*by)
-			cross += float64(ax*by) - float64(ay*bx)
-			norm += float64(ax*ax) + float64(ay*ay)
-		}
-		r := hypot(dot, cross)
-		if r <= best || norm == 0 {
-			continue
-		}
-		best = r
-		c, s := dot/r, cross/r
-		scale := r / norm
-		for v := range x {
-			ax, ay := x[v]-mx, float64(flip*(y[v]-my))
-			fx[v] = mtx + float64(scale*(float64(c*ax)-float64(s*ay)))
-			fy[v] = mty + float64(scale*(float64(s*ax)+float64(c*ay)))
-		}
-	}
-	if best <= 0 {
-		copy(fx, x)
-		copy(fy, y)
-	}
-	return fx, fy
-}

@@ -30,18 +30,17 @@ type guard struct {
 }
 
 // Move rules: a vertex's least height is minHeightShare of its edges'
-// mean ideal length, and freeHeightShare of that from a side that is no
-// edge (see barrier, weighted by barrierWeight); a move goes
+// mean ideal length (see barrier, weighted by barrierWeight); a move goes
 // at most freeSideShare of the way to any side of its star, and tries
 // that and steps-1 halvings of it; a vertex that cannot get jumpShare of
 // the way to its target tries to jump there.
 const (
-	minHeightShare  = 0.25
-	freeHeightShare = 0.3
-	barrierWeight   = 4
-	freeSideShare   = 0.9
-	steps           = 8
-	jumpShare       = 0.5
+	minHeightShare = 0.25
+	barrierWeight  = 4
+	freeSideShare  = 0.9
+	steps          = 8
+	jumpShare      = 0.5
+	floorShare     = 0.05
 )
 
 // run makes up to sweeps sweeps over the vertices in index order, each
@@ -51,8 +50,10 @@ const (
 func (g *guard) run(sweeps int, tol float64) int {
 	n := len(g.x)
 	unit := g.meanIdeal()
+	last := 0.0
 	for s := 0; s < sweeps; s++ {
 		moved := 0.0
+		g.mesh.LegalizeAll()
 		if g.margins {
 			g.findConflicts()
 		}
@@ -69,9 +70,21 @@ func (g *guard) run(sweeps int, tol float64) int {
 		if moved < tol*unit*float64(n) {
 			return s + 1
 		}
+		// Every stressCheck sweeps: stop when stress fell by less than
+		// tol in that time (a slow drift, or jumps back and forth).
+		if (s+1)%stressCheck == 0 {
+			st := g.model.Stress(g.x, g.y)
+			if last > 0 && st > float64((1-tol)*last) {
+				return s + 1
+			}
+			last = st
+		}
 	}
 	return sweeps
 }
+
+// stressCheck is how often, in sweeps, run weighs the stress.
+const stressCheck = 10
 
 // meanIdeal is the mean ideal edge length, recovered from the least
 // heights.
@@ -97,6 +110,16 @@ func (g *guard) step(v int32, tx, ty, w float64) float64 {
 		return 0
 	}
 	g.star(v)
+	if g.smooth(v) {
+		return 0
+	}
+	if ex, ey, ok := g.escapeTarget(v, tx, ty, w); ok {
+		tx, ty = ex, ey
+		dx, dy = tx-px, ty-py
+		if dist = hypot(dx, dy); dist == 0 {
+			return 0
+		}
+	}
 	limit := g.limit(px, py, dx, dy)
 	cost := func(t float64) float64 {
 		qx, qy := px+float64(t*dx), py+float64(t*dy)
@@ -106,8 +129,12 @@ func (g *guard) step(v int32, tx, ty, w float64) float64 {
 	here := cost(0)
 	bestT, bestCost := 0.0, here
 	for k, t := 0, limit; k < steps && t > 0; k, t = k+1, t/2 {
-		if c := cost(t); c < bestCost {
+		c := cost(t)
+		if c < bestCost {
 			bestT, bestCost = t, c
+		}
+		if k == 0 && g.barrier(v, w, px+float64(t*dx), py+float64(t*dy)) == 0 {
+			break // the majorant only falls toward the target: take it
 		}
 	}
 	if bestT < jumpShare && g.jump(v, px, py, tx, ty, w, here) {
@@ -115,7 +142,7 @@ func (g *guard) step(v int32, tx, ty, w float64) float64 {
 	}
 	for t := bestT; t > 0 && t >= bestT/16; t /= 2 {
 		qx, qy := px+float64(t*dx), py+float64(t*dy)
-		if g.mesh.CanMove(v, qx, qy) {
+		if g.keepsFloor(v, px, py, qx, qy) && g.mesh.CanMove(v, qx, qy) {
 			g.mesh.Move(v, qx, qy)
 			g.x[v], g.y[v] = qx, qy
 			g.mesh.Legalize(v)
@@ -123,6 +150,173 @@ func (g *guard) step(v int32, tx, ty, w float64) float64 {
 		}
 	}
 	return 0
+}
+
+// keepsFloor reports whether moving v from p to q keeps every height of
+// every triangle around it (each corner's distance from the opposite
+// side's line) and every neighbour's distance at least floorShare of the
+// corner's least height, or, where one is below that already, no lower
+// (the barrier is soft, and this keeps a crowded start from being pressed
+// flat by stress) — or else raises the worst of them, in proportion to
+// its floor.
+func (g *guard) keepsFloor(v int32, px, py, qx, qy float64) bool {
+	kept := true
+	worstBefore, worstAfter := math.Inf(1), math.Inf(1)
+	for _, c := range g.corner {
+		if c.Frame {
+			continue
+		}
+		a, b := c.A, c.B
+		ax, ay, bx, by := g.x[a], g.y[a], g.x[b], g.y[b]
+		heights := func(vx, vy float64) [4]float64 {
+			return [4]float64{
+				segmentDistance(vx, vy, ax, ay, bx, by), // v from a-b
+				segmentDistance(bx, by, vx, vy, ax, ay), // b from v-a
+				segmentDistance(ax, ay, vx, vy, bx, by), // a from v-b
+				hypot(vx-ax, vy-ay),                     // v to a
+			}
+		}
+		before, after := heights(px, py), heights(qx, qy)
+		floor := [4]float64{g.minHeight[v], g.minHeight[b], g.minHeight[a], g.minHeight[v]}
+		counts := [4]bool{c.AB, c.VA, c.VB, true}
+		for i := range after {
+			if !counts[i] {
+				continue
+			}
+			f := float64(floorShare * floor[i])
+			if after[i] < f && after[i] < before[i] {
+				kept = false
+			}
+			worstBefore = min(worstBefore, before[i]/f)
+			worstAfter = min(worstAfter, after[i]/f)
+		}
+	}
+	// A move that lowers some height below its floor is still taken when
+	// it raises the worst one: a crowded vertex must be able to get out.
+	return kept || (worstBefore < 1 && worstAfter > worstBefore)
+}
+
+// escapeTarget blends v's stress target (tx, ty, of weight w) with a
+// point clear of each side of its star that v is nearer than the barrier
+// allows (the foot of v on the side moved out to that distance) and of
+// each neighbour nearer than their least distance, each of weight w, so
+// that a vertex crowded by its own triangles moves out even when stress
+// would not move it that way. ok is false when nothing crowds v.
+func (g *guard) escapeTarget(v int32, tx, ty, w float64) (float64, float64, bool) {
+	px, py := g.x[v], g.y[v]
+	sx, sy, sw := float64(w*tx), float64(w*ty), w
+	crowded := false
+	for _, c := range g.corner {
+		if c.Frame {
+			continue
+		}
+		ax, ay, bx, by := g.x[c.A], g.y[c.A], g.x[c.B], g.y[c.B]
+		ex, ey := bx-ax, by-ay
+		l := hypot(ex, ey)
+		if l > 0 && c.AB {
+			need := g.minHeight[v]
+			if g.margins {
+				need = max(need, g.reachAcross(v, ex, ey))
+			}
+			if h := segmentDistance(px, py, ax, ay, bx, by); h < need && h > 0 {
+				// The nearest point of the edge, then out along the line
+				// from it to v.
+				t := min(1, max(0, (float64((px-ax)*ex)+float64((py-ay)*ey))/float64(l*l)))
+				fx, fy := ax+float64(t*ex), ay+float64(t*ey)
+				sx += float64(w * (fx + float64(need*(px-fx)/h)))
+				sy += float64(w * (fy + float64(need*(py-fy)/h)))
+				sw += w
+				crowded = true
+			}
+		}
+		ux, uy := px-ax, py-ay
+		d := hypot(ux, uy)
+		if need := g.minHeight[v] + g.minHeight[c.A]; d < need && d > 0 {
+			sx += float64(w * (ax + float64(need*ux/d)))
+			sy += float64(w * (ay + float64(need*uy/d)))
+			sw += w
+			crowded = true
+		}
+	}
+	if !crowded {
+		return tx, ty, false
+	}
+	return sx / sw, sy / sw, true
+}
+
+// smooth moves v, when some height of its triangles is below its floor
+// (floorShare of the least height: a crowded spot, often from a start
+// drawing that crowds), toward the centroid of its neighbours, the classic
+// smoothing of meshes, as far as the guard allows and only if that raises
+// its worst height; it reports whether v moved. Stress alone would leave
+// such a vertex where it is, since its target need not lead out.
+func (g *guard) smooth(v int32) bool {
+	px, py := g.x[v], g.y[v]
+	if g.worstHeight(v, px, py) >= 1 {
+		return false
+	}
+	var cx, cy float64
+	k := 0
+	for _, c := range g.corner {
+		if !c.Frame || c.A < int32(len(g.x)) {
+			if int(c.A) < len(g.x) {
+				cx += g.x[c.A]
+				cy += g.y[c.A]
+				k++
+			}
+		}
+	}
+	if k == 0 {
+		return false
+	}
+	cx, cy = cx/float64(k), cy/float64(k)
+	worst := g.worstHeight(v, px, py)
+	for t := 1.0; t >= 1.0/64; t /= 2 {
+		qx, qy := px+float64(t*(cx-px)), py+float64(t*(cy-py))
+		if g.worstHeight(v, qx, qy) > worst && g.mesh.CanMove(v, qx, qy) {
+			g.mesh.Move(v, qx, qy)
+			g.x[v], g.y[v] = qx, qy
+			g.mesh.Legalize(v)
+			return true
+		}
+	}
+	return false
+}
+
+// worstHeight is the least ratio, over the triangles around v at (vx, vy)
+// (g.corner), of a height (corner to opposite side, or v to a neighbour)
+// to its floor (floorShare of the corner's least height).
+func (g *guard) worstHeight(v int32, vx, vy float64) float64 {
+	worst := math.Inf(1)
+	for _, c := range g.corner {
+		if c.Frame {
+			continue
+		}
+		a, b := c.A, c.B
+		ax, ay, bx, by := g.x[a], g.y[a], g.x[b], g.y[b]
+		hs := [4]float64{segmentDistance(vx, vy, ax, ay, bx, by), segmentDistance(bx, by, vx, vy, ax, ay), segmentDistance(ax, ay, vx, vy, bx, by), hypot(vx-ax, vy-ay)}
+		fs := [4]float64{g.minHeight[v], g.minHeight[b], g.minHeight[a], g.minHeight[v]}
+		counts := [4]bool{c.AB, c.VA, c.VB, true}
+		for i := range hs {
+			if !counts[i] {
+				continue
+			}
+			worst = min(worst, hs[i]/float64(floorShare*fs[i]))
+		}
+	}
+	return worst
+}
+
+// crowding returns the least, over all vertices, of worstHeight: how near
+// the drawing comes to pressing a vertex onto an edge or another vertex,
+// in proportion to the floors.
+func (g *guard) crowding() float64 {
+	worst := math.Inf(1)
+	for v := range int32(len(g.x)) {
+		g.star(v)
+		worst = min(worst, g.worstHeight(v, g.x[v], g.y[v]))
+	}
+	return worst
 }
 
 // star loads v's triangles into g.corner.
@@ -175,23 +369,23 @@ func (g *guard) barrier(v int32, w, qx, qy float64) float64 {
 		}
 		a, b := c.A, c.B
 		ax, ay, bx, by := g.x[a], g.y[a], g.x[b], g.y[b]
-		area := float64((ax-qx)*(by-qy)) - float64((ay-qy)*(bx-qx))
-		// Each corner of the triangle beside the opposite side: a graph
-		// edge must stay clear; a free side only far enough that no
-		// triangle flattens.
-		side := func(p int32, fixed bool, ex, ey float64) {
-			need := float64(freeHeightShare * g.minHeight[p])
-			if fixed {
-				need = g.minHeight[p]
-				if g.margins {
-					need = max(need, g.reachAcross(p, ex, ey))
-				}
+		// Each corner of the triangle beside the opposite side, where that
+		// side is a graph edge, must stay clear of it. (Sides that are no
+		// edge do not matter: the triangulation is kept Delaunay, so a
+		// vertex near an edge has it among its own triangles' sides.)
+		side := func(p int32, fixed bool, px, py, sx, sy, ex, ey float64) {
+			if !fixed {
+				return
 			}
-			term(area/hypot(ex, ey), need)
+			need := g.minHeight[p]
+			if g.margins {
+				need = max(need, g.reachAcross(p, ex-sx, ey-sy))
+			}
+			term(segmentDistance(px, py, sx, sy, ex, ey), need)
 		}
-		side(v, c.AB, bx-ax, by-ay)
-		side(b, c.VA, ax-qx, ay-qy)
-		side(a, c.VB, bx-qx, by-qy)
+		side(v, c.AB, qx, qy, ax, ay, bx, by)
+		side(b, c.VA, bx, by, qx, qy, ax, ay)
+		side(a, c.VB, ax, ay, qx, qy, bx, by)
 		ex, ey := qx-ax, qy-ay
 		d := hypot(ex, ey)
 		need := g.minHeight[v] + g.minHeight[a]
@@ -248,6 +442,18 @@ func (g *guard) jump(v int32, px, py, tx, ty, w, here float64) bool {
 		return false
 	}
 	return true // cannot go back (a side exactly in the way): stay there
+}
+
+// segmentDistance is the distance from (px, py) to the segment from (ax,
+// ay) to (bx, by).
+func segmentDistance(px, py, ax, ay, bx, by float64) float64 {
+	ex, ey := bx-ax, by-ay
+	l2 := float64(ex*ex) + float64(ey*ey)
+	if l2 == 0 {
+		return hypot(px-ax, py-ay)
+	}
+	t := min(1, max(0, (float64((px-ax)*ex)+float64((py-ay)*ey))/l2))
+	return hypot(px-ax-float64(t*ex), py-ay-float64(t*ey))
 }
 
 // hypot is the length of (x, y), with no library function but the

@@ -3,6 +3,7 @@ package readable
 import (
 	"errors"
 	"math"
+	"time"
 
 	"github.com/gridwood/gridwood/place/mesh"
 	"github.com/gridwood/gridwood/place/stress"
@@ -24,6 +25,9 @@ type Input struct {
 	// 0..n-1, the same edges in any order), the one the start drawing
 	// has; else Draw embeds the graph itself.
 	Embedding *planarize.Embedding
+	// KeepOuter keeps the start drawing's outer face outer: only the
+	// start is refined, and no vertex jumps.
+	KeepOuter bool
 }
 
 // Options tune Draw. The zero value is the default.
@@ -45,18 +49,33 @@ type Output struct {
 	X, Y []float64
 	// Sweeps is the number of guarded sweeps made.
 	Sweeps int
-	// Reference is true when the unconstrained stress layout was itself
-	// plane and was kept.
-	Reference bool
+	// Chosen names the candidate kept: "follow" (near the reference, with
+	// an embedding that follows it), "near" (near the reference, with the
+	// start's embedding), "convex" (from a drawing with its outer face on
+	// a circle), "start", or "start as given".
+	Chosen string
+	// Phases lists what each phase did, for benchmarks and tests.
+	Phases []Phase
+	// Expanded is the factor the drawing was scaled up by before its boxes
+	// were cleared (1 if not).
+	Expanded float64
 	// Stress is the model's stress of the result (over the model's pairs),
 	// and StartStress that of the rescaled start.
 	Stress, StartStress float64
 }
 
-var errInput = errors.New("readable: bad input")
+// Phase is one phase of Draw: the sweeps it made, the model's stress
+// after it, and its time (which is never used to decide anything).
+type Phase struct {
+	Name        string
+	Sweeps      int
+	Stress      float64
+	Seconds     float64
+	LeastHeight float64 // of the Delaunay triangulation of the result
+	Stretch     float64 // the uniform stretch that would clear its boxes
+}
 
-// maxInflate caps the factor a cramped start is blown up by.
-const maxInflate = 1 << 20
+var errInput = errors.New("readable: bad input")
 
 // Draw makes the drawing readable (see the package documentation). The
 // start must be plane; Draw returns an error otherwise.
@@ -75,7 +94,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 	if n <= 2 {
 		return small(in, hw, hh), nil
 	}
-	lengths := idealLengths(in.Edges, hw, hh, in.Gap)
+	lengths := IdealLengths(in.Edges, hw, hh, in.Gap)
 	model, err := stress.NewModel(n, in.Edges, lengths, opt.Stress)
 	if err != nil {
 		return nil, err
@@ -84,103 +103,171 @@ func Draw(in Input, opt Options) (*Output, error) {
 	if work <= 0 {
 		work = DefaultWork
 	}
-	perSweep := int64(n) * int64(termsPerVertex(model))
+	perSweep := max(1, int64(n)*int64(termsPerVertex(model)))
+	sweepsFor := func(share float64) int { return int(max(minSweeps, float64(float64(work)*share)/float64(perSweep))) }
 	out := &Output{}
-
 	minHeight := minHeights(n, in.Edges, lengths)
 	newGuard := func(m *mesh.Mesh, x, y []float64) *guard {
-		return &guard{mesh: m, model: model, x: x, y: y, hw: hw, hh: hh, gap: in.Gap, edges: in.Edges, minHeight: minHeight, jumps: true}
+		return &guard{mesh: m, model: model, x: x, y: y, hw: hw, hh: hh, gap: in.Gap, edges: in.Edges, minHeight: minHeight, jumps: !in.KeepOuter}
+	}
+	phase := func(name string, sweeps int, x, y []float64, t time.Time) {
+		least := math.Inf(1)
+		if m, err := mesh.New(x, y, in.Edges, 0); err == nil {
+			least, _ = m.LeastHeight()
+		}
+		out.Phases = append(out.Phases, Phase{Name: name, Sweeps: sweeps, Stress: model.Stress(x, y), Seconds: time.Since(t).Seconds(), LeastHeight: least})
+		out.Sweeps += sweeps
 	}
 
 	// The unconstrained reference.
+	t := time.Now()
 	rx, ry := model.Start()
-	refSweeps := int(min(200, max(10, work/4/max(1, perSweep))))
-	model.Layout(rx, ry, refSweeps, 1e-4)
-	work -= int64(refSweeps) * perSweep
-	sweeps := int(max(1, work/2/max(1, perSweep)))
+	k := model.Layout(rx, ry, sweepsFor(referenceShare), 1e-4)
+	phase("reference", k, rx, ry, t)
 	reach := 2 * (extent(in.X, in.Y)*model.BestScale(in.X, in.Y) + 2*extent(rx, ry))
 
-	// Candidate 1: grown from the reference. Its edges go in shortest
-	// first as long as they cross nothing; the rest wait until moves have
-	// cleared their way.
+	// Candidates near the reference: a plane drawing with an embedding that
+	// follows the reference (or, failing that, the start's), refined.
 	var best *guard
 	bestStress := math.Inf(1)
-	var embs []*planarize.Embedding
-	if e, _, ok := Follow(rx, ry, in.Edges); ok {
-		embs = append(embs, e)
+	bestCrowded, bestStretch := true, math.Inf(1)
+	consider := func(name string, g *guard, sweeps int, t time.Time) {
+		k := g.run(sweeps, runTolerance)
+		phase(name, k, g.x, g.y, t)
+		// A drawing whose boxes would need much stretching to clear, at
+		// the scale where its edges have their ideal lengths (some spot
+		// pressed tight: the starts can be crowded, and descent need not
+		// undo all of it), is kept only if every other is too.
+		f := model.BestScale(g.x, g.y)
+		for v := range g.x {
+			g.x[v] *= f
+			g.y[v] *= f
+		}
+		g.mesh.Scale(f)
+		stretch := g.stretchNeeded()
+		out.Phases[len(out.Phases)-1].Stretch = stretch
+		crowded := stretch > maxStretch
+		st := model.Stress(g.x, g.y) // at the best scale: comparable
+		out.Phases[len(out.Phases)-1].Stress = st
+		better := best == nil || (bestCrowded && !crowded) ||
+			(!crowded && !bestCrowded && st < bestStress) ||
+			(crowded && bestCrowded && stretch < bestStretch)
+		if better {
+			best, bestStress, bestCrowded, bestStretch = g, st, crowded, stretch
+			out.Chosen = name
+		}
 	}
-	if in.Embedding != nil {
-		embs = append(embs, in.Embedding)
-	} else if e, ok := planarize.Embed(n, in.Edges); ok {
-		embs = append(embs, e)
-	}
-	for _, emb := range embs {
-		px, py, ok := nearPlane(rx, ry, in.Edges, emb, reach)
+	if !in.KeepOuter {
+		t = time.Now()
+		emb, _, ok := Follow(rx, ry, in.Edges)
+		name := "follow"
 		if !ok {
-			continue
+			emb, name = in.Embedding, "near"
+			if emb == nil {
+				emb, _ = planarize.Embed(n, in.Edges)
+			}
 		}
-		m, err := mesh.New(px, py, in.Edges, reach)
-		if err != nil {
-			continue
+		if px, py, ok := nearPlane(rx, ry, in.Edges, emb, reach); ok {
+			if m, err := mesh.New(px, py, in.Edges, reach); err == nil {
+				consider(name, newGuard(m, px, py), sweepsFor(candidateShare), t)
+			}
 		}
-		g := newGuard(m, px, py)
-		out.Sweeps += g.run(sweeps, 1e-4)
-		if st := model.Stress(g.x, g.y); st < bestStress {
-			best, bestStress = g, st
-			out.Reference = true
+		if best == nil || name != "follow" || n <= tryAllLimit {
+			t = time.Now()
+			length := make(map[[2]int32]float64, len(in.Edges))
+			for i, e := range in.Edges {
+				length[[2]int32{min(e[0], e[1]), max(e[0], e[1])}] = lengths[i]
+			}
+			// Of the solves (weights from the reference or equal; the outer
+			// face the reference's or a longest), the one of lower stress
+			// at its best scale.
+			var cx, cy []float64
+			cs := math.Inf(1)
+			for _, variant := range [4][2]bool{{false, false}, {true, false}, {false, true}, {true, true}} {
+				px, py, ok := convexStart(emb, rx, ry, length, variant[0], variant[1])
+				if !ok {
+					continue
+				}
+				s := model.BestScale(px, py)
+				for v := range px {
+					px[v] *= s
+					py[v] *= s
+				}
+				if _, err := mesh.New(px, py, in.Edges, 0); err != nil {
+					continue
+				}
+				if st := model.Stress(px, py); st < cs {
+					cx, cy, cs = px, py, st
+				}
+			}
+			if cx != nil {
+				if m, err := mesh.New(cx, cy, in.Edges, 2*reach); err == nil {
+					consider("convex", newGuard(m, cx, cy), sweepsFor(candidateShare), t)
+				}
+			}
 		}
 	}
 
-	// Candidate 2: the plane start, at the model's best scale, blown up
-	// until no vertex is nearer a side of its triangles than its least
-	// height (grid drawings are cramped): the guard then never has to let
-	// a vertex nearer, and stress shrinks the rest.
+	// The plane start, at the model's best scale: tried when nothing else
+	// worked, or only crowded drawings.
 	x := append([]float64(nil), in.X...)
 	y := append([]float64(nil), in.Y...)
-	s := model.BestScale(x, y)
+	// Never shrunk: the start's own clearances are what keep it clear of
+	// crowding, and stress shrinks what can be shrunk.
+	s := max(1, model.BestScale(x, y))
 	for v := range n {
 		x[v] *= s
 		y[v] *= s
 	}
 	out.StartStress = model.Stress(x, y)
-	startMesh, err := mesh.New(x, y, in.Edges, reach)
-	if err != nil {
-		return nil, err
-	}
-	inflate := 1.0
-	for v := range int32(n) {
-		if h := startMesh.Height(v); h > 0 {
-			inflate = max(inflate, minHeight[v]/h)
-		}
-	}
-	if inflate > 1 && false {
-		inflate = min(inflate*1.01, maxInflate)
-		for v := range n {
-			x[v] *= inflate
-			y[v] *= inflate
-		}
-		if startMesh, err = mesh.New(x, y, in.Edges, reach*inflate); err != nil {
+	if best == nil || bestCrowded {
+		t = time.Now()
+		m, err := mesh.New(x, y, in.Edges, reach)
+		if err != nil {
 			return nil, err
 		}
+		consider("start", newGuard(m, x, y), sweepsFor(candidateShare), t)
 	}
-	g := newGuard(startMesh, x, y)
-	out.Sweeps += g.run(sweeps, 1e-4)
-	if st := model.Stress(g.x, g.y); st < bestStress {
-		best, bestStress = g, st
-		out.Reference = false
+	if bestStress > out.StartStress && !bestCrowded {
+		// Never worse than the start itself (unless that is crowded).
+		m, err := mesh.New(x, y, in.Edges, reach)
+		if err != nil {
+			return nil, err
+		}
+		best, bestStress, out.Chosen = newGuard(m, x, y), out.StartStress, "start as given"
 	}
+
 	// Then the boxes: the same descent with the barrier keeping boxes, not
 	// points, off each other and off the edges.
+	t = time.Now()
 	best.margins = true
-	k := best.run(marginSweeps, 1e-4)
-	out.Sweeps += k
+	out.Expanded = best.expand()
+	k = best.run(sweepsFor(marginShare), runTolerance)
+	phase("margins", k, best.x, best.y, t)
 	out.X, out.Y = best.x, best.y
 	out.Stress = model.Stress(best.x, best.y)
 	return out, nil
 }
 
-// marginSweeps bounds the sweeps that clear the boxes.
-const marginSweeps = 100
+// Shares of the work bound (Options.Work): the reference layout, each
+// candidate's descent and the margins. minSweeps is the least any gets;
+// graphs of up to tryAllLimit vertices try the start as a candidate even
+// when a drawing near the reference was found.
+const (
+	referenceShare = 0.25
+	candidateShare = 0.3
+	marginShare    = 0.15
+	minSweeps      = 10
+	tryAllLimit    = 300
+	// runTolerance: a descent stops once a sweep moves its vertices less
+	// than this share of an ideal edge length on average.
+	runTolerance = 1e-3
+	// maxStretch: a candidate whose boxes would need a greater uniform
+	// stretch to clear (at its best scale) counts as crowded. Of the
+	// candidates that are not, the least stress wins; if all are, the
+	// least stretch.
+	maxStretch = 3
+)
 
 // small places one vertex at the origin, or two side by side at their
 // ideal distance.
@@ -193,11 +280,11 @@ func small(in Input, hw, hh []float64) *Output {
 	return out
 }
 
-// idealLengths gives each edge the length at which its two boxes sit a
+// IdealLengths gives each edge the length at which its two boxes sit a
 // comfortable distance apart: the sum of their half diagonals' mean with
 // their larger half sides, plus the gap (so that default DOT boxes, 0.75 x
 // 0.5 in, sit about one and a third box widths apart centre to centre).
-func idealLengths(edges [][2]int32, hw, hh []float64, gap float64) []float64 {
+func IdealLengths(edges [][2]int32, hw, hh []float64, gap float64) []float64 {
 	lengths := make([]float64, len(edges))
 	reach := func(v int32) float64 {
 		diag := math.Sqrt(float64(hw[v]*hw[v]) + float64(hh[v]*hh[v]))

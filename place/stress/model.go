@@ -17,7 +17,7 @@ type Options struct {
 }
 
 const (
-	defaultFullLimit = 1500
+	defaultFullLimit = 400
 	defaultPivots    = 100
 )
 
