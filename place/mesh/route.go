@@ -394,4 +394,3 @@ func (m *Mesh) Rings(fn func(v int32, ring []int32)) {
 		fn(v, ring)
 	}
 }
-

@@ -418,4 +418,3 @@ func shortestFirst(x, y []float64, edges [][2]int32) [][2]int32 {
 	}
 	return sorted
 }
-
