@@ -3,7 +3,6 @@ package place
 import (
 	"errors"
 	"math"
-	"os"
 
 	"github.com/gridwood/gridwood/place/mesh"
 	"github.com/gridwood/gridwood/place/readable"
@@ -116,12 +115,6 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 		return err
 	}
 	out.Readable++
-	if debugReadable {
-		println("chosen", res.Chosen)
-		for _, ph := range res.Phases {
-			println(" ", ph.Name, ph.Sweeps, ph.Stress, ph.Stretch)
-		}
-	}
 	// To integer points: round, check plane exactly, stretch to clear the
 	// boxes; each scaling of the float drawing keeps it plane, and a
 	// rounding that is not is tried again at twice the scale.
@@ -148,9 +141,6 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 		if !checked {
 			out.Unchecked++
 		}
-		if debugReadable {
-			println("  round attempt", attempt, scale, s)
-		}
 		if s <= 1 {
 			break
 		}
@@ -158,5 +148,3 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	}
 	return nil
 }
-
-var debugReadable = os.Getenv("GWDEBUG") != ""

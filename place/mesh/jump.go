@@ -27,19 +27,23 @@ func (m *Mesh) Jump(v int32, x, y float64) bool {
 	px, py := m.x[v], m.y[v]
 	t, ok := m.remove(v)
 	if !ok {
-		// No ear to cut (cannot happen for a vertex inside its star):
-		// triangulate the drawing with v at its new place from scratch.
-		m.rebuildWith(v, x, y)
-		return true
+		// No ear to cut (a star too flat to tell): triangulate the
+		// drawing with v at its new place from scratch, or failing that
+		// at its old one.
+		if m.rebuildWith(v, x, y) {
+			return true
+		}
+		m.restore(v, px, py)
+		return false
 	}
 	m.x[v], m.y[v] = x, y
 	if _, err := m.insert(v, t); err != nil {
-		m.rebuildWith(v, px, py)
+		m.restore(v, px, py)
 		return false
 	}
 	for _, w := range around {
 		if err := m.constrain(v, w); err != nil {
-			m.rebuildWith(v, px, py)
+			m.restore(v, px, py)
 			return false
 		}
 	}
@@ -227,21 +231,34 @@ func (m *Mesh) remove(v int32) (int32, bool) {
 	return t, true
 }
 
-// rebuildWith puts v back at (px, py) and triangulates the drawing anew:
-// the way out when a jump that its checks allowed fails midway, which
-// would be a bug.
-func (m *Mesh) rebuildWith(v int32, px, py float64) {
-	m.x[v], m.y[v] = px, py
+// rebuildWith triangulates the drawing anew with v at (px, py) and
+// reports whether that drawing is plane (the mesh is unchanged if not):
+// the way out when a jump that its checks allowed fails midway.
+func (m *Mesh) rebuildWith(v int32, px, py float64) bool {
 	n := m.n
+	x := append([]float64(nil), m.x[:n]...)
+	y := append([]float64(nil), m.y[:n]...)
+	x[v], y[v] = px, py
 	fx := [3]float64{m.x[n], m.x[n+1], m.x[n+2]}
 	fy := [3]float64{m.y[n], m.y[n+1], m.y[n+2]}
-	fresh, _, err := build(m.x[:n], m.y[:n], m.edges, fx, fy, false)
+	fresh, _, err := build(x, y, m.edges, fx, fy, false)
 	if err != nil {
-		// The positions are those of a plane drawing the mesh held a
-		// moment ago, inside the same frame: this cannot fail.
-		panic("mesh: cannot restore the drawing after a failed jump: " + err.Error())
+		return false
 	}
 	*m = *fresh
+	return true
+}
+
+// restore puts v back at (px, py), where the drawing was plane a moment
+// ago, and triangulates it anew. Should even that fail (it cannot: the
+// positions are those the mesh held, inside the same frame), the mesh is
+// marked broken and refuses every move from then on, so that the drawing
+// stays as it was.
+func (m *Mesh) restore(v int32, px, py float64) {
+	if !m.rebuildWith(v, px, py) {
+		m.x[v], m.y[v] = px, py
+		m.tangled = true
+	}
 }
 
 func orientAt(ax, ay, bx, by, cx, cy float64) int { return exact.Orient(ax, ay, bx, by, cx, cy) }

@@ -26,10 +26,10 @@ func (m *Mesh) Route(u, v, afterU, afterV int32) bool {
 	}
 	// A shortest corridor through the face: the dual graph of a face's
 	// triangles is a tree, so within a face the corridor is the only one.
-	path := m.dualPath(m.sector(u, afterU), m.sector(v, afterV))
+	path := m.dualPath(u, v, m.sector(u, afterU), m.sector(v, afterV))
 	if path == nil && (afterU >= 0 || afterV >= 0) {
 		// The corners asked for lie on different faces: any will do.
-		path = m.dualPath(m.sector(u, -1), m.sector(v, -1))
+		path = m.dualPath(u, v, m.sector(u, -1), m.sector(v, -1))
 	}
 	if path == nil {
 		return false
@@ -238,9 +238,10 @@ func (m *Mesh) cornerTriangle(v int32, c Corner) int32 {
 }
 
 // dualPath returns a shortest sequence of triangles, the first among from
-// and the last among to, each across a free side from the one before;
-// nil if there is none.
-func (m *Mesh) dualPath(from, to []int32) []int32 {
+// (triangles at u) and the last among to (at v), each across a free side
+// from the one before, and none other at u or v (the corridor would meet
+// them twice); nil if there is none.
+func (m *Mesh) dualPath(u, v int32, from, to []int32) []int32 {
 	prev := map[int32]int32{}
 	target := map[int32]bool{}
 	for _, t := range to {
@@ -271,6 +272,9 @@ func (m *Mesh) dualPath(from, to []int32) []int32 {
 				continue
 			}
 			if _, seen := prev[nb]; seen {
+				continue
+			}
+			if !target[nb] && (m.corner(nb, u) >= 0 || m.corner(nb, v) >= 0) {
 				continue
 			}
 			prev[nb] = t

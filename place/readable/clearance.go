@@ -197,32 +197,6 @@ func (g *guard) conflictBarrier(v int32, term func(h, need float64), qx, qy floa
 	}
 }
 
-// expand scales the whole drawing up by the factor that clears all but
-// the tightest tenth of its conflicts (each conflict's own factor: the
-// scale at which its two boxes, or its box and edge, part), when that is
-// more than 1, and returns the factor. A drawing whose boxes crowd each
-// other all over cannot be cleared by moving vertices one at a time, as
-// every move meets as many conflicts as it clears; after the expansion
-// the margins phase has only the tightest few left to clear.
-func (g *guard) expand() float64 {
-	need := g.conflictFactors()
-	if len(need) == 0 {
-		return 1
-	}
-	slices.Sort(need)
-	f := need[int(float64(len(need))*expandShare)]
-	if !(f > 1) || math.IsInf(f, 0) {
-		return 1
-	}
-	f = min(f, maxExpand)
-	g.mesh.Scale(f)
-	for v := range g.x {
-		g.x[v] *= f
-		g.y[v] *= f
-	}
-	return f
-}
-
 // stretchNeeded is the uniform scale that clears every conflict of the
 // drawing (1 if none): how much bigger it must grow to clear its boxes.
 func (g *guard) stretchNeeded() float64 {
@@ -267,9 +241,93 @@ func (g *guard) conflictFactors() []float64 {
 	return need
 }
 
-// expandShare is the share of conflicts expand clears by scaling;
-// maxExpand caps its factor.
+// inflateCrowded blows up, each about its centroid, the parts of the
+// drawing (joined by edges) whose vertices have a conflict that would need
+// the whole drawing stretched by more than inflateAbove to clear, each by
+// the largest such stretch of its own (at most maxInflate), as far as the
+// drawing stays plane (see blowUp). A few tight spots then cost room where
+// they are, not a stretch of everything.
+func (g *guard) inflateCrowded() bool {
+	n := len(g.x)
+	factor := make([]float64, n)
+	g.findConflicts()
+	for v, cs := range g.conflicts {
+		for _, c := range cs {
+			var f float64
+			if c.w >= 0 {
+				dx, dy := math.Abs(g.x[v]-g.x[c.w]), math.Abs(g.y[v]-g.y[c.w])
+				f = math.Inf(1)
+				if dx > 0 {
+					f = (g.hw[v] + g.hw[c.w] + g.gap) / dx
+				}
+				if dy > 0 {
+					f = min(f, (g.hh[v]+g.hh[c.w]+g.gap)/dy)
+				}
+				factor[c.w] = max(factor[c.w], f)
+			} else {
+				a, b := c.edge[0], c.edge[1]
+				f = math.Inf(1)
+				if d := segmentDistance(g.x[v], g.y[v], g.x[a], g.y[a], g.x[b], g.y[b]); d > 0 {
+					f = g.reachAcross(int32(v), g.x[b]-g.x[a], g.y[b]-g.y[a]) / d
+				}
+				factor[a], factor[b] = max(factor[a], f), max(factor[b], f)
+			}
+			factor[v] = max(factor[v], f)
+		}
+	}
+	parent := make([]int32, n)
+	for v := range parent {
+		parent[v] = int32(v)
+	}
+	find := func(v int32) int32 {
+		for parent[v] != v {
+			parent[v] = parent[parent[v]]
+			v = parent[v]
+		}
+		return v
+	}
+	any := false
+	for _, e := range g.edges {
+		if factor[e[0]] > inflateAbove && factor[e[1]] > inflateAbove {
+			parent[find(e[0])] = find(e[1])
+			any = true
+		}
+	}
+	if !any {
+		return false
+	}
+	members := map[int32][]int32{}
+	var roots []int32
+	for v := range int32(n) {
+		if factor[v] > inflateAbove {
+			r := find(v)
+			if len(members[r]) == 0 {
+				roots = append(roots, r)
+			}
+			members[r] = append(members[r], v)
+		}
+	}
+	slices.Sort(roots)
+	var parts [][]int32
+	var factors []float64
+	for _, r := range roots {
+		vs := members[r]
+		if len(vs) < 2 {
+			continue
+		}
+		f := 1.0
+		for _, v := range vs {
+			f = max(f, factor[v])
+		}
+		parts = append(parts, vs)
+		factors = append(factors, min(f, maxInflate))
+	}
+	return g.blowUp(parts, factors, g.reach)
+}
+
+// Parts whose conflicts need more than inflateAbove to clear are blown up
+// (by at most maxInflate at a time).
 const (
-	expandShare = 0.9
-	maxExpand   = 16
+	inflateAbove = 1.5
+	maxInflate   = 8
 )

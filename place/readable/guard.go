@@ -27,6 +27,10 @@ type guard struct {
 	// conflicts lists, with margins, the boxes and edges too near each
 	// vertex's box (see findConflicts), found anew every sweep.
 	conflicts [][]conflict
+	// lengths are the edges' ideal lengths, and reach the frame's reach
+	// when the triangulation is rebuilt (see uncrush).
+	lengths []float64
+	reach   float64
 }
 
 // Move rules: a vertex's least height is minHeightShare of its edges'
@@ -53,6 +57,11 @@ func (g *guard) run(sweeps int, tol float64) int {
 	last := 0.0
 	for s := 0; s < sweeps; s++ {
 		moved := 0.0
+		if s%uncrushEvery == 0 {
+			if (!g.margins && g.uncrush(g.lengths, g.reach)) || (g.margins && g.inflateCrowded()) {
+				last = 0
+			}
+		}
 		g.mesh.LegalizeAll()
 		if g.margins {
 			g.findConflicts()
@@ -83,8 +92,12 @@ func (g *guard) run(sweeps int, tol float64) int {
 	return sweeps
 }
 
-// stressCheck is how often, in sweeps, run weighs the stress.
-const stressCheck = 10
+// stressCheck is how often, in sweeps, run weighs the stress, and
+// uncrushEvery how often it looks for crushed parts.
+const (
+	stressCheck  = 10
+	uncrushEvery = 20
+)
 
 // meanIdeal is the mean ideal edge length, recovered from the least
 // heights.
@@ -157,11 +170,9 @@ func (g *guard) step(v int32, tx, ty, w float64) float64 {
 // side's line) and every neighbour's distance at least floorShare of the
 // corner's least height, or, where one is below that already, no lower
 // (the barrier is soft, and this keeps a crowded start from being pressed
-// flat by stress) — or else raises the worst of them, in proportion to
-// its floor.
+// flat by stress, by one vertex's moves or by two taking turns).
 func (g *guard) keepsFloor(v int32, px, py, qx, qy float64) bool {
 	kept := true
-	worstBefore, worstAfter := math.Inf(1), math.Inf(1)
 	for _, c := range g.corner {
 		if c.Frame {
 			continue
@@ -187,21 +198,19 @@ func (g *guard) keepsFloor(v int32, px, py, qx, qy float64) bool {
 			if after[i] < f && after[i] < before[i] {
 				kept = false
 			}
-			worstBefore = min(worstBefore, before[i]/f)
-			worstAfter = min(worstAfter, after[i]/f)
 		}
 	}
-	// A move that lowers some height below its floor is still taken when
-	// it raises the worst one: a crowded vertex must be able to get out.
-	return kept || (worstBefore < 1 && worstAfter > worstBefore)
+	return kept
 }
 
 // escapeTarget blends v's stress target (tx, ty, of weight w) with a
-// point clear of each side of its star that v is nearer than the barrier
-// allows (the foot of v on the side moved out to that distance) and of
-// each neighbour nearer than their least distance, each of weight w, so
-// that a vertex crowded by its own triangles moves out even when stress
-// would not move it that way. ok is false when nothing crowds v.
+// point clear of each edge of its star that v is nearer than the barrier
+// allows (the nearest point of the edge moved out to that distance), of
+// each neighbour nearer than their least distance, and for each edge at v
+// with a vertex beside it too near, a point across that swings the edge
+// away, each of weight w: a vertex crowded by its triangles moves out, and
+// one whose edges crowd others makes room, even where stress would not
+// move it that way. ok is false when nothing crowds v.
 func (g *guard) escapeTarget(v int32, tx, ty, w float64) (float64, float64, bool) {
 	px, py := g.x[v], g.y[v]
 	sx, sy, sw := float64(w*tx), float64(w*ty), w
@@ -234,6 +243,42 @@ func (g *guard) escapeTarget(v int32, tx, ty, w float64) (float64, float64, bool
 		if need := g.minHeight[v] + g.minHeight[c.A]; d < need && d > 0 {
 			sx += float64(w * (ax + float64(need*ux/d)))
 			sy += float64(w * (ay + float64(need*uy/d)))
+			sw += w
+			crowded = true
+		}
+		// An edge of v's, v-a, with the next corner b too near it: move v
+		// across so that the edge swings away from b (the nearer b lies to
+		// a, the further v must go).
+		for _, sp := range [2]struct {
+			fixed bool
+			a, b  int32
+		}{{c.VA, c.A, c.B}, {c.VB, c.B, c.A}} {
+			if !sp.fixed {
+				continue
+			}
+			ax, ay, bx, by := g.x[sp.a], g.y[sp.a], g.x[sp.b], g.y[sp.b]
+			h := segmentDistance(bx, by, px, py, ax, ay)
+			need := g.minHeight[sp.b]
+			if g.margins {
+				need = max(need, g.reachAcross(sp.b, ax-px, ay-py))
+			}
+			if h >= need {
+				continue
+			}
+			ex, ey := px-ax, py-ay
+			l := hypot(ex, ey)
+			if l == 0 {
+				continue
+			}
+			// Unit normal of the edge, pointing away from b.
+			nx, ny := -ey/l, ex/l
+			if float64((bx-ax)*nx)+float64((by-ay)*ny) > 0 {
+				nx, ny = -nx, -ny
+			}
+			along := max(0.25*l, float64((bx-ax)*ex)/l+float64((by-ay)*ey)/l)
+			push := min(4*l, float64((need-h)*l)/along)
+			sx += float64(w * (px + float64(push*nx)))
+			sy += float64(w * (py + float64(push*ny)))
 			sw += w
 			crowded = true
 		}
@@ -273,7 +318,7 @@ func (g *guard) smooth(v int32) bool {
 	worst := g.worstHeight(v, px, py)
 	for t := 1.0; t >= 1.0/64; t /= 2 {
 		qx, qy := px+float64(t*(cx-px)), py+float64(t*(cy-py))
-		if g.worstHeight(v, qx, qy) > worst && g.mesh.CanMove(v, qx, qy) {
+		if g.worstHeight(v, qx, qy) > worst && g.keepsFloor(v, px, py, qx, qy) && g.mesh.CanMove(v, qx, qy) {
 			g.mesh.Move(v, qx, qy)
 			g.x[v], g.y[v] = qx, qy
 			g.mesh.Legalize(v)

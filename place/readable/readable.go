@@ -51,14 +51,12 @@ type Output struct {
 	Sweeps int
 	// Chosen names the candidate kept: "follow" (near the reference, with
 	// an embedding that follows it), "near" (near the reference, with the
-	// start's embedding), "convex" (from a drawing with its outer face on
-	// a circle), "start", or "start as given".
+	// start's embedding), "unfolded" (near a stress layout grown from the
+	// start), "convex" (from a drawing with its outer face on a circle),
+	// "start", or "start as given".
 	Chosen string
 	// Phases lists what each phase did, for benchmarks and tests.
 	Phases []Phase
-	// Expanded is the factor the drawing was scaled up by before its boxes
-	// were cleared (1 if not).
-	Expanded float64
 	// Stress is the model's stress of the result (over the model's pairs),
 	// and StartStress that of the rescaled start.
 	Stress, StartStress float64
@@ -107,8 +105,9 @@ func Draw(in Input, opt Options) (*Output, error) {
 	sweepsFor := func(share float64) int { return int(max(minSweeps, float64(float64(work)*share)/float64(perSweep))) }
 	out := &Output{}
 	minHeight := minHeights(n, in.Edges, lengths)
+	var reach float64 // set once the reference is known
 	newGuard := func(m *mesh.Mesh, x, y []float64) *guard {
-		return &guard{mesh: m, model: model, x: x, y: y, hw: hw, hh: hh, gap: in.Gap, edges: in.Edges, minHeight: minHeight, jumps: !in.KeepOuter}
+		return &guard{mesh: m, model: model, x: x, y: y, hw: hw, hh: hh, gap: in.Gap, edges: in.Edges, minHeight: minHeight, jumps: !in.KeepOuter, lengths: lengths, reach: reach}
 	}
 	phase := func(name string, sweeps int, x, y []float64, t time.Time) {
 		least := math.Inf(1)
@@ -124,7 +123,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 	rx, ry := model.Start()
 	k := model.Layout(rx, ry, sweepsFor(referenceShare), 1e-4)
 	phase("reference", k, rx, ry, t)
-	reach := 2 * (extent(in.X, in.Y)*model.BestScale(in.X, in.Y) + 2*extent(rx, ry))
+	reach = 2 * (extent(in.X, in.Y)*model.BestScale(in.X, in.Y) + 2*extent(rx, ry))
 
 	// Candidates near the reference: a plane drawing with an embedding that
 	// follows the reference (or, failing that, the start's), refined.
@@ -170,6 +169,27 @@ func Draw(in Input, opt Options) (*Output, error) {
 		if px, py, ok := nearPlane(rx, ry, in.Edges, emb, reach); ok {
 			if m, err := mesh.New(px, py, in.Edges, reach); err == nil {
 				consider(name, newGuard(m, px, py), sweepsFor(candidateShare), t)
+			}
+		}
+		if name != "follow" {
+			// The reference folds where no plane drawing can follow it.
+			// A second one, grown from the plane start instead of from
+			// pivots, keeps the start's unfolded shape where stress allows.
+			t = time.Now()
+			ux := append([]float64(nil), in.X...)
+			uy := append([]float64(nil), in.Y...)
+			s := model.BestScale(ux, uy)
+			for v := range ux {
+				ux[v] *= s
+				uy[v] *= s
+			}
+			model.Layout(ux, uy, sweepsFor(referenceShare), 1e-4)
+			if e2, _, ok := Follow(ux, uy, in.Edges); ok {
+				if px, py, ok := nearPlane(ux, uy, in.Edges, e2, reach); ok {
+					if m, err := mesh.New(px, py, in.Edges, reach); err == nil {
+						consider("unfolded", newGuard(m, px, py), sweepsFor(candidateShare), t)
+					}
+				}
 			}
 		}
 		if best == nil || name != "follow" || n <= tryAllLimit {
@@ -241,7 +261,6 @@ func Draw(in Input, opt Options) (*Output, error) {
 	// points, off each other and off the edges.
 	t = time.Now()
 	best.margins = true
-	out.Expanded = best.expand()
 	k = best.run(sweepsFor(marginShare), runTolerance)
 	phase("margins", k, best.x, best.y, t)
 	out.X, out.Y = best.x, best.y
@@ -266,7 +285,7 @@ const (
 	// stretch to clear (at its best scale) counts as crowded. Of the
 	// candidates that are not, the least stress wins; if all are, the
 	// least stretch.
-	maxStretch = 3
+	maxStretch = 30
 )
 
 // small places one vertex at the origin, or two side by side at their

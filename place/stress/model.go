@@ -39,6 +39,12 @@ type Model struct {
 	pivDist   []float32
 	pivWeight []float32
 	pivOf     []int32 // index in pivots of each vertex that is one, else -1
+	// sibling holds, per vertex, up to two vertices two steps away: those
+	// next to it around its first neighbour, with the length of the path
+	// through that neighbour. Without them, vertices the pivots cannot
+	// tell apart (leaves of one parent) would all go to one point.
+	sibling     [][2]int32
+	siblingDist [][2]float64
 }
 
 // ErrDisconnected is returned for a graph that is not connected.
@@ -106,6 +112,7 @@ func NewModel(n int, edges [][2]int32, lengths []float64, opt Options) (*Model, 
 		return m, nil
 	}
 	m.sparse(min(opt.Pivots, n), sp)
+	m.siblings()
 	return m, nil
 }
 
@@ -200,6 +207,36 @@ func (m *Model) sparse(k int, sp *paths) {
 	}
 }
 
+// siblings fills sibling and siblingDist (see Model).
+func (m *Model) siblings() {
+	n := m.n
+	m.sibling = make([][2]int32, n)
+	m.siblingDist = make([][2]float64, n)
+	for v := range int32(n) {
+		m.sibling[v] = [2]int32{-1, -1}
+		if m.start[v] == m.start[v+1] {
+			continue
+		}
+		p, lvp := m.adj[m.start[v]], m.length[m.start[v]]
+		lo, hi := m.start[p], m.start[p+1]
+		deg := hi - lo
+		if deg < 2 {
+			continue
+		}
+		at := lo
+		for at < hi && m.adj[at] != v {
+			at++
+		}
+		for k, step := range [2]int32{deg - 1, 1} {
+			i := lo + (at-lo+step)%deg
+			if w := m.adj[i]; w != v {
+				m.sibling[v][k] = w
+				m.siblingDist[v][k] = lvp + m.length[i]
+			}
+		}
+	}
+}
+
 func argmax(d []float64) int {
 	best := 0
 	for v, dv := range d {
@@ -250,6 +287,12 @@ func (m *Model) TargetWeight(v int32, x, y []float64) (tx, ty, w float64, ok boo
 		for i := m.start[v]; i < m.start[v+1]; i++ {
 			l := m.length[i]
 			term(m.adj[i], l, 1/float64(l*l))
+		}
+		for k, w := range m.sibling[v] {
+			if w >= 0 {
+				d := m.siblingDist[v][k]
+				term(w, d, 1/float64(d*d))
+			}
 		}
 		n := m.n
 		for p, pv := range m.pivots {

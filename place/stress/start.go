@@ -70,6 +70,19 @@ func (m *Model) Start() (x, y []float64) {
 		}
 		x[v], y[v] = sx, sy
 	}
+	// Vertices the pivots cannot tell apart (leaves of one parent, say)
+	// get one position, and majorization never separates vertices at one
+	// point: nudge every vertex by a small fixed offset of its own.
+	spread := 0.0
+	for v := range n {
+		spread = max(spread, math.Abs(x[v]), math.Abs(y[v]))
+	}
+	nudge := 1e-3 * max(spread, 1) / math.Sqrt(float64(n))
+	for v := range n {
+		a, b := jitter(uint64(v))
+		x[v] += float64(nudge * a)
+		y[v] += float64(nudge * b)
+	}
 	if s := m.BestScale(x, y); s > 0 && s != 1 {
 		for v := range n {
 			x[v] *= s
@@ -161,4 +174,14 @@ func leadingPair(b []float64, k int) (e1, e2 []float64) {
 		e2, t2 = t2, e2
 	}
 	return e1, e2
+}
+
+// jitter returns two numbers in [-1, 1) determined by i alone (a
+// splitmix64 hash of it).
+func jitter(i uint64) (float64, float64) {
+	z := i + 0x9e3779b97f4a7c15
+	z = (z ^ z>>30) * 0xbf58476d1ce4e5b9
+	z = (z ^ z>>27) * 0x94d049bb133111eb
+	z ^= z >> 31
+	return float64(z>>40)/float64(1<<23) - 1, float64(z&0xffffff)/float64(1<<23) - 1
 }
