@@ -9,11 +9,12 @@ import (
 )
 
 // maxRoundings bounds the scalings tried when rounding a readable drawing
-// to integer points, and maxReadableScale the scale: past either, the
-// drawing is too crowded somewhere to keep (errCrowded).
+// to integer points, and maxReadableGrowth the sides of the result, as a
+// multiple of the spaced drawing's (its area by the square): past either, the drawing is too
+// crowded somewhere to keep (errCrowded).
 const (
-	maxRoundings     = 40
-	maxReadableScale = 64
+	maxRoundings      = 40
+	maxReadableGrowth = 2
 )
 
 var errCrowded = errors.New("place: the readable drawing is crowded")
@@ -33,10 +34,11 @@ type ReadableOptions struct {
 // layout), with ideal edge lengths from the node boxes. Its result is
 // rounded to integer points, checked exactly to be plane, and stretched by
 // the least factor that clears every box (as Space does) where the stage
-// left a box too near; a component whose drawing would need more than
-// maxReadableScale for that keeps its spaced drawing (counted in
-// Placed.Crowded). Components are then packed in rows. Draw must have
-// been run with DrawOptions.Readable.
+// left a box too near; a component whose drawing would then take more
+// than maxReadableGrowth^2 times the area of its spaced drawing keeps the
+// spaced drawing (counted in Placed.Unrefined), as does one of more than
+// readableMaxVertices vertices. Components are then packed in rows. Draw
+// must have been run with DrawOptions.Readable.
 func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 	sp, err := r.Space(b, SpaceOptions{})
 	if err != nil {
@@ -61,13 +63,16 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 		for _, v := range vs {
 			px[v], py[v] = sx[v], sy[v]
 		}
-		if len(vs) >= 3 {
+		switch {
+		case len(vs) > readableMaxVertices:
+			out.Unrefined++
+		case len(vs) >= 3:
 			err := r.readableComponent(vs, edgesOf[c], sx, sy, hw, hh, gap, opt, px, py, stamp, out)
 			if errors.Is(err, errCrowded) {
 				for _, v := range vs {
 					px[v], py[v] = sx[v], sy[v]
 				}
-				out.Crowded++
+				out.Unrefined++
 				err = nil
 			}
 			if err != nil {
@@ -94,6 +99,11 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 // readableComponent draws the component with vertices vs and kept edges
 // (Draw's numbering), spaced at sx, sy, by the readable stage, and writes
 // its integer points into px, py.
+// readableMaxVertices bounds the components the readable stage draws:
+// larger ones keep their spaced grid drawing (Placed.Unrefined), since
+// the stage's cost per vertex would take them past a few seconds.
+const readableMaxVertices = 20000
+
 func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh []int64, gap int64, opt ReadableOptions, px, py []int64, stamp []int32, out *Placed) error {
 	emb, _ := r.keptEmb.Restrict(vs)
 	k := len(vs)
@@ -114,13 +124,21 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	if err != nil {
 		return err
 	}
+	if res.Crowded {
+		return errCrowded
+	}
 	out.Readable++
 	// To integer points: round, check plane exactly, stretch to clear the
 	// boxes; each scaling of the float drawing keeps it plane, and a
 	// rounding that is not is tried again at twice the scale.
+	// The readable drawing may take up to maxReadableGrowth^2 times the
+	// area of the spaced drawing it replaces (boxes included), and no
+	// more: a drawing that clears its boxes only at poster size is not
+	// readable.
+	limit := maxReadableGrowth * maxReadableGrowth * boxedArea(vs, sx, sy, hw, hh)
 	scale := 1.0
 	for attempt := 0; ; attempt++ {
-		if attempt > maxRoundings || scale > maxReadableScale {
+		if attempt > maxRoundings {
 			// Some spot of the drawing is crowded past what rounding and
 			// stretching can clear in reasonable size: the component is
 			// spaced from its grid drawing instead.
@@ -132,6 +150,10 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 			px[v] = int64(math.Round(float64(res.X[i] * scale)))
 			py[v] = int64(math.Round(float64(res.Y[i] * scale)))
 			fx[i], fy[i] = float64(px[v]), float64(py[v])
+		}
+		if boxedArea(vs, px, py, hw, hh) > limit {
+			out.Readable--
+			return errCrowded
 		}
 		if _, err := mesh.New(fx, fy, local, 0); err != nil {
 			scale *= 2
@@ -147,4 +169,16 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 		scale *= s * 1.0001
 	}
 	return nil
+}
+
+// boxedArea is the area of the bounding box of the vertices vs at x, y
+// with their boxes of half sizes hw, hh.
+func boxedArea(vs []int32, x, y, hw, hh []int64) float64 {
+	minX, maxX := math.Inf(1), math.Inf(-1)
+	minY, maxY := minX, maxX
+	for _, v := range vs {
+		minX, maxX = min(minX, float64(x[v]-hw[v])), max(maxX, float64(x[v]+hw[v]))
+		minY, maxY = min(minY, float64(y[v]-hh[v])), max(maxY, float64(y[v]+hh[v]))
+	}
+	return (maxX - minX) * (maxY - minY)
 }

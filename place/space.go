@@ -58,8 +58,10 @@ type Placed struct {
 	// trees, drawn in layers (see layeredTree) rather than on the grid.
 	Trees int
 	// Readable counts the components drawn by the readable stage
-	// (Result.Readable).
-	Readable int
+	// (Result.Readable), and Unrefined those it left with their spaced
+	// drawing: larger than it takes, or crowded past what rounding and
+	// stretching clear in reasonable size.
+	Readable, Unrefined int
 	// Relaxed counts the components whose drawing was then relaxed,
 	// nodes moved one at a time to where they have more room (see relax),
 	// which needed less area; they are counted here only.

@@ -36,6 +36,8 @@ type graphReport struct {
 	RelaxedComponents     int      `json:"relaxed_components"`
 	UncheckedComponents   int      `json:"unchecked_components"`
 	CrowdedComponents     int      `json:"crowded_components"`
+	ReadableComponents    int      `json:"readable_components"`
+	UnrefinedComponents   int      `json:"unrefined_components"`
 	GridWidth             int64    `json:"grid_width"`
 	GridHeight            int64    `json:"grid_height"`
 	AreaRatio             float64  `json:"area_ratio"`
@@ -64,6 +66,7 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
 		Method: method, Components: len(res.Components), BarycentricComponents: sp.Smoothed,
 		ConvexComponents: convexCount(res) + sp.Convex, TreeComponents: sp.Trees, FaceCountComponents: sp.FaceCounts, RelaxedComponents: sp.Relaxed, UncheckedComponents: sp.Unchecked, CrowdedComponents: sp.Crowded,
+		ReadableComponents: sp.Readable, UnrefinedComponents: sp.Unrefined,
 		GridWidth: res.Width, GridHeight: res.Height, Unit: sp.Unit,
 		WidthPoints: sp.Width, HeightPoints: sp.Height,
 	}

@@ -820,6 +820,9 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	if sp.Unchecked+sp.Crowded > 0 && !cfg.quiet {
 		cfg.prog.note("gridwood: %s: %s; edges may pass through node boxes there (--check lists them)\n", where, unclearedText(sp.Unchecked, sp.Crowded))
 	}
+	if sp.Unrefined > 0 && !cfg.quiet {
+		cfg.prog.note("gridwood: %s: %s\n", where, unrefinedText(sp.Unrefined))
+	}
 	var gr graphReport
 	if cfg.reportFile != "" {
 		name := "schnyder"
@@ -906,6 +909,16 @@ func unclearedText(unchecked, crowded int) string {
 		parts = append(parts, plural(crowded, "component")+" that would need more than 2^29 points across to clear every box stretched that far")
 	}
 	return strings.Join(parts, "; ")
+}
+
+// unrefinedText says how many components kept their spaced grid drawing
+// instead of the readable one, and why (README, Readable drawing).
+func unrefinedText(k int) string {
+	what := "1 component keeps its"
+	if k > 1 {
+		what = strconv.Itoa(k) + " components keep their"
+	}
+	return what + " spaced grid drawing, not the readable one: over 20,000 nodes, or too crowded after refinement to round to points within the spaced drawing's size"
 }
 
 // missingNames lists, quoted, the names g has no node of.

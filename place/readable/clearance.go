@@ -1,7 +1,6 @@
 package readable
 
 import (
-	"cmp"
 	"math"
 	"slices"
 )
@@ -14,9 +13,12 @@ type conflict struct {
 }
 
 // findConflicts lists, for every vertex, the boxes and edges that come
-// nearer its box than the gap, found through a grid of cells twice the
-// largest box reach: two boxes that touch lie in neighbouring cells, and
-// an edge through a box passes through a cell next to the box's centre.
+// nearer its box than the gap, found through a grid of cells at least
+// twice the largest box reach: two boxes that touch lie in neighbouring
+// cells, and an edge through a box passes through a cell next to the
+// box's centre. The cells are widened until there are at most about 4n of
+// them, so that a sweep costs O(n + m sqrt n) at worst and O(n + m) when
+// edges are about a cell long, as they are near the stress layout.
 func (g *guard) findConflicts() {
 	n := len(g.x)
 	if g.conflicts == nil {
@@ -29,36 +31,13 @@ func (g *guard) findConflicts() {
 	for v := range n {
 		reach = max(reach, g.hw[v]+g.gap, g.hh[v]+g.gap)
 	}
-	cell := max(2*reach, 1e-9)
-	type entry struct {
-		key uint64
-		v   int32
-	}
-	cellOf := func(x, y float64) (int64, int64) {
-		return int64(math.Floor(x / cell)), int64(math.Floor(y / cell))
-	}
-	key := func(cx, cy int64) uint64 { return uint64(cx)<<32 ^ uint64(cy)&0xffffffff }
-	entries := make([]entry, n)
+	grid := newBucketGrid(g.x, g.y, 2*reach)
 	for v := range int32(n) {
-		cx, cy := cellOf(g.x[v], g.y[v])
-		entries[v] = entry{key(cx, cy), v}
-	}
-	slices.SortFunc(entries, func(a, b entry) int { return cmp.Or(cmp.Compare(a.key, b.key), cmp.Compare(a.v, b.v)) })
-	at := func(cx, cy int64) []entry {
-		k := key(cx, cy)
-		i, _ := slices.BinarySearchFunc(entries, k, func(e entry, k uint64) int { return cmp.Compare(e.key, k) })
-		j := i
-		for j < len(entries) && entries[j].key == k {
-			j++
-		}
-		return entries[i:j]
-	}
-	for v := range int32(n) {
-		cx, cy := cellOf(g.x[v], g.y[v])
+		cx, cy := grid.cellOf(g.x[v], g.y[v])
 		for gx := cx - 1; gx <= cx+1; gx++ {
 			for gy := cy - 1; gy <= cy+1; gy++ {
-				for _, e := range at(gx, gy) {
-					if w := e.v; w > v && g.boxesMeet(v, w, g.x[v], g.y[v]) {
+				for _, w := range grid.at(gx, gy) {
+					if w > v && g.boxesMeet(v, w, g.x[v], g.y[v]) {
 						g.conflicts[v] = append(g.conflicts[v], conflict{w: w})
 						g.conflicts[w] = append(g.conflicts[w], conflict{w: v})
 					}
@@ -70,17 +49,21 @@ func (g *guard) findConflicts() {
 	for v := range stamp {
 		stamp[v] = -1
 	}
+	cellStamp := make([]int32, len(grid.start)-1)
+	for i := range cellStamp {
+		cellStamp[i] = -1
+	}
 	for ei, e := range g.edges {
 		a, b := e[0], e[1]
-		ax, ay, bx, by := g.x[a], g.y[a], g.x[b], g.y[b]
-		steps := int(hypot(bx-ax, by-ay)/cell*2) + 1
-		for k := 0; k <= steps; k++ {
-			t := float64(k) / float64(steps)
-			cx, cy := cellOf(ax+float64(t*(bx-ax)), ay+float64(t*(by-ay)))
+		grid.walk(g.x[a], g.y[a], g.x[b], g.y[b], func(cx, cy int) {
 			for gx := cx - 1; gx <= cx+1; gx++ {
 				for gy := cy - 1; gy <= cy+1; gy++ {
-					for _, en := range at(gx, gy) {
-						w := en.v
+					c := grid.index(gx, gy)
+					if c < 0 || cellStamp[c] == int32(ei) {
+						continue
+					}
+					cellStamp[c] = int32(ei)
+					for _, w := range grid.cell(c) {
 						if w == a || w == b || stamp[w] == int32(ei) {
 							continue
 						}
@@ -91,7 +74,96 @@ func (g *guard) findConflicts() {
 					}
 				}
 			}
+		})
+	}
+}
+
+// bucketGrid files points into square cells over their bounding box,
+// counting-sorted so that a cell's points are one slice.
+type bucketGrid struct {
+	x0, y0, size float64
+	cols, rows   int
+	start        []int32 // cell c holds members[start[c]:start[c+1]]
+	members      []int32
+}
+
+// newBucketGrid files the points into cells at least least wide, and
+// wider where that would make more than about 4n cells.
+func newBucketGrid(x, y []float64, least float64) *bucketGrid {
+	n := len(x)
+	minX, minY, maxX, maxY := math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)
+	for v := range n {
+		minX, maxX = min(minX, x[v]), max(maxX, x[v])
+		minY, maxY = min(minY, y[v]), max(maxY, y[v])
+	}
+	if n == 0 {
+		minX, minY, maxX, maxY = 0, 0, 0, 0
+	}
+	side := max(maxX-minX, maxY-minY)
+	size := max(least, side/(2*math.Sqrt(float64(n))+1), 1e-9)
+	g := &bucketGrid{x0: minX, y0: minY, size: size}
+	g.cols = int((maxX-minX)/size) + 1
+	g.rows = int((maxY-minY)/size) + 1
+	g.start = make([]int32, g.cols*g.rows+1)
+	cellOf := make([]int32, n)
+	for v := range n {
+		cx, cy := g.cellOf(x[v], y[v])
+		cellOf[v] = int32(g.index(cx, cy))
+		g.start[cellOf[v]+1]++
+	}
+	for c := 1; c < len(g.start); c++ {
+		g.start[c] += g.start[c-1]
+	}
+	fill := append([]int32(nil), g.start[:len(g.start)-1]...)
+	g.members = make([]int32, n)
+	for v := range n {
+		g.members[fill[cellOf[v]]] = int32(v)
+		fill[cellOf[v]]++
+	}
+	return g
+}
+
+// cellOf gives the cell column and row of a point (clamped to the grid).
+func (g *bucketGrid) cellOf(x, y float64) (int, int) {
+	cx := int((x - g.x0) / g.size)
+	cy := int((y - g.y0) / g.size)
+	return min(max(cx, 0), g.cols-1), min(max(cy, 0), g.rows-1)
+}
+
+// index is the cell's number, or -1 outside the grid.
+func (g *bucketGrid) index(cx, cy int) int {
+	if cx < 0 || cy < 0 || cx >= g.cols || cy >= g.rows {
+		return -1
+	}
+	return cy*g.cols + cx
+}
+
+func (g *bucketGrid) cell(c int) []int32 { return g.members[g.start[c]:g.start[c+1]] }
+
+// at gives the points of a cell; none outside the grid.
+func (g *bucketGrid) at(cx, cy int) []int32 {
+	c := g.index(cx, cy)
+	if c < 0 {
+		return nil
+	}
+	return g.cell(c)
+}
+
+// walk calls visit for the cells the segment passes through, in order
+// from (ax, ay), stepping half a cell at a time (so that no cell the
+// segment crosses is skipped by more than a neighbour, which callers
+// cover by looking at neighbours too).
+func (g *bucketGrid) walk(ax, ay, bx, by float64, visit func(cx, cy int)) {
+	steps := int(math.Min(hypot(bx-ax, by-ay)/g.size*2, float64(2*(g.cols+g.rows)))) + 1
+	lastX, lastY := -2, -2
+	for k := 0; k <= steps; k++ {
+		t := float64(k) / float64(steps)
+		cx, cy := g.cellOf(ax+float64(t*(bx-ax)), ay+float64(t*(by-ay)))
+		if cx == lastX && cy == lastY {
+			continue
 		}
+		lastX, lastY = cx, cy
+		visit(cx, cy)
 	}
 }
 
@@ -128,6 +200,10 @@ func (g *guard) edgeMeetsBox(w int32, wx, wy float64, a, b int32) bool {
 // clear of each of its conflicts, each of weight w: for a box, the point
 // along the line from the other vertex where the boxes just part; for an
 // edge, the point beside it where the box just clears it.
+// clearWeight is the weight of a conflict's clear point in clearTarget,
+// relative to the stress target's: boxes must part, and stress gives way.
+const clearWeight = 4
+
 func (g *guard) clearTarget(v int32, tx, ty, w float64) (float64, float64) {
 	if len(g.conflicts) == 0 || len(g.conflicts[v]) == 0 {
 		return tx, ty
@@ -162,9 +238,9 @@ func (g *guard) clearTarget(v int32, tx, ty, w float64) (float64, float64) {
 			need := g.reachAcross(v, ex, ey)
 			ax, ay = fx+float64(need*nx), fy+float64(need*ny)
 		}
-		sx += float64(w * ax)
-		sy += float64(w * ay)
-		sw += w
+		sx += float64(clearWeight * w * ax)
+		sy += float64(clearWeight * w * ay)
+		sw += clearWeight * w
 	}
 	return sx / sw, sy / sw
 }
@@ -205,6 +281,21 @@ func (g *guard) stretchNeeded() float64 {
 		f = max(f, x)
 	}
 	return f
+}
+
+// boxCrowding is how much the drawing would need stretching to clear all
+// but a few of its conflicts: the stretch that clears every conflict but
+// the worst crowdedShare of the vertices' worth. A handful of pressed
+// spots are the margins phase's to clear; a drawing pressed all over is
+// crowded.
+func (g *guard) boxCrowding() float64 {
+	need := g.conflictFactors()
+	if len(need) == 0 {
+		return 1
+	}
+	slices.Sort(need)
+	skip := min(len(need)-1, int(crowdedShare*float64(len(g.x))))
+	return max(1, need[len(need)-1-skip])
 }
 
 // conflictFactors finds the conflicts and returns, for each, the scale at

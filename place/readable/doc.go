@@ -24,7 +24,25 @@
 // also keeps a vertex's box from coming closer to an edge, or to a nearby
 // box, than the gap, wherever it was not already closer.
 //
-// Where the unconstrained stress layout of the graph is itself plane
-// (checked exactly by building its triangulation), it is a candidate too,
-// and the candidate with the lower stress is kept.
+// Draw weighs several plane starting drawings, refines each by the guarded
+// descent, and keeps the one of least stress among those whose boxes can
+// be cleared without much stretching (boxCrowding):
+//
+//   - "follow": the unconstrained stress layout (the reference), with an
+//     embedding read off it (Follow) and made plane near it (nearPlane):
+//     where the reference is itself plane this is the reference;
+//   - "near" and "unfolded": the same with the start's embedding, or from a
+//     stress layout grown from the start, where the reference folds;
+//   - "convex": a Tutte drawing of the embedding with its outer face on a
+//     convex polygon and weights from the reference (W. T. Tutte, "How to
+//     draw a graph", Proc. London Math. Soc. 13 (1963); M. S. Floater,
+//     "One-to-one piecewise linear mappings over triangulations",
+//     Math. Comp. 72 (2003)), plane for any positive weights;
+//   - "start": the plane drawing given, when nothing else is uncrowded.
+//
+// A last phase ("margins") runs the same descent with each vertex's box
+// conflicts (a box too near another box or an edge) added to its target,
+// and locally inflates crowded spots, so that the boxes part with little
+// uniform stretching. Work is bounded in stress terms (Options.Work), and
+// every phase by a number of sweeps: the result never depends on a clock.
 package readable

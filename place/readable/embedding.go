@@ -34,6 +34,11 @@ func Follow(x, y []float64, edges [][2]int32) (emb *planarize.Embedding, outer [
 		if len(failed) == 0 {
 			return emb, OuterFace(emb, x, y), true
 		}
+		if len(failed) > followMaxFailed {
+			// Folded all over: no embedding near the drawing is worth the
+			// search (each failed edge costs a pass over the edges).
+			return nil, nil, false
+		}
 		// The edges drawn crossing an edge that found no face are what
 		// boxed it out: next time that edge goes in first, and they are
 		// left out of the drawing's part and added last.
@@ -58,8 +63,12 @@ func Follow(x, y []float64, edges [][2]int32) (emb *planarize.Embedding, outer [
 	return nil, nil, false
 }
 
-// followTries bounds Follow's attempts.
-const followTries = 4
+// followTries bounds Follow's attempts, and followMaxFailed the edges
+// that may find no face in one.
+const (
+	followTries     = 4
+	followMaxFailed = 32
+)
 
 // followOnce is one attempt of Follow: the edges not marked doubtful are
 // forced in shortest first as far as they cross nothing, the rest added

@@ -2,6 +2,7 @@ package readable
 
 import (
 	"math"
+	"slices"
 
 	"github.com/gridwood/gridwood/place/mesh"
 	"github.com/gridwood/gridwood/place/stress"
@@ -31,6 +32,7 @@ type guard struct {
 	// when the triangulation is rebuilt (see uncrush).
 	lengths []float64
 	reach   float64
+	adj     [][]int32 // the graph's neighbours, made by runActive
 }
 
 // Move rules: a vertex's least height is minHeightShare of its edges'
@@ -55,33 +57,35 @@ func (g *guard) run(sweeps int, tol float64) int {
 	n := len(g.x)
 	unit := g.meanIdeal()
 	last := 0.0
+	inflations := 0
+	movedBy := make([]float64, n)
 	for s := 0; s < sweeps; s++ {
 		moved := 0.0
-		if s%uncrushEvery == 0 {
+		if s%uncrushEvery == 0 && inflations < maxInflations {
 			if (!g.margins && g.uncrush(g.lengths, g.reach)) || (g.margins && g.inflateCrowded()) {
 				last = 0
+				inflations++
 			}
 		}
 		g.mesh.LegalizeAll()
+		if g.margins && s%activeConflictsEvery == 0 && g.stretchNeeded() <= clearEnough {
+			return s // every box clear: the margins phase is done
+		}
 		if g.margins {
 			g.findConflicts()
 		}
 		for v := range int32(n) {
-			tx, ty, w, ok := g.model.TargetWeight(v, g.x, g.y)
-			if !ok {
-				continue
-			}
-			if g.margins {
-				tx, ty = g.clearTarget(v, tx, ty, w)
-			}
-			moved += g.step(v, tx, ty, w)
+			movedBy[v] = g.stepToTarget(v)
+			moved += movedBy[v]
 		}
 		if moved < tol*unit*float64(n) {
-			return s + 1
+			return s + 1 + g.runActive(movedBy, (sweeps-s-1)*n, tol*unit)
 		}
 		// Every stressCheck sweeps: stop when stress fell by less than
-		// tol in that time (a slow drift, or jumps back and forth).
-		if (s+1)%stressCheck == 0 {
+		// tol in that time (a slow drift, or jumps back and forth). The
+		// margins phase may raise stress to part boxes: it stops on
+		// movement and its bound alone.
+		if (s+1)%stressCheck == 0 && !g.margins {
 			st := g.model.Stress(g.x, g.y)
 			if last > 0 && st > float64((1-tol)*last) {
 				return s + 1
@@ -92,11 +96,112 @@ func (g *guard) run(sweeps int, tol float64) int {
 	return sweeps
 }
 
+// stepToTarget steps v toward its stress target (cleared of its box
+// conflicts in the margins phase) and returns the distance moved.
+func (g *guard) stepToTarget(v int32) float64 {
+	tx, ty, w, ok := g.model.TargetWeight(v, g.x, g.y)
+	if !ok {
+		return 0
+	}
+	if g.margins {
+		tx, ty = g.clearTarget(v, tx, ty, w)
+	}
+	return g.step(v, tx, ty, w)
+}
+
+// runActive goes on after the drawing as a whole has settled, sweeping
+// only the vertices that still moved more than still in the last sweep
+// (and, in the margins phase, those in box conflicts), with their
+// neighbours: a crowded corner that unfolds slowly keeps unfolding at the
+// cost of its own size, not the graph's. budget bounds the vertex steps;
+// it returns the sweeps made, counted in whole-graph sweeps.
+func (g *guard) runActive(movedBy []float64, budget int, still float64) int {
+	n := len(g.x)
+	if g.adj == nil {
+		g.adj = make([][]int32, n)
+		for _, e := range g.edges {
+			g.adj[e[0]] = append(g.adj[e[0]], e[1])
+			g.adj[e[1]] = append(g.adj[e[1]], e[0])
+		}
+	}
+	mark := make([]bool, n)
+	var active []int32
+	add := func(v int32) {
+		if !mark[v] {
+			mark[v] = true
+			active = append(active, v)
+		}
+	}
+	grow := func(seeds []int32) {
+		active = active[:0]
+		clear(mark)
+		for _, v := range seeds {
+			add(v)
+			for _, w := range g.adj[v] {
+				add(w)
+			}
+		}
+		slices.Sort(active)
+	}
+	var seeds []int32
+	for v := range int32(n) {
+		if movedBy[v] > still {
+			seeds = append(seeds, v)
+		}
+	}
+	steps := 0
+	for round := 0; budget > 0; round++ {
+		if g.margins && round%activeConflictsEvery == 0 {
+			if len(seeds) == 0 && g.stretchNeeded() <= clearEnough {
+				break // settled, and every box clear
+			}
+			for v, cs := range g.conflicts {
+				if len(cs) > 0 {
+					seeds = append(seeds, int32(v))
+				}
+			}
+		}
+		grow(seeds)
+		if len(active) == 0 {
+			break
+		}
+		seeds = seeds[:0]
+		for _, v := range active {
+			if g.stepToTarget(v) > still {
+				seeds = append(seeds, v)
+			}
+		}
+		budget -= len(active)
+		steps += len(active)
+		if len(seeds) == 0 && !g.margins {
+			break
+		}
+		if len(seeds) == 0 && round%activeConflictsEvery != activeConflictsEvery-1 {
+			// Settled: one more look at the conflicts decides.
+			round = activeConflictsEvery - 1
+		}
+	}
+	return (steps + n - 1) / n
+}
+
+// clearEnough is the stretch that counts as clear in the margins phase:
+// the rounding to points stretches the drawing by what remains, and boxes
+// that just touch at an ideal length would otherwise keep it going.
+const clearEnough = 1.05
+
+// activeConflictsEvery is how often, in active rounds, the margins phase
+// looks for box conflicts anew.
+const activeConflictsEvery = 10
+
 // stressCheck is how often, in sweeps, run weighs the stress, and
 // uncrushEvery how often it looks for crushed parts.
 const (
 	stressCheck  = 10
 	uncrushEvery = 20
+	// maxInflations bounds the parts blown up in one run: each is
+	// followed by a descent that may undo some of it, and without a bound
+	// the two can take turns forever.
+	maxInflations = 6
 )
 
 // meanIdeal is the mean ideal edge length, recovered from the least
@@ -168,11 +273,13 @@ func (g *guard) step(v int32, tx, ty, w float64) float64 {
 // keepsFloor reports whether moving v from p to q keeps every height of
 // every triangle around it (each corner's distance from the opposite
 // side's line) and every neighbour's distance at least floorShare of the
-// corner's least height, or, where one is below that already, no lower
-// (the barrier is soft, and this keeps a crowded start from being pressed
-// flat by stress, by one vertex's moves or by two taking turns).
+// corner's least height, or, where some are below that already, does not
+// lower the worst of them in proportion to its floor (the barrier is
+// soft, and this keeps a crowded start from being pressed flat by
+// stress, by one vertex's moves or by two taking turns, while a pressed
+// corner may still open up).
 func (g *guard) keepsFloor(v int32, px, py, qx, qy float64) bool {
-	kept := true
+	worstBefore, worstAfter := math.Inf(1), math.Inf(1)
 	for _, c := range g.corner {
 		if c.Frame {
 			continue
@@ -195,12 +302,14 @@ func (g *guard) keepsFloor(v int32, px, py, qx, qy float64) bool {
 				continue
 			}
 			f := float64(floorShare * floor[i])
-			if after[i] < f && after[i] < before[i] {
-				kept = false
+			if f <= 0 {
+				continue
 			}
+			worstBefore = min(worstBefore, before[i]/f)
+			worstAfter = min(worstAfter, after[i]/f)
 		}
 	}
-	return kept
+	return worstAfter >= 1 || worstAfter >= worstBefore
 }
 
 // escapeTarget blends v's stress target (tx, ty, of weight w) with a

@@ -57,6 +57,9 @@ type Output struct {
 	Chosen string
 	// Phases lists what each phase did, for benchmarks and tests.
 	Phases []Phase
+	// Crowded says that every candidate was too crowded to part its boxes
+	// (the margins phase was not run): the caller should keep its start.
+	Crowded bool
 	// Stress is the model's stress of the result (over the model's pairs),
 	// and StartStress that of the rescaled start.
 	Stress, StartStress float64
@@ -102,7 +105,9 @@ func Draw(in Input, opt Options) (*Output, error) {
 		work = DefaultWork
 	}
 	perSweep := max(1, int64(n)*int64(termsPerVertex(model)))
-	sweepsFor := func(share float64) int { return int(max(minSweeps, float64(float64(work)*share)/float64(perSweep))) }
+	sweepsFor := func(share float64) int {
+		return int(min(maxSweeps, max(minSweeps, float64(float64(work)*share)/float64(perSweep))))
+	}
 	out := &Output{}
 	minHeight := minHeights(n, in.Edges, lengths)
 	var reach float64 // set once the reference is known
@@ -143,7 +148,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 			g.y[v] *= f
 		}
 		g.mesh.Scale(f)
-		stretch := g.stretchNeeded()
+		stretch := g.boxCrowding()
 		out.Phases[len(out.Phases)-1].Stretch = stretch
 		crowded := stretch > maxStretch
 		st := model.Stress(g.x, g.y) // at the best scale: comparable
@@ -258,11 +263,19 @@ func Draw(in Input, opt Options) (*Output, error) {
 	}
 
 	// Then the boxes: the same descent with the barrier keeping boxes, not
-	// points, off each other and off the edges.
+	// points, off each other and off the edges; not tried on a drawing so
+	// crowded that parting its boxes would wreck it (and cost most of the
+	// stage's time).
+	if bestStretch > hopelessStretch {
+		out.X, out.Y, out.Crowded = best.x, best.y, true
+		out.Stress = model.Stress(best.x, best.y)
+		return out, nil
+	}
 	t = time.Now()
 	best.margins = true
-	k = best.run(sweepsFor(marginShare), runTolerance)
+	k = best.run(min(maxMarginSweeps, sweepsFor(marginShare)), runTolerance)
 	phase("margins", k, best.x, best.y, t)
+	out.Phases[len(out.Phases)-1].Stretch = best.stretchNeeded()
 	out.X, out.Y = best.x, best.y
 	out.Stress = model.Stress(best.x, best.y)
 	return out, nil
@@ -277,7 +290,11 @@ const (
 	candidateShare = 0.3
 	marginShare    = 0.15
 	minSweeps      = 10
-	tryAllLimit    = 300
+	maxSweeps      = 500
+	// maxMarginSweeps bounds the margins phase, whose sweeps cost the
+	// most where boxes crowd.
+	maxMarginSweeps = 300
+	tryAllLimit     = 300
 	// runTolerance: a descent stops once a sweep moves its vertices less
 	// than this share of an ideal edge length on average.
 	runTolerance = 1e-3
@@ -286,6 +303,12 @@ const (
 	// candidates that are not, the least stress wins; if all are, the
 	// least stretch.
 	maxStretch = 30
+	// hopelessStretch: a best candidate whose boxes would need more
+	// stretching than this is returned as crowded, without the margins
+	// phase.
+	hopelessStretch = 1000
+	// crowdedShare: see guard.boxCrowding.
+	crowdedShare = 0.02
 )
 
 // small places one vertex at the origin, or two side by side at their

@@ -1,0 +1,164 @@
+package place
+
+import (
+	"fmt"
+	"math"
+	"slices"
+	"testing"
+
+	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/quality"
+	"github.com/gridwood/gridwood/place/readable"
+	"github.com/gridwood/gridwood/place/stress"
+)
+
+// drawReadable runs the default pipeline (Draw with Readable, then
+// Result.Readable) on g with boxes b.
+func drawReadable(t *testing.T, g graphgen.Graph, b Boxes) (*Result, *Placed) {
+	t.Helper()
+	res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}, Readable: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	sp, err := res.Readable(b, ReadableOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return res, sp
+}
+
+// referenceStress is the normalized stress of an unconstrained stress
+// layout of the connected graph g (stress majorization, Gansner, Koren,
+// North, GD 2004, as package stress implements it), with the ideal
+// lengths the readable stage uses for boxes b: the yardstick the readable
+// stage is measured against.
+func referenceStress(t *testing.T, g graphgen.Graph, b Boxes) float64 {
+	t.Helper()
+	hw, hh := make([]float64, g.N), make([]float64, g.N)
+	for v := range hw {
+		hw[v], hh[v] = float64(b.HalfW[v]), float64(b.HalfH[v])
+	}
+	m, err := stress.NewModel(g.N, g.Edges, readable.IdealLengths(g.Edges, hw, hh, float64(b.Gap)), stress.Options{FullLimit: g.N})
+	if err != nil {
+		t.Fatal(err)
+	}
+	x, y := m.Start()
+	m.Layout(x, y, 2000, 1e-5)
+	s, _ := quality.Stress(x, y, g.Edges)
+	return s
+}
+
+func floats(p []int64) []float64 {
+	f := make([]float64, len(p))
+	for i, v := range p {
+		f[i] = float64(v)
+	}
+	return f
+}
+
+// TestReadableNearReference checks the default drawing of connected
+// graphs against an unconstrained stress layout of the same graph: its
+// normalized stress (GKN 2004) at most maxRatio times the reference's, and
+// below that of the spaced grid drawing it replaces. Every drawing passes
+// geomcheck, the independent checker: no crossing, no box overlap, no edge
+// through a box. The bounds are this implementation's measured figures
+// (README, Readable drawing) with about 10% room: regressions fail here.
+func TestReadableNearReference(t *testing.T) {
+	for _, tc := range []struct {
+		g        graphgen.Graph
+		maxRatio float64
+	}{
+		{graphgen.Grid(8, 8), 1.10},
+		{graphgen.TriangulatedGrid(7, 7), 1.10},
+		{graphgen.Cycle(30), 1.10},
+		{graphgen.Path(40), 1.10},
+		{graphgen.RandomTree(60, 5), 1.35},
+		{graphgen.Star(16), 1.10},
+		{graphgen.Wheel(20), 1.25},
+		{graphgen.Cube(), 2.30},                   // a plane cube nests one square in the other
+		{graphgen.RandomPlanar(60, 0.7, 3), 4.50}, // README: the weak case
+	} {
+		t.Run(tc.g.Name, func(t *testing.T) {
+			b := equalBoxes(tc.g.N, 27, 18)
+			res, sp := drawReadable(t, tc.g, b)
+			checkSpaced(t, tc.g.Name, sp, b, res.Kept(), true)
+			if sp.Readable != 1 {
+				t.Fatalf("%d components drawn readable, want 1 (crowded %d, unrefined %d)", sp.Readable, sp.Crowded, sp.Unrefined)
+			}
+			got, _ := quality.Stress(floats(sp.X), floats(sp.Y), tc.g.Edges)
+			ref := referenceStress(t, tc.g, b)
+			_, grid := drawSpaced(t, tc.g, b, SpaceOptions{GridOnly: true})
+			gridStress, _ := quality.Stress(floats(grid.X), floats(grid.Y), tc.g.Edges)
+			t.Logf("stress %.4f, reference %.4f (ratio %.2f), grid drawing %.4f", got, ref, got/ref, gridStress)
+			if got > tc.maxRatio*ref+1e-3 { // a path's stress is near 0
+				t.Errorf("stress %.4f is %.2f times the reference %.4f, want at most %.2f", got, got/ref, ref, tc.maxRatio)
+			}
+			if got > gridStress {
+				t.Errorf("stress %.4f is above the grid drawing's %.4f", got, gridStress)
+			}
+		})
+	}
+}
+
+// TestReadableStarIsEven checks that a star's leaves spread evenly around
+// its centre: every angle between consecutive edges at the centre at
+// least 3/4 of 360/leaves degrees (the even spread is the stress optimum
+// of a star with equal ideal lengths, common practice).
+func TestReadableStarIsEven(t *testing.T) {
+	g := graphgen.Star(12)
+	b := equalBoxes(g.N, 27, 18)
+	res, sp := drawReadable(t, g, b)
+	checkSpaced(t, g.Name, sp, b, res.Kept(), true)
+	centre := -1
+	deg := make([]int, g.N)
+	for _, e := range g.Edges {
+		deg[e[0]]++
+		deg[e[1]]++
+	}
+	for v, d := range deg {
+		if d == 12 {
+			centre = v
+		}
+	}
+	var angles []float64
+	for v := range g.N {
+		if v != centre {
+			angles = append(angles, math.Atan2(float64(sp.Y[v]-sp.Y[centre]), float64(sp.X[v]-sp.X[centre])))
+		}
+	}
+	slices.Sort(angles)
+	least := 2*math.Pi + angles[0] - angles[len(angles)-1]
+	for i := 1; i < len(angles); i++ {
+		least = min(least, angles[i]-angles[i-1])
+	}
+	if want := 0.75 * 2 * math.Pi / 12; least < want {
+		t.Errorf("least angle at the centre %.1f degrees, want at least %.1f", least*180/math.Pi, want*180/math.Pi)
+	}
+}
+
+// TestReadablePlaneOnRandomInputs runs the default pipeline on random
+// planar graphs, trees and graphs with edges to remove, with varied
+// boxes, and checks each drawing with geomcheck; it also checks that the
+// same input gives the same drawing twice.
+func TestReadablePlaneOnRandomInputs(t *testing.T) {
+	for seed := uint64(1); seed <= 5; seed++ {
+		for _, g := range []graphgen.Graph{
+			graphgen.RandomPlanar(20+int(seed)*7, 0.5, seed),
+			graphgen.RandomTree(10+int(seed)*9, seed),
+			graphgen.PlanarPlusExtra(30+int(seed)*5, 4, seed),
+			graphgen.RandomMaximalPlanar(15+int(seed)*4, seed),
+		} {
+			name := fmt.Sprintf("%s seed %d", g.Name, seed)
+			b := variedBoxes(g.N)
+			res, sp := drawReadable(t, g, b)
+			checkSpaced(t, name, sp, b, res.Kept(), false)
+			if seed > 2 {
+				continue
+			}
+			_, again := drawReadable(t, g, b)
+			if !slices.Equal(sp.X, again.X) || !slices.Equal(sp.Y, again.Y) {
+				t.Errorf("%s: two runs differ", name)
+			}
+		}
+	}
+}
