@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"github.com/gridwood/gridwood/place/mesh"
+	"github.com/gridwood/gridwood/place/quality"
 	"github.com/gridwood/gridwood/place/readable"
 )
 
@@ -24,6 +25,10 @@ type ReadableOptions struct {
 	// Work bounds the readable stage of each component (see
 	// readable.Options.Work); 0 is the default.
 	Work int64
+	// Groups, if not nil, lists per vertex (Draw's numbering) the clusters
+	// it lies in, outermost first; the readable stage gathers them
+	// (readable.Input.Groups).
+	Groups [][]int32
 }
 
 // Readable turns the grid drawing into a readable one in points: Space
@@ -36,7 +41,8 @@ type ReadableOptions struct {
 // the least factor that clears every box (as Space does) where the stage
 // left a box too near; a component whose drawing would then take more
 // than maxReadableGrowth^2 times the area of its spaced drawing keeps the
-// spaced drawing (counted in Placed.Unrefined), as does one of more than
+// spaced drawing (counted in Placed.Unrefined), as do one whose drawing
+// has more normalized stress than the spaced one and one of more than
 // readableMaxVertices vertices. Components are then packed in rows. Draw
 // must have been run with DrawOptions.Readable.
 func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
@@ -55,6 +61,16 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 	sx, sy := make([]int64, n), make([]int64, n) // the spaced drawing, local
 	for v, w := range r.newID {
 		sx[w], sy[w] = sp.X[v], sp.Y[v]
+	}
+	if opt.Groups != nil {
+		if len(opt.Groups) != n {
+			return nil, errors.New("place: ReadableOptions.Groups needs one entry per vertex")
+		}
+		local := make([][]int32, n)
+		for v, w := range r.newID {
+			local[w] = opt.Groups[v]
+		}
+		opt.Groups = local
 	}
 	edgesOf := r.edgesByComponent()
 	boxes := make([]Component, len(d.members))
@@ -120,6 +136,12 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 		in.X[i], in.Y[i] = float64(sx[v]), float64(sy[v])
 		in.HalfW[i], in.HalfH[i] = float64(hw[v]), float64(hh[v])
 	}
+	if opt.Groups != nil {
+		in.Groups = make([][]int32, k)
+		for i, v := range vs {
+			in.Groups[i] = opt.Groups[v]
+		}
+	}
 	res, err := readable.Draw(in, readable.Options{Work: opt.Work})
 	if err != nil {
 		return err
@@ -168,7 +190,30 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 		}
 		scale *= s * 1.0001
 	}
+	// Kept only if it reads no worse than the spaced drawing: its
+	// normalized stress (scale-free, so the stretch above does not change
+	// it) at most maxReadableStressShare of the spaced drawing's.
+	if componentStress(vs, local, px, py) > maxReadableStressShare*componentStress(vs, local, sx, sy) {
+		out.Readable--
+		return errCrowded
+	}
 	return nil
+}
+
+// maxReadableStressShare is the most normalized stress a readable drawing
+// may keep of the spaced drawing it replaces.
+const maxReadableStressShare = 1.0
+
+// componentStress is the normalized stress (package quality) of the
+// component with vertices vs, local edges (numbered by position in vs)
+// and points x, y (indexed by vertex).
+func componentStress(vs []int32, local [][2]int32, x, y []int64) float64 {
+	fx, fy := make([]float64, len(vs)), make([]float64, len(vs))
+	for i, v := range vs {
+		fx[i], fy[i] = float64(x[v]), float64(y[v])
+	}
+	st, _ := quality.Stress(fx, fy, local)
+	return st
 }
 
 // boxedArea is the area of the bounding box of the vertices vs at x, y

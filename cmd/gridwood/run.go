@@ -918,7 +918,7 @@ func unrefinedText(k int) string {
 	if k > 1 {
 		what = strconv.Itoa(k) + " components keep their"
 	}
-	return what + " spaced grid drawing, not the readable one: over 20,000 nodes, or too crowded after refinement to round to points within the spaced drawing's size"
+	return what + " spaced grid drawing, not the readable one: over 20,000 nodes, too crowded to part its boxes within four times the spaced drawing's area, or no better than the spaced drawing by stress"
 }
 
 // missingNames lists, quoted, the names g has no node of.

@@ -28,6 +28,10 @@ type Input struct {
 	// KeepOuter keeps the start drawing's outer face outer: only the
 	// start is refined, and no vertex jumps.
 	KeepOuter bool
+	// Groups, if not nil, lists per vertex the clusters it lies in,
+	// outermost first: members of one cluster are drawn nearer each other
+	// and others farther (stress.Options.Groups).
+	Groups [][]int32
 }
 
 // Options tune Draw. The zero value is the default.
@@ -96,7 +100,9 @@ func Draw(in Input, opt Options) (*Output, error) {
 		return small(in, hw, hh), nil
 	}
 	lengths := IdealLengths(in.Edges, hw, hh, in.Gap)
-	model, err := stress.NewModel(n, in.Edges, lengths, opt.Stress)
+	so := opt.Stress
+	so.Groups = in.Groups
+	model, err := stress.NewModel(n, in.Edges, lengths, so)
 	if err != nil {
 		return nil, err
 	}

@@ -14,7 +14,22 @@ type Options struct {
 	// Pivots is the number of pivots of the sparse model and of the
 	// pivot-MDS start (default 100, at most the number of vertices).
 	Pivots int
+	// Groups, if not nil, gives per vertex the groups it lies in, outermost
+	// first (a DOT cluster and the clusters inside it). Two vertices not
+	// joined by an edge whose lists are equal and not empty are wanted
+	// GroupPull times as far apart as the graph says, two whose lists
+	// differ GroupPush times: members gather, others keep out.
+	Groups [][]int32
 }
+
+// GroupPull and GroupPush scale the wanted distance of pairs in one group
+// and of pairs split by a group (Options.Groups): strong enough to gather a
+// group in the stress layout, mild enough to keep it a stress layout (the
+// idea of shorter ideal distances inside a cluster, common practice).
+const (
+	GroupPull = 0.6
+	GroupPush = 1.8
+)
 
 const (
 	defaultFullLimit = 400
@@ -56,7 +71,7 @@ var errInput = errors.New("stress: bad input")
 // and the given edges (no loops, no repeats), edge i of length
 // lengths[i] > 0 (nil: all 1).
 func NewModel(n int, edges [][2]int32, lengths []float64, opt Options) (*Model, error) {
-	if n <= 0 || (lengths != nil && len(lengths) != len(edges)) {
+	if n <= 0 || (lengths != nil && len(lengths) != len(edges)) || (opt.Groups != nil && len(opt.Groups) != n) {
 		return nil, errInput
 	}
 	for i, e := range edges {
@@ -108,12 +123,39 @@ func NewModel(n int, edges [][2]int32, lengths []float64, opt Options) (*Model, 
 			for v, dv := range d {
 				row[v] = float32(dv)
 			}
+			m.regroup(int32(s), row, opt.Groups)
 		}
 		return m, nil
 	}
 	m.sparse(min(opt.Pivots, n), sp)
+	for p, pv := range m.pivots {
+		m.regroup(pv, m.pivDist[p*n:(p+1)*n], opt.Groups)
+	}
 	m.siblings()
 	return m, nil
+}
+
+// regroup scales the distances row from vertex s to every vertex by
+// GroupPull or GroupPush (Options.Groups), except to s itself and to its
+// neighbours, whose distance is an edge's ideal length.
+func (m *Model) regroup(s int32, row []float32, groups [][]int32) {
+	if groups == nil {
+		return
+	}
+	for v := range row {
+		if int32(v) == s {
+			continue
+		}
+		switch {
+		case !slices.Equal(groups[s], groups[v]):
+			row[v] *= GroupPush
+		case len(groups[s]) > 0:
+			row[v] *= GroupPull
+		}
+	}
+	for i := m.start[s]; i < m.start[s+1]; i++ {
+		row[m.adj[i]] = float32(m.length[i])
+	}
 }
 
 // N returns the number of vertices.
