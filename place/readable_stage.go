@@ -5,7 +5,6 @@ import (
 	"math"
 
 	"github.com/gridwood/gridwood/place/mesh"
-	"github.com/gridwood/gridwood/place/quality"
 	"github.com/gridwood/gridwood/place/readable"
 )
 
@@ -25,7 +24,11 @@ type ReadableOptions struct {
 	// Work bounds the readable stage of each component (see
 	// readable.Options.Work); 0 is the default.
 	Work int64
-	// Groups, if not nil, lists per vertex (Draw's numbering) the clusters
+	// EdgeExtra, if not nil, adds to the ideal length of the edge between
+	// two vertices (the caller's numbering, lower first), for example the
+	// room its label needs beside it (readable.Input.EdgeExtra).
+	EdgeExtra map[[2]int32]float64
+	// Groups, if not nil, lists per vertex (the caller's numbering) the clusters
 	// it lies in, outermost first; the readable stage gathers them
 	// (readable.Input.Groups).
 	Groups [][]int32
@@ -61,6 +64,17 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 	sx, sy := make([]int64, n), make([]int64, n) // the spaced drawing, local
 	for v, w := range r.newID {
 		sx[w], sy[w] = sp.X[v], sp.Y[v]
+	}
+	if opt.EdgeExtra != nil {
+		local := make(map[[2]int32]float64, len(opt.EdgeExtra))
+		for e, extra := range opt.EdgeExtra {
+			if int(e[0]) >= n || int(e[1]) >= n || e[0] < 0 || e[1] < 0 {
+				return nil, errors.New("place: ReadableOptions.EdgeExtra names a vertex out of range")
+			}
+			a, b := r.newID[e[0]], r.newID[e[1]]
+			local[[2]int32{min(a, b), max(a, b)}] = max(local[[2]int32{min(a, b), max(a, b)}], extra)
+		}
+		opt.EdgeExtra = local
 	}
 	if opt.Groups != nil {
 		if len(opt.Groups) != n {
@@ -136,6 +150,13 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 		in.X[i], in.Y[i] = float64(sx[v]), float64(sy[v])
 		in.HalfW[i], in.HalfH[i] = float64(hw[v]), float64(hh[v])
 	}
+	if opt.EdgeExtra != nil {
+		in.EdgeExtra = make([]float64, len(local))
+		for i, e := range local {
+			a, b := vs[e[0]], vs[e[1]]
+			in.EdgeExtra[i] = opt.EdgeExtra[[2]int32{min(a, b), max(a, b)}]
+		}
+	}
 	if opt.Groups != nil {
 		in.Groups = make([][]int32, k)
 		for i, v := range vs {
@@ -146,7 +167,10 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	if err != nil {
 		return err
 	}
-	if res.Crowded {
+	// Kept only if it reads no worse than the spaced drawing by the
+	// stress model's own measure, at the best scale of each (stretching
+	// does not change it).
+	if res.Crowded || res.Gain > maxReadableStressShare {
 		return errCrowded
 	}
 	out.Readable++
@@ -190,31 +214,12 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 		}
 		scale *= s * 1.0001
 	}
-	// Kept only if it reads no worse than the spaced drawing: its
-	// normalized stress (scale-free, so the stretch above does not change
-	// it) at most maxReadableStressShare of the spaced drawing's.
-	if componentStress(vs, local, px, py) > maxReadableStressShare*componentStress(vs, local, sx, sy) {
-		out.Readable--
-		return errCrowded
-	}
 	return nil
 }
 
 // maxReadableStressShare is the most normalized stress a readable drawing
 // may keep of the spaced drawing it replaces.
 const maxReadableStressShare = 1.0
-
-// componentStress is the normalized stress (package quality) of the
-// component with vertices vs, local edges (numbered by position in vs)
-// and points x, y (indexed by vertex).
-func componentStress(vs []int32, local [][2]int32, x, y []int64) float64 {
-	fx, fy := make([]float64, len(vs)), make([]float64, len(vs))
-	for i, v := range vs {
-		fx[i], fy[i] = float64(x[v]), float64(y[v])
-	}
-	st, _ := quality.Stress(fx, fy, local)
-	return st
-}
 
 // boxedArea is the area of the bounding box of the vertices vs at x, y
 // with their boxes of half sizes hw, hh.

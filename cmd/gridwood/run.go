@@ -18,6 +18,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/dotio/nodesize"
 	"github.com/gridwood/gridwood/dotio/preview"
 	"github.com/gridwood/gridwood/place"
 	"github.com/gridwood/gridwood/planarize"
@@ -799,7 +800,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	spaceStart := time.Now()
 	var sp *place.Placed
 	if readable {
-		sp, err = res.Readable(boxes, place.ReadableOptions{})
+		sp, err = res.Readable(boxes, place.ReadableOptions{EdgeExtra: labelRoom(g)})
 	} else {
 		sp, err = res.Space(boxes, place.SpaceOptions{Unit: int64(cfg.unit), GridOnly: cfg.gridOnly})
 	}
@@ -909,6 +910,25 @@ func unclearedText(unchecked, crowded int) string {
 		parts = append(parts, plural(crowded, "component")+" that would need more than 2^29 points across to clear every box stretched that far")
 	}
 	return strings.Join(parts, "; ")
+}
+
+// labelRoom gives each labelled edge room for its label beside it in the
+// readable drawing (README, Readable drawing): the label's longer side and
+// the gap, added to the edge's ideal length. nil when no edge has a label.
+func labelRoom(g *dotio.Graph) map[[2]int32]float64 {
+	hw, hh := nodesize.EdgeLabelHalves(g)
+	var room map[[2]int32]float64
+	for i, e := range g.Edges {
+		if hw[i] <= 0 && hh[i] <= 0 || e.From == e.To {
+			continue
+		}
+		if room == nil {
+			room = make(map[[2]int32]float64)
+		}
+		k := [2]int32{min(e.From, e.To), max(e.From, e.To)}
+		room[k] = max(room[k], 2*max(hw[i], hh[i])+boxGap)
+	}
+	return room
 }
 
 // unrefinedText says how many components kept their spaced grid drawing

@@ -28,6 +28,9 @@ type Input struct {
 	// KeepOuter keeps the start drawing's outer face outer: only the
 	// start is refined, and no vertex jumps.
 	KeepOuter bool
+	// EdgeExtra, if not nil, adds to each edge's ideal length (indexed as
+	// Edges), for example the room its label needs beside it.
+	EdgeExtra []float64
 	// Groups, if not nil, lists per vertex the clusters it lies in,
 	// outermost first: members of one cluster are drawn nearer each other
 	// and others farther (stress.Options.Groups).
@@ -67,6 +70,10 @@ type Output struct {
 	// Stress is the model's stress of the result (over the model's pairs),
 	// and StartStress that of the rescaled start.
 	Stress, StartStress float64
+	// Gain is the model's stress of the result over that of the start,
+	// each at its best scale: below 1 where the result reads better by the
+	// model's own ideal distances (edge extras and groups included).
+	Gain float64
 }
 
 // Phase is one phase of Draw: the sweeps it made, the model's stress
@@ -100,6 +107,14 @@ func Draw(in Input, opt Options) (*Output, error) {
 		return small(in, hw, hh), nil
 	}
 	lengths := IdealLengths(in.Edges, hw, hh, in.Gap)
+	if in.EdgeExtra != nil {
+		if len(in.EdgeExtra) != len(in.Edges) {
+			return nil, errInput
+		}
+		for i, extra := range in.EdgeExtra {
+			lengths[i] += max(0, extra)
+		}
+	}
 	so := opt.Stress
 	so.Groups = in.Groups
 	model, err := stress.NewModel(n, in.Edges, lengths, so)
@@ -275,6 +290,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 	if bestStretch > hopelessStretch {
 		out.X, out.Y, out.Crowded = best.x, best.y, true
 		out.Stress = model.Stress(best.x, best.y)
+		out.Gain = gain(model, best.x, best.y, in.X, in.Y)
 		return out, nil
 	}
 	t = time.Now()
@@ -284,7 +300,29 @@ func Draw(in Input, opt Options) (*Output, error) {
 	out.Phases[len(out.Phases)-1].Stretch = best.stretchNeeded()
 	out.X, out.Y = best.x, best.y
 	out.Stress = model.Stress(best.x, best.y)
+	out.Gain = gain(model, best.x, best.y, in.X, in.Y)
 	return out, nil
+}
+
+// gain is the model's stress of drawing x, y over that of drawing sx, sy,
+// each at its best scale (1 when both are 0).
+func gain(model *stress.Model, x, y, sx, sy []float64) float64 {
+	at := func(x, y []float64) float64 {
+		f := model.BestScale(x, y)
+		fx, fy := make([]float64, len(x)), make([]float64, len(y))
+		for v := range x {
+			fx[v], fy[v] = f*x[v], f*y[v]
+		}
+		return model.Stress(fx, fy)
+	}
+	a, b := at(x, y), at(sx, sy)
+	if b == 0 {
+		if a == 0 {
+			return 1
+		}
+		return math.Inf(1)
+	}
+	return a / b
 }
 
 // Shares of the work bound (Options.Work): the reference layout, each
