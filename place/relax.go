@@ -327,7 +327,7 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 // 52-character label: 9,624 x 8,898 points, against 23,317 x 20,726 with
 // the largest box only; relaxing by the percentile alone, the shipped
 // campus example, whose labels vary less, came out 472 x 414 instead of
-// 428 x 369 (DEVELOPERS.md has the corpus figures).
+// 428 x 369 (bench/RESULTS.md has the corpus figures).
 func relaxReaches(vs []int32, hw, hh []int64, gap int64) [][2]int64 {
 	rx, ry := make([]int64, len(vs)), make([]int64, len(vs))
 	for i, v := range vs {
@@ -356,7 +356,7 @@ func relaxReaches(vs []int32, hw, hh []int64, gap int64) [][2]int64 {
 // out in a narrow corner are where a drawing crowds, and relax moves the
 // corners only within the drawing's bounding box. An equilateral outer triangle took a fifth to two
 // thirds of the area off relaxed random triangulations and random planar
-// graphs of 100 to 1,000 nodes (see DEVELOPERS.md).
+// graphs of 100 to 1,000 nodes (see bench/RESULTS.md).
 func equilateral(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y []int64, seen []bool) {
 	a, b, c := emb.Tail(outer.face[0]), emb.Tail(outer.face[1]), emb.Tail(outer.face[2])
 	ax, ay := float64(x[a]), float64(y[a])

@@ -14,7 +14,7 @@ const fineSpan = 1 << 30
 // only for the picture: Tutte's drawing, compaction, refinement and the
 // clearance check. A component this big is hardly read as a picture, and
 // above it every component goes through the same linear passes, so the
-// cost per edge stays flat from 10^4 vertices up (DEVELOPERS.md, The
+// cost per edge stays flat from 10^4 vertices up (bench/RESULTS.md, The
 // usual traps). tutteTriangleLimit is the largest component given Tutte's
 // drawing when its outer face is a triangle.
 const (

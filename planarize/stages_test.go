@@ -15,7 +15,7 @@ import (
 // subgraph of a triangulation plus 10 edges, and (up to 10^5 vertices:
 // each stray that must go costs about log2 of its level's size in
 // whole-block tests, 41 tests in all on the random planar graph at 10^5,
-// DEVELOPERS.md, The usual traps) of the grid and the random planar graph
+// bench/RESULTS.md, The usual traps) of the grid and the random planar graph
 // plus 10 random pairs, and (up to 10^4) of blocks with many edges to set
 // aside.
 func BenchmarkStage(b *testing.B) {

@@ -10,7 +10,7 @@ import (
 	"strings"
 )
 
-// Peak memory per byte of DOT input, as measured (DEVELOPERS.md, Whole
+// Peak memory per byte of DOT input, as measured (bench/RESULTS.md, Whole
 // filter against gonum): never below leastBytesPerByte, usually about
 // typicalBytesPerByte; plus, for each brace (a graph or subgraph body) and
 // each graph keyword, the cost of the structures every one of them gets,

@@ -840,7 +840,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 // --effort hintEffort for graphs of at most hintMaxEdges edges (as
 // written), where that search is cheap: on random graphs of about 1,000
 // edges it took 0.25 to 0.35 s (0.05 to 0.07 s without), against 0.75 s at
-// 1,500, 4 s at 4,000 and 69 s at 16,000 (DEVELOPERS.md).
+// 1,500, 4 s at 4,000 and 69 s at 16,000 (bench/RESULTS.md).
 const (
 	hintEffort   = 16
 	hintMaxEdges = 1000
