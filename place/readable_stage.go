@@ -28,6 +28,12 @@ type ReadableOptions struct {
 	// two vertices (the caller's numbering, lower first), for example the
 	// room its label needs beside it (readable.Input.EdgeExtra).
 	EdgeExtra map[[2]int32]float64
+	// Flow, if not nil, lists pairs of vertices (the caller's numbering)
+	// joined by an edge, where the second should come after the first
+	// along FlowDir (readable.Input.Flow); pairs that are not kept edges
+	// are ignored.
+	Flow    [][2]int32
+	FlowDir [2]float64
 	// Groups, if not nil, lists per vertex (the caller's numbering) the clusters
 	// it lies in, outermost first; the readable stage gathers them
 	// (readable.Input.Groups).
@@ -75,6 +81,16 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 			local[[2]int32{min(a, b), max(a, b)}] = max(local[[2]int32{min(a, b), max(a, b)}], extra)
 		}
 		opt.EdgeExtra = local
+	}
+	if opt.Flow != nil {
+		local := make([][2]int32, 0, len(opt.Flow))
+		for _, e := range opt.Flow {
+			if int(e[0]) >= n || int(e[1]) >= n || e[0] < 0 || e[1] < 0 {
+				return nil, errors.New("place: ReadableOptions.Flow names a vertex out of range")
+			}
+			local = append(local, [2]int32{r.newID[e[0]], r.newID[e[1]]})
+		}
+		opt.Flow = local
 	}
 	if opt.Groups != nil {
 		if len(opt.Groups) != n {
@@ -156,6 +172,20 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 			a, b := vs[e[0]], vs[e[1]]
 			in.EdgeExtra[i] = opt.EdgeExtra[[2]int32{min(a, b), max(a, b)}]
 		}
+	}
+	if opt.Flow != nil {
+		kept := make(map[[2]int32]bool, len(local))
+		for _, e := range local {
+			kept[[2]int32{min(e[0], e[1]), max(e[0], e[1])}] = true
+		}
+		for _, e := range opt.Flow {
+			a, okA := index[e[0]]
+			b, okB := index[e[1]]
+			if okA && okB && kept[[2]int32{min(a, b), max(a, b)}] {
+				in.Flow = append(in.Flow, [2]int32{a, b})
+			}
+		}
+		in.FlowDir = opt.FlowDir
 	}
 	if opt.Groups != nil {
 		in.Groups = make([][]int32, k)

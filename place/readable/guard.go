@@ -103,6 +103,7 @@ func (g *guard) stepToTarget(v int32) float64 {
 	if !ok {
 		return 0
 	}
+	tx, ty = g.model.Project(v, tx, ty, g.x, g.y)
 	if g.margins {
 		tx, ty = g.clearTarget(v, tx, ty, w)
 	}

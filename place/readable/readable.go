@@ -31,6 +31,11 @@ type Input struct {
 	// EdgeExtra, if not nil, adds to each edge's ideal length (indexed as
 	// Edges), for example the room its label needs beside it.
 	EdgeExtra []float64
+	// Flow, if not nil, lists pairs (u, v) where v should come after u
+	// along FlowDir (a digraph's edges, read along its rank direction);
+	// see stress.Options.Flow.
+	Flow    [][2]int32
+	FlowDir [2]float64
 	// Groups, if not nil, lists per vertex the clusters it lies in,
 	// outermost first: members of one cluster are drawn nearer each other
 	// and others farther (stress.Options.Groups).
@@ -117,6 +122,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 	}
 	so := opt.Stress
 	so.Groups = in.Groups
+	so.Flow, so.FlowDir = in.Flow, in.FlowDir
 	model, err := stress.NewModel(n, in.Edges, lengths, so)
 	if err != nil {
 		return nil, err

@@ -20,6 +20,20 @@ type Options struct {
 	// GroupPull times as far apart as the graph says, two whose lists
 	// differ GroupPush times: members gather, others keep out.
 	Groups [][]int32
+	// Flow, if not nil, lists pairs (u, v) of vertices that should follow
+	// each other along FlowDir: the position of v, read along FlowDir, at
+	// least FlowGap beyond that of u. Every target is projected onto what
+	// its vertex's own pairs allow (Model.Project), the localized form of
+	// stress majorization with separation constraints (T. Dwyer, Y. Koren,
+	// "DIG-CoLa", InfoVis 2005; T. Dwyer, Y. Koren, K. Marriott,
+	// "IPSep-CoLa", InfoVis 2006). The pairs should not form a cycle.
+	Flow [][2]int32
+	// FlowDir is the unit direction of the flow (for example 0, -1 for
+	// top to bottom with y pointing up).
+	FlowDir [2]float64
+	// FlowGap is the least separation along the flow (0: 0.6 times the
+	// mean edge length).
+	FlowGap float64
 }
 
 // GroupPull and GroupPush scale the wanted distance of pairs in one group
@@ -60,6 +74,13 @@ type Model struct {
 	// tell apart (leaves of one parent) would all go to one point.
 	sibling     [][2]int32
 	siblingDist [][2]float64
+
+	// The flow (Options.Flow): per vertex, the vertices it must follow
+	// (before) and those that must follow it (after), in compressed rows.
+	flowStart, flowAdj []int32 // before: flowAdj[flowStart[v]:flowMid[v]]
+	flowMid            []int32 // after: flowAdj[flowMid[v]:flowStart[v+1]]
+	flowDir            [2]float64
+	flowGap            float64
 }
 
 // ErrDisconnected is returned for a graph that is not connected.
@@ -115,16 +136,14 @@ func NewModel(n int, edges [][2]int32, lengths []float64, opt Options) (*Model, 
 	if sp.from(0, d); slices.Contains(d, math.Inf(1)) {
 		return nil, ErrDisconnected
 	}
-	if n <= opt.FullLimit {
-		m.full = make([]float32, n*n)
-		for s := range n {
-			sp.from(int32(s), d)
-			row := m.full[s*n : (s+1)*n]
-			for v, dv := range d {
-				row[v] = float32(dv)
-			}
-			m.regroup(int32(s), row, opt.Groups)
+	for _, e := range opt.Flow {
+		if e[0] < 0 || e[1] < 0 || int(e[0]) >= n || int(e[1]) >= n || e[0] == e[1] {
+			return nil, errInput
 		}
+	}
+	m.setFlow(opt)
+	if n <= opt.FullLimit {
+		m.fullModel(sp, d, opt.Groups)
 		return m, nil
 	}
 	m.sparse(min(opt.Pivots, n), sp)
@@ -133,6 +152,86 @@ func NewModel(n int, edges [][2]int32, lengths []float64, opt Options) (*Model, 
 	}
 	m.siblings()
 	return m, nil
+}
+
+// fullModel keeps every pairwise distance.
+func (m *Model) fullModel(sp *paths, d []float64, groups [][]int32) {
+	n := m.n
+	m.full = make([]float32, n*n)
+	for s := range n {
+		sp.from(int32(s), d)
+		row := m.full[s*n : (s+1)*n]
+		for v, dv := range d {
+			row[v] = float32(dv)
+		}
+		m.regroup(int32(s), row, groups)
+	}
+}
+
+// setFlow records Options.Flow in compressed rows.
+func (m *Model) setFlow(opt Options) {
+	if len(opt.Flow) == 0 {
+		return
+	}
+	n := m.n
+	m.flowDir = opt.FlowDir
+	if l := math.Hypot(m.flowDir[0], m.flowDir[1]); l > 0 {
+		m.flowDir[0], m.flowDir[1] = m.flowDir[0]/l, m.flowDir[1]/l
+	} else {
+		m.flowDir = [2]float64{0, -1}
+	}
+	m.flowGap = opt.FlowGap
+	if m.flowGap <= 0 {
+		m.flowGap = 0.6 * m.meanLength()
+	}
+	before, after := make([]int32, n), make([]int32, n)
+	for _, e := range opt.Flow {
+		after[e[0]]++
+		before[e[1]]++
+	}
+	m.flowStart, m.flowMid = make([]int32, n+1), make([]int32, n)
+	for v := range n {
+		m.flowMid[v] = m.flowStart[v] + before[v]
+		m.flowStart[v+1] = m.flowMid[v] + after[v]
+	}
+	m.flowAdj = make([]int32, m.flowStart[n])
+	fillB, fillA := append([]int32(nil), m.flowStart[:n]...), append([]int32(nil), m.flowMid...)
+	for _, e := range opt.Flow {
+		m.flowAdj[fillA[e[0]]] = e[1]
+		fillA[e[0]]++
+		m.flowAdj[fillB[e[1]]] = e[0]
+		fillB[e[1]]++
+	}
+}
+
+// Project moves the target (tx, ty) of v along the flow direction into
+// the range its flow pairs allow with the others where they are: at least
+// FlowGap beyond every vertex v follows, and FlowGap short of every vertex
+// that follows v (halfway between when the two bounds cross). Without a
+// flow it returns the target unchanged.
+func (m *Model) Project(v int32, tx, ty float64, x, y []float64) (float64, float64) {
+	if m.flowStart == nil {
+		return tx, ty
+	}
+	dx, dy := m.flowDir[0], m.flowDir[1]
+	lo, hi := math.Inf(-1), math.Inf(1)
+	for _, u := range m.flowAdj[m.flowStart[v]:m.flowMid[v]] {
+		lo = max(lo, float64(x[u]*dx)+float64(y[u]*dy)+m.flowGap)
+	}
+	for _, w := range m.flowAdj[m.flowMid[v]:m.flowStart[v+1]] {
+		hi = min(hi, float64(x[w]*dx)+float64(y[w]*dy)-m.flowGap)
+	}
+	at := float64(tx*dx) + float64(ty*dy)
+	want := at
+	switch {
+	case lo > hi:
+		want = (lo + hi) / 2
+	case at < lo:
+		want = lo
+	case at > hi:
+		want = hi
+	}
+	return tx + float64((want-at)*dx), ty + float64((want-at)*dy)
 }
 
 // regroup scales the distances row from vertex s to every vertex by
@@ -363,6 +462,7 @@ func (m *Model) Layout(x, y []float64, sweeps int, tol float64) int {
 			if !ok {
 				continue
 			}
+			tx, ty = m.Project(v, tx, ty, x, y)
 			dx, dy := tx-x[v], ty-y[v]
 			moved += math.Sqrt(float64(dx*dx) + float64(dy*dy))
 			x[v], y[v] = tx, ty

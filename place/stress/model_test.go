@@ -130,3 +130,35 @@ func TestLayoutOfPathIsStraight(t *testing.T) {
 		t.Errorf("stress %g, want about 0", s)
 	}
 }
+
+// TestProjectKeepsFlowOrder checks Project on a path 0 -> 1 -> 2 flowing
+// down (FlowDir 0, -1) with gap 1: vertex 1's target is moved to lie at
+// least 1 below vertex 0 and 1 above vertex 2, only along the flow, and
+// halfway between when the two bounds cross.
+func TestProjectKeepsFlowOrder(t *testing.T) {
+	edges := [][2]int32{{0, 1}, {1, 2}}
+	m, err := NewModel(3, edges, nil, Options{FullLimit: 3, Flow: edges, FlowDir: [2]float64{0, -1}, FlowGap: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, tc := range []struct {
+		y              []float64
+		ty, wantY      float64
+		wantX, targetX float64
+	}{
+		{[]float64{10, 0, 0}, 12, 9, 3, 3},  // above vertex 0: pushed down to 9
+		{[]float64{10, 0, 5}, 2, 6, 3, 3},   // below vertex 2: pushed up to 6
+		{[]float64{10, 0, 5}, 7, 7, 3, 3},   // between: unchanged
+		{[]float64{10, 0, 10}, 0, 10, 3, 3}, // bounds cross (9 and 11): halfway
+		{[]float64{10, 0, -10}, 0, 0, 3, 3}, // inside a wide range: unchanged
+	} {
+		x := []float64{0, 0, 0}
+		gx, gy := m.Project(1, tc.targetX, tc.ty, x, tc.y)
+		if math.Abs(gy-tc.wantY) > 1e-12 || gx != tc.wantX {
+			t.Errorf("y %v, target y %g: projected to (%g, %g), want (%g, %g)", tc.y, tc.ty, gx, gy, tc.wantX, tc.wantY)
+		}
+	}
+	if _, err := NewModel(3, edges, nil, Options{Flow: [][2]int32{{0, 3}}}); err == nil {
+		t.Error("a flow pair out of range was accepted")
+	}
+}
