@@ -95,7 +95,7 @@ func Example_dot() {
 
 // Space turns the grid drawing into points that respect node boxes: here
 // every box is 54 x 36 points (half sizes 27 and 18) with 18 points between
-// boxes, and the base unit follows from them (see README, Spacing).
+// boxes, and the base unit follows from them (see doc.go, The spacing rule).
 func ExampleResult_Space() {
 	// A wheel: a hub (0) and a rim of five.
 	edges := [][2]int32{{1, 2}, {2, 3}, {3, 4}, {4, 5}, {5, 1}, {0, 1}, {0, 2}, {0, 3}, {0, 4}, {0, 5}}

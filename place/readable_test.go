@@ -100,7 +100,7 @@ func TestReadableLimit(t *testing.T) {
 	}
 }
 
-// TestSpacingRule checks the spacing rule (README, Spacing) on drawings
+// TestSpacingRule checks the spacing rule (place/doc.go, The spacing rule) on drawings
 // that need stretching and refinement, with geomcheck: no two node boxes
 // overlap, and no kept edge passes through the box of a node it does not
 // end at, unless Space counted the component Unchecked or Crowded; every
@@ -131,7 +131,7 @@ func TestSpacingRule(t *testing.T) {
 // drawings of typical graphs within the face-count grid at the base unit:
 // at most (2n-4) base units across (Felsner 2001: f - 1 <= 2n - 5 grid
 // steps, plus a box), where the Schnyder grid alone, stretched to clear
-// the boxes, grows past a hundred times that on these graphs (README,
+// the boxes, grows past a hundred times that on these graphs (bench/RESULTS.md,
 // Spacing). Every drawing still passes geomcheck and clears every box.
 func TestDrawingSizeBound(t *testing.T) {
 	for _, g := range []graphgen.Graph{

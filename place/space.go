@@ -77,7 +77,7 @@ const (
 	maxExtent = 1 << 29
 	// barycentricAreaAllowance: the barycentric drawing is preferred to
 	// the grid one unless it needs more than this times the area; its
-	// even spread reads better (see README, Spacing).
+	// even spread reads better (see doc.go, The spacing rule).
 	barycentricAreaAllowance = 2.0
 	// gridCompareLimit is the largest component whose grid drawing is
 	// compared with its barycentric one.
@@ -108,7 +108,7 @@ var errBoxSize = errors.New("place: a box half size or the gap is over 65,536 po
 func tooBig(half int64) bool { return half > maxBoxHalf }
 
 // Space turns the grid drawing into positions in points that respect the
-// node boxes (README, Spacing, states the rule for users). Per connected
+// node boxes (doc.go, The spacing rule). Per connected
 // component:
 //
 //   - the base unit is the largest box side plus the gap, so two boxes on

@@ -18,6 +18,17 @@
 // or K3,3 that proves a graph non-planar, which explains why an edge had to
 // go.
 //
+// The greedy search tests each candidate edge against its block, so when
+// many edges must go the time could grow with their number times the
+// block's size. Two shortcuts give the same answers for less: a first try
+// on the part of the block around a shortest path between the candidate's
+// ends (localProof; in a near-triangulation that part already holds a
+// Kuratowski subgraph), and, where what stays is a tree with a few cycles,
+// a test on that graph's skeleton, its 2-core with every chain of degree-2
+// vertices made one edge (skeleton). FindKuratowski likewise searches
+// outward from a shortest path between the edge's ends (nearFirst), so
+// certificates in big meshes stay small and quick.
+//
 // Inputs must be valid: endpoints in 0..n-1, and for Embed, IsPlanar,
 // Blocks, MaximalPlanar and FindKuratowski no loops or repeated pairs
 // (Simplify first). Every search that could be long has a work bound

@@ -8,7 +8,7 @@ import (
 	"github.com/gridwood/gridwood/place"
 )
 
-// Node boxes come from package nodesize (README, "Spacing"): the DOT
+// Node boxes come from package nodesize (README, "Node boxes"): the DOT
 // attribute rules for width, height, shape, label, fixedsize, fontsize,
 // margin and peripheries. Boxes keep a quarter inch clear.
 const boxGap = 18 // points

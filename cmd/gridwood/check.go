@@ -74,7 +74,7 @@ const maxPosDecimals = 6
 // Edges are straight segments between node centres: edge pos (spline
 // points) and ports are ignored, the graph is taken as undirected, loops
 // are ignored and repeated edges count once. Boxes are the node boxes the
-// layout itself keeps clear (README, Spacing; package nodesize): the width
+// layout itself keeps clear (README, Node boxes; package nodesize): the width
 // x height of each node (DOT's 0.75 x 0.5 inches when unset), grown to fit
 // its label unless fixedsize is set, round shapes as wide as tall, centred
 // on its pos; so a drawing gridwood made passes unless its report counts

@@ -59,7 +59,7 @@ func TestCheckFile(t *testing.T) {
 		}},
 		{"labels.dot", []string{
 			// a's label, 26 characters of 14-point type, grows its box to
-			// 26 x 0.6 x 14 + 2 x 8 = 234.4 points wide (README, Spacing):
+			// 26 x 0.6 x 14 + 2 x 8 = 234.4 points wide (README, Node boxes):
 			// b, 100 points away, overlaps it. c's is fixed at 0.75 inches.
 			// The edge d-e (y = 200) passes f 20 points off: its default
 			// box (half height 18) would clear it, but its label grows it
@@ -283,7 +283,7 @@ func TestCheckToFile(t *testing.T) {
 }
 
 // TestUnclearedComponentsNamed: a component too big for the box check
-// (over 5,000 nodes, README, Spacing) is laid out, and standard error says
+// (over 5,000 nodes, README, Limits) is laid out, and standard error says
 // that edges may pass through node boxes there; -q says nothing.
 func TestUnclearedComponentsNamed(t *testing.T) {
 	var b strings.Builder

@@ -154,7 +154,7 @@ func TestDeterministicAcrossProcesses(t *testing.T) {
 }
 
 // TestDirectionDoesNotChangeLayout checks that edge direction is ignored
-// by the layout (README.md, "What is kept"): a random planar graph with
+// by the layout (README.md, "What the output contains"): a random planar graph with
 // its nodes declared first, written with every edge one way, with each
 // single edge reversed in turn, with a seeded half of them reversed, and
 // as a digraph with arrows, gets the same positions every time; so does a

@@ -634,7 +634,7 @@ func appendedLayout(out *ast.Graph, in *graphMeaning) (body []ast.Stmt, pos [][2
 // height in inches, DOT's defaults 0.75 and 0.5 (SOURCES.md) when unset,
 // round shapes as wide as tall;
 // ok is false when a value is set but not a plain size gridwood honours
-// (README, Spacing: from 0 to below 1000; then nothing is checked for that
+// (README, Node boxes: from 0 to below 1000; then nothing is checked for that
 // node).
 func nodeHalfSize(a attrMap) (hw, hh float64, ok bool) {
 	size := func(key string, def float64) (float64, bool) {
@@ -657,7 +657,7 @@ func nodeHalfSize(a attrMap) (hw, hh float64, ok bool) {
 	}
 	// Round shapes (and square) are as wide as tall: width alone, height
 	// alone, or the larger of both; with neither, 0.5 inch (a point
-	// 0.05). README, Spacing.
+	// 0.05). README, Node boxes.
 	switch strings.ToLower(strings.TrimSpace(a["shape"])) {
 	case "circle", "doublecircle", "square", "point":
 		_, wSet := a["width"]

@@ -12,7 +12,7 @@ import (
 	"github.com/gridwood/gridwood/internal/geomcheck"
 )
 
-// This file checks README.md's "The outer face": with --outer A,B,C the
+// This file checks README.md's "Grid drawings" on --outer: with --outer A,B,C the
 // named nodes lie on the outer boundary of their component's drawing. The
 // check is geometric and independent of package place: the faces of the
 // output drawing are traced from the angular order of the edges at each

@@ -352,10 +352,10 @@ func minNodeEdge(pos [][2]int64, pairs [][2]int) (float64, bool) {
 	return best, ok
 }
 
-// box is a node box in points per README.md, Spacing, as half sizes.
+// box is a node box in points per README.md, Node boxes, as half sizes.
 type box struct{ hw, hh float64 }
 
-// readmeBoxes computes every node's box by README.md's rule ("Spacing"):
+// readmeBoxes computes every node's box by README.md's rule ("Node boxes", in full in dotio/nodesize/doc.go):
 // width and height in inches (0.75 and 0.5), grown to fit the label unless
 // fixedsize=true, a label line being 0.6 em per character and 1.2 em per
 // line (fontsize, 14 points) plus 8 points across and 4 above and below;
@@ -491,7 +491,7 @@ func checkRecord(t *testing.T, rec graphRecord, out *ast.Graph, d drawn, unitFla
 		t.Errorf("%s: tree_components %d, face_count_components %d (barycentric %d) of %d components, --unit %d", id, rec.TreeComponents, rec.FaceCountComponents, rec.BarycentricComponents, ncomp, unitFlag)
 	}
 	if unitFlag > 0 && rec.BarycentricComponents != 0 {
-		t.Errorf("%s: --unit skips the barycentric drawing (README, Spacing), but barycentric_components %d", id, rec.BarycentricComponents)
+		t.Errorf("%s: --unit skips the barycentric drawing (place/doc.go, The spacing rule), but barycentric_components %d", id, rec.BarycentricComponents)
 	}
 	// Grid extent and area.
 	if rec.GridWidth < 0 || rec.GridHeight < 0 {
@@ -541,7 +541,7 @@ func checkRecord(t *testing.T, rec graphRecord, out *ast.Graph, d drawn, unitFla
 		for _, b := range boxes {
 			side = max(side, 2*b.hw, 2*b.hh)
 		}
-		// README: the base unit is the largest box side plus 18 points.
+		// README, Grid drawings: the grid step (base unit) is the largest box side plus 18 points.
 		// The output is integral: each half size is rounded up to a whole
 		// point, which adds less than 2.
 		if want := side + 18; unitFlag == 0 && (float64(rec.Unit) < want || float64(rec.Unit) >= want+2) {
@@ -597,7 +597,7 @@ func TestReportFiguresMatchOutput(t *testing.T) {
 }
 
 // TestReportGridExtentOnUnitGrid runs with --unit, which puts node centres
-// on a grid of that many points (README, Spacing): there the grid extent
+// on a grid of that many points (README, Grid drawings): there the grid extent
 // is visible in the positions, and node boxes of 54 x 36 points on a 40
 // point grid overlap, so the box counts are exercised.
 func TestReportGridExtentOnUnitGrid(t *testing.T) {
@@ -640,7 +640,7 @@ func TestReportGridExtentOnUnitGrid(t *testing.T) {
 			if w > rec.GridWidth || h > rec.GridHeight {
 				t.Errorf("%s: component %d spans %d x %d steps, more than grid %d x %d", id, c, w, h, rec.GridWidth, rec.GridHeight)
 			}
-			// README, Methods: all points lie on the (n-2) x (n-2) grid.
+			// README, Grid drawings: all points lie on the (n-2) x (n-2) grid.
 			if k := int64(count[c]); k >= 3 && (w > k-2 || h > k-2) {
 				t.Errorf("%s: a component of %d nodes spans %d x %d steps, beyond (n-2) x (n-2)", id, k, w, h)
 			}

@@ -894,7 +894,7 @@ func fellBackNames(g *dotio.Graph, least []int) string {
 const defaultWidth, defaultHeight = 0.75, 0.5
 
 // unclearedText says how many components the spacing could not clear of
-// node boxes, and why (README, Spacing).
+// node boxes, and why (README, Limits; place/doc.go).
 func unclearedText(unchecked, crowded int) string {
 	plural := func(k int, what string) string {
 		if k == 1 {
