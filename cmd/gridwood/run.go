@@ -173,7 +173,7 @@ func parseFlags(args []string) (*config, error) {
 	fs.BoolVar(&cfg.planarOnly, "planar-only", false, "treat a non-planar graph as an error (exit status 3)")
 	fs.StringVar(&cfg.explainFile, "explain", "", "write to `FILE`, for each removed edge, a Kuratowski subgraph (a\nsubdivision of K5 or K3,3 made of it and kept edges) proving it\ncould not stay, as DOT; one graph per input graph")
 	fs.IntVar(&cfg.effort, "effort", 0, "search more for fewer removed edges: `N` seeded restarts and a\nwider exact search on small blocks; the same N always gives the\nsame result")
-	fs.BoolVar(&cfg.check, "check", false, "lay nothing out: check the positions already in the input and\nlist crossing edges, nodes on edges, overlapping node boxes and\nedges through node boxes, one per line; exit status 1 if any\nexample: gridwood -q net.dot | gridwood --check")
+	fs.BoolVar(&cfg.check, "check", false, "lay nothing out: check the positions already in the input and\nlist crossing edges, nodes on edges, overlapping node boxes,\nedges through node boxes, nodes in the frames of clusters they\nare not in and overlapping cluster frames, one per line; exit\nstatus 1 if any\nexample: gridwood -q net.dot | gridwood --check")
 	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE`;\nwith --check, a picture of the drawing as the input gives it")
 	fs.StringVar(&cfg.reportFile, "report", "", "write a JSON quality report to `FILE` (README, Quality report)")
 	fs.BoolVar(&cfg.version, "version", false, "print the version and exit")
@@ -576,6 +576,7 @@ func process(cfg *config, std *stdStreams) error {
 		layouts := make([]dotio.Layout, len(f.Graphs))
 		removed := make([][]int, len(f.Graphs))
 		results := make([]*place.Result, len(f.Graphs))
+		frames := make([][]preview.Frame, len(f.Graphs))
 		totalEdges, edgesDone := 0, 0
 		for _, g := range f.Graphs {
 			totalEdges += len(g.Edges) + 1
@@ -591,6 +592,8 @@ func process(cfg *config, std *stdStreams) error {
 			if err != nil {
 				return err
 			}
+			clusters := gr.clusters
+			gr.clusters = nil // the report keeps figures only
 			rep.Graphs = append(rep.Graphs, gr)
 			if gr.caps.count > 0 && !cfg.quiet {
 				n := g.Nodes[gr.caps.first]
@@ -601,6 +604,17 @@ func process(cfg *config, std *stdStreams) error {
 				prog.note("gridwood: %s:%d:%d: node %s: its label needs a box over 1000 inches a side; the box was taken as 1000 inches%s\n", name, n.Line, n.Col, strconv.Quote(n.Name), more)
 			}
 			layouts[gi], removed[gi] = lay, res.Removed
+			if !cfg.quiet {
+				if clusters != nil {
+					warnClusters(prog.note, name, g, gi, clusters.set)
+				}
+				if _, value, ok := flowDirection(g); g.Directed && !ok {
+					prog.note("gridwood: %s:%d:%d: %s: rankdir %s is not TB, LR, BT or RL; taken as TB\n", name, g.Line, g.Col, graphName(g, gi), strconv.Quote(value))
+				}
+			}
+			if cfg.svgFile != "" {
+				frames[gi] = previewFrames(clusters)
+			}
 			// The drawing's internals and the node boxes are kept only for
 			// the outputs that need them: a file of many small graphs
 			// would otherwise hold every graph's working state at once.
@@ -657,7 +671,9 @@ func process(cfg *config, std *stdStreams) error {
 		}
 		if cfg.svgFile != "" {
 			for gi, g := range f.Graphs {
-				pictures = append(pictures, preview.FromLayout(g, layouts[gi]))
+				pg := preview.FromLayout(g, layouts[gi])
+				pg.Frames = frames[gi]
+				pictures = append(pictures, pg)
 			}
 		}
 	}
@@ -814,6 +830,16 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 			lay.Removed[i] = true
 		}
 	}
+	// Cluster frames (README, "What the output contains"): the drawing
+	// moves, whole grid steps under --unit, so that it starts at 0,0
+	// with its frames.
+	var clusters *clusterInfo
+	if set := g.Clusters(preview.FrameKeys()...); len(set.Clusters) > 0 {
+		if clusters, err = layoutFrames(g, set, &lay, boxes, int64(cfg.unit)); err != nil {
+			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+		}
+		sp.Width, sp.Height = lay.BB[2], lay.BB[3]
+	}
 	if res.NotConvex > 0 && !cfg.quiet {
 		cfg.prog.note("gridwood: %s: %d of %d components are not 3-connected and were drawn with the schnyder method: %s\n", where, res.NotConvex, len(res.Components), fellBackNames(g, res.FellBackVertices()))
 	}
@@ -827,8 +853,12 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 			name = "convex"
 		}
 		gr = graphMeasures(g, gi, name, res, sp, boxes, spaceTime)
+		if err := gr.addStructure(g, lay.Removed, sp, clusters, res); err != nil {
+			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+		}
 	}
 	gr.caps = caps
+	gr.clusters = clusters
 	return res, lay, boxes, gr, nil
 }
 
