@@ -88,6 +88,19 @@ func TestCheckFile(t *testing.T) {
 			// 2^40 = 1099511627776 (geomcheck.MaxCoord).
 			`malformed.dot:8:2: node "f": pos "2000000000000,0" is too far out to be checked exactly (want |x|, |y| <= 1099511627776)`,
 		}},
+		{"clusters.dot", []string{
+			// Default boxes 54 x 36 points, frames 8 points round them
+			// (README, What the output contains). cluster_a's frame spans
+			// x -35..235, so c's box (73..127) lies in it. p's frame
+			// (-35..35) and q's (31..101) overlap, though neither box
+			// reaches the other's frame (27 < 31, 39 > 35). cluster_inner
+			// (-35..35) keeps clear of s (73..127). w lies in the frames
+			// of cluster_n and of cluster_m around it: two intrusions.
+			`clusters.dot:4:2: node "c" lies in the frame of cluster "cluster_a", which it does not belong to`,
+			`clusters.dot:15:2: node "w" lies in the frame of cluster "cluster_m", which it does not belong to`,
+			`clusters.dot:15:2: node "w" lies in the frame of cluster "cluster_n", which it does not belong to`,
+			`clusters.dot:5:2: frames of clusters "cluster_p" and "cluster_q" overlap`,
+		}},
 		{"range.dot", []string{
 			`range.dot:5:2: node "b": pos "2000000,0" is too far out to be checked exactly (want |x|, |y| <= 1099511.627776)`,
 		}},
