@@ -183,7 +183,7 @@ func TestClusterFrames(t *testing.T) {
 	const margin = 8 // README, "What the output contains"
 	for _, in := range clusterInputs {
 		src := clusterSource(t, in.name, in.src)
-		for _, flags := range [][]string{nil, {"--unit", "90"}, {"--grid"}} {
+		for _, flags := range [][]string{nil, {"--unit", "90"}, {"--grid"}, {"--no-flow"}} {
 			t.Run(filepath.Base(in.name)+strings.Join(flags, ""), func(t *testing.T) {
 				code, out, errs := runCmd(t, src, append([]string{"-q"}, flags...)...)
 				if code != exitOK {

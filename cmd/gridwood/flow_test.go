@@ -10,24 +10,32 @@ import (
 )
 
 // flowInputs are small digraphs whose edges on directed cycles are
-// counted by hand (cycles), with the kept edges as written (kept).
+// counted by hand (cycles), with the kept edges as written (kept), and,
+// where it follows from the rule whatever the layout, the edges the
+// orientation points along the flow (along; -1 where it depends on the
+// drawing).
 var flowInputs = []struct {
-	name, src    string
-	kept, cycles int
+	name, src           string
+	kept, cycles, along int
 }{
+	// One edge between two default boxes: the spacing keeps them at
+	// least 54 + 18 points apart along one axis (README, Spacing), so
+	// whichever way it runs, a mirror image, or a quarter turn that
+	// leaves the boxes 72 >= 36 + 18 points apart on the other axis,
+	// points it along.
+	{"pair", "digraph pair {\n\ta -> b\n}\n", 1, 0, 1},
 	// A triangle a -> b -> c -> a and a loop at d lie on cycles; c -> d
 	// does not.
-	{"triangle", "digraph triangle {\n\ta -> b -> c -> a\n\tc -> d\n\td -> d\n}\n", 5, 4},
+	{"triangle", "digraph triangle {\n\ta -> b -> c -> a\n\tc -> d\n\td -> d\n}\n", 5, 4, -1},
 	// A two-cycle and a repeat of one of its edges: all three on it.
-	{"two-cycle", "digraph two_cycle {\n\trankdir=BT\n\ta -> b\n\tb -> a\n\ta -> b\n}\n", 3, 3},
-	{"diamond", "digraph diamond {\n\trankdir=LR\n\ta -> {b c}\n\tb -> d\n\tc -> d\n\td -> e\n}\n", 5, 0},
-	{"chain", "digraph chain {\n\trankdir=RL\n\tx -> y -> z\n}\n", 2, 0},
+	{"two-cycle", "digraph two_cycle {\n\trankdir=BT\n\ta -> b\n\tb -> a\n\ta -> b\n}\n", 3, 3, 0},
+	{"diamond", "digraph diamond {\n\trankdir=LR\n\ta -> {b c}\n\tb -> d\n\tc -> d\n\td -> e\n}\n", 5, 0, -1},
+	{"chain", "digraph chain {\n\trankdir=RL\n\tx -> y -> z\n}\n", 2, 0, -1},
 	// K5 as a transitive tournament: acyclic, one of its 10 edges set
 	// aside (Kuratowski), 9 kept.
-	{"tournament", "digraph tournament {\n\ta -> {b c d e}\n\tb -> {c d e}\n\tc -> {d e}\n\td -> e\n}\n", 9, 0},
-	// A cycle through three nodes drawn in a crossing-free way, and a
-	// path leaving it: 3 on the cycle.
-	{"cycle and path", "digraph cycle_path {\n\trankdir=TB\n\tp -> q -> r -> p\n\tr -> s -> t\n}\n", 5, 3},
+	{"tournament", "digraph tournament {\n\ta -> {b c d e}\n\tb -> {c d e}\n\tc -> {d e}\n\td -> e\n}\n", 9, 0, -1},
+	// A cycle through three nodes and a path leaving it: 3 on the cycle.
+	{"cycle and path", "digraph cycle_path {\n\trankdir=TB\n\tp -> q -> r -> p\n\tr -> s -> t\n}\n", 5, 3, -1},
 }
 
 // reaches reports whether a path of edges leads from s to t.
@@ -114,8 +122,10 @@ func reportRecord(t *testing.T, src string, args ...string) (graphRecord, string
 }
 
 // TestReportFlow: the report's flow figures are the ones the output's
-// positions give, edges on cycles as counted by hand; the three add up to
-// the kept edges; an undirected graph has none. The drawing is checked
+// positions give, edges on cycles as counted by hand, and edges along
+// the flow too where the orientation rule decides them whatever the
+// layout; the three add up to the kept edges; an undirected graph has
+// none. The drawing is checked
 // with geomcheck.
 func TestReportFlow(t *testing.T) {
 	for _, tc := range flowInputs {
@@ -130,6 +140,9 @@ func TestReportFlow(t *testing.T) {
 			}
 			if *rec.FlowAlong != along || *rec.FlowAgainst != against || *rec.FlowOnCycles != cycles {
 				t.Errorf("report along %d against %d on cycles %d; the output gives %d, %d, %d", *rec.FlowAlong, *rec.FlowAgainst, *rec.FlowOnCycles, along, against, cycles)
+			}
+			if tc.along >= 0 && *rec.FlowAlong != tc.along {
+				t.Errorf("along %d, want %d", *rec.FlowAlong, tc.along)
 			}
 			if *rec.FlowAlong+*rec.FlowAgainst+*rec.FlowOnCycles != tc.kept {
 				t.Errorf("figures add up to %d, want %d", *rec.FlowAlong+*rec.FlowAgainst+*rec.FlowOnCycles, tc.kept)

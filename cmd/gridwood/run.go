@@ -20,6 +20,7 @@ import (
 	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/dotio/preview"
 	"github.com/gridwood/gridwood/place"
+	"github.com/gridwood/gridwood/place/flow"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -47,6 +48,7 @@ type config struct {
 	output       string
 	unit         int
 	gridOnly     bool
+	noFlow       bool
 	quiet        bool
 	removedFile  string
 	dropRemoved  bool
@@ -147,7 +149,7 @@ var flagGroups = []struct {
 	flags []string
 }{
 	{"Input and output", []string{"output", "quiet", "max-expansion"}},
-	{"Drawing", []string{"unit", "grid", "method", "outer"}},
+	{"Drawing", []string{"unit", "grid", "method", "outer", "no-flow"}},
 	{"Non-planar graphs", []string{"removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort"}},
 	{"Checking and preview", []string{"check", "svg", "report"}},
 	{"About gridwood", []string{"version", "help"}},
@@ -167,6 +169,7 @@ func parseFlags(args []string) (*config, error) {
 	fs.BoolVar(&cfg.gridOnly, "grid", false, "keep the grid drawing even where it crowds (spacing still from\nthe node sizes)")
 	method := fs.String("method", "schnyder", "drawing `METHOD`: schnyder draws every planar graph; convex draws\n3-connected components with every face convex (the others fall\nback to schnyder, and standard error names them)")
 	outer := fs.String("outer", "", "comma-separated `NAMES` of nodes that must lie on the outer\nboundary, as written but without quotes; applies to every graph\nthat has all of them\nexample: --outer Refectory,Gym,Chapel")
+	fs.BoolVar(&cfg.noFlow, "no-flow", false, "leave a digraph's drawing as laid out; by default it is mirrored,\nor turned a quarter when the boxes stay clear, so that the most\nedges not on a directed cycle point along its rankdir (TB when\nunset)")
 	fs.StringVar(&cfg.removedFile, "removed", "", "write the removed edges to `FILE` as DOT: one graph per input\ngraph, one edge per line with its attributes, in input order")
 	fs.BoolVar(&cfg.dropRemoved, "drop-removed", false, "leave the removed edges out of the main output")
 	mark := fs.String("mark-removed", "", "add these `ATTRS` to the removed edges in the main output,\nreplacing any of the same name on their statement\nexample: --mark-removed 'style=dashed,color=\"#999999\"'")
@@ -211,7 +214,7 @@ func parseFlags(args []string) (*config, error) {
 		// silently ignored.
 		// --svg is no layout flag: with --check it draws the input's own
 		// drawing.
-		for _, name := range []string{"unit", "grid", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "method", "outer", "report"} {
+		for _, name := range []string{"unit", "grid", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "method", "outer", "report", "no-flow"} {
 			if fs.Changed(name) {
 				return nil, &usageError{"--check lays nothing out: --" + name + " does not go with it"}
 			}
@@ -823,13 +826,23 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
 	}
 	spaceTime := time.Since(spaceStart)
-	lay := dotio.Layout{X: sp.X, Y: sp.Y, BB: [4]int64{0, 0, sp.Width, sp.Height}}
+	var removed []bool
 	if len(res.Removed) > 0 {
-		lay.Removed = make([]bool, len(g.Edges))
+		removed = make([]bool, len(g.Edges))
 		for _, i := range res.Removed {
-			lay.Removed[i] = true
+			removed[i] = true
 		}
 	}
+	// Digraph flow (README, "Digraph flow"): the finished drawing is
+	// mirrored or turned so that the most edges point along rankdir,
+	// before the frames are put round it.
+	sym := flow.Identity
+	if g.Directed && !cfg.noFlow {
+		if sym, err = orientFlow(g, removed, res.Kept(), sp, boxes); err != nil {
+			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+		}
+	}
+	lay := dotio.Layout{X: sp.X, Y: sp.Y, BB: [4]int64{0, 0, sp.Width, sp.Height}, Removed: removed}
 	// Cluster frames (README, "What the output contains"): the drawing
 	// moves, whole grid steps under --unit, so that it starts at 0,0
 	// with its frames.
@@ -853,6 +866,9 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 			name = "convex"
 		}
 		gr = graphMeasures(g, gi, name, res, sp, boxes, spaceTime)
+		if sym.SwapsAxes() {
+			gr.GridWidth, gr.GridHeight = gr.GridHeight, gr.GridWidth // the grid as drawn
+		}
 		if err := gr.addStructure(g, lay.Removed, sp, clusters, res); err != nil {
 			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
 		}

@@ -257,6 +257,7 @@ func TestExitStatusesAndMessages(t *testing.T) {
 		{"quiet", k5, []string{"-q"}, exitOK, ""},
 		{"missing file", "", []string{"/no/such/file.dot"}, exitBadInput, "no such file"},
 		{"check with a layout flag", "graph{}", []string{"--check", "--report", "x.json"}, exitBadInput, "gridwood: --check lays nothing out: --report does not go with it (see gridwood --help)\n"},
+		{"check with --no-flow", "graph{}", []string{"--check", "--no-flow"}, exitBadInput, "gridwood: --check lays nothing out: --no-flow does not go with it (see gridwood --help)\n"},
 		{"outer with no names", "graph{}", []string{"--outer", " "}, exitBadInput, "gridwood: --outer: no node names given (see gridwood --help)\n"},
 		{"output in a missing directory", "graph{}", []string{"-o", "/no/such/dir/x.dot"}, exitBadInput, "gridwood: /no/such/dir/x.dot: cannot write: no such file or directory\n"},
 		{"size not taken", "graph G { a [width=1000]; a -- b }", nil, exitOK, `<stdin>:1:11: node "a": width "1000" is not a size below 1000 and was taken as the default` + "\n"},
@@ -317,7 +318,7 @@ func TestHelpAndVersion(t *testing.T) {
 		flags   []string
 	}{
 		{"Input and output:", []string{"output", "quiet", "max-expansion"}},
-		{"Drawing:", []string{"unit", "grid", "method", "outer"}},
+		{"Drawing:", []string{"unit", "grid", "method", "outer", "no-flow"}},
 		{"Non-planar graphs:", []string{"removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort"}},
 		{"Checking and preview:", []string{"check", "svg", "report"}},
 		{"About gridwood:", []string{"version", "help"}},

@@ -17,4 +17,12 @@
 // the flow's axis than its tail (the other coordinate does not matter);
 // an edge whose ends are level on that axis, or whose head lies behind its
 // tail, points against it.
+//
+// Orient chooses, among the eight symmetries of a finished drawing (the
+// identity, three mirror images and four that swap the axes), the one
+// that points the most edges not on a cycle along the flow, ties going
+// to the identity and then to the order of Symmetries. Mirror images keep
+// a drawing's node boxes as clear as they were; a swap of the axes is
+// taken only when the caller's check says the swapped drawing stays
+// clear. It takes linear time, and the check once at most.
 package flow
