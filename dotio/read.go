@@ -109,6 +109,9 @@ type Graph struct {
 	// appended positions do): Write leaves them out, so that output read
 	// again prints the same.
 	posOnly map[*ast.NodeStmt]bool
+	// clusterAt holds the byte offset of the subgraph keyword of every
+	// occurrence of a cluster subgraph (nil when there is none).
+	clusterAt map[*ast.Subgraph]int32
 }
 
 // Node is a node of a graph.

@@ -104,6 +104,10 @@ type scanned struct {
 	// subNodes holds, for each subgraph brace in text order (graph bodies
 	// excluded), the number of node tokens inside it.
 	subNodes []int32
+	// subAt holds, for each subgraph brace as subNodes does, the offset of
+	// its subgraph keyword, or of the brace itself when none precedes it
+	// (an anonymous `{...}`): where a cluster is said to be.
+	subAt []int32
 	// splitNum is the offset of the first numeral directly followed by a
 	// letter, digit or dot ("1e3", "2x"), which DOT reads as two IDs, and
 	// splitCount how many there are; -1 and 0 when there is none.
@@ -125,6 +129,8 @@ type scanner struct {
 
 	// classification state
 	prev         tokKind
+	prev2        tokKind // the token before prev
+	subKw        int32   // offset of the last subgraph keyword
 	braceDepth   int
 	bracketDepth int
 	pending      int32 // offset of an ID that is a node unless '=' follows; -1 if none
@@ -740,6 +746,11 @@ func (s *scanner) token(kind tokKind, off int) error {
 		if s.braceDepth > 0 {
 			s.subOpen = append(s.subOpen, subOpen{index: int32(len(s.res.subNodes)), nodeCount: int32(len(s.res.nodeToks))})
 			s.res.subNodes = append(s.res.subNodes, 0)
+			at := int32(off)
+			if s.prev == tKwSubgraph || s.prev.isID() && s.prev2 == tKwSubgraph {
+				at = s.subKw
+			}
+			s.res.subAt = append(s.res.subAt, at)
 		}
 		s.braceDepth++
 	case tRBrace:
@@ -757,13 +768,15 @@ func (s *scanner) token(kind tokKind, off int) error {
 		if s.bracketDepth > 0 {
 			s.bracketDepth--
 		}
+	case tKwSubgraph:
+		s.subKw = int32(off)
 	case tKwGraph, tKwDigraph:
 		if s.braceDepth == 0 {
 			s.res.graphKw = append(s.res.graphKw, int32(off))
 			s.directed = kind == tKwDigraph
 		}
 	}
-	s.prev = kind
+	s.prev2, s.prev = s.prev, kind
 	return nil
 }
 

@@ -84,7 +84,7 @@ func TestScannerAgreesWithGonum(t *testing.T) {
 			t.Fatalf("%s: gonum: %v\n%s", name, err, sc.text)
 		}
 		nodes, ops, subs := astCounts(f)
-		if nodes != len(sc.nodeToks) || ops != len(sc.ops) || subs != len(sc.subNodes) || len(f.Graphs) != len(sc.graphKw) {
+		if nodes != len(sc.nodeToks) || ops != len(sc.ops) || subs != len(sc.subNodes) || subs != len(sc.subAt) || len(f.Graphs) != len(sc.graphKw) {
 			t.Errorf("%s: gonum has %d nodes, %d ops, %d subgraphs, %d graphs; scanner %d, %d, %d, %d\n%s",
 				name, nodes, ops, subs, len(f.Graphs), len(sc.nodeToks), len(sc.ops), len(sc.subNodes), len(sc.graphKw), src)
 		}

@@ -222,6 +222,13 @@ func (w *walker) openList(sub *ast.Subgraph, isOperand bool) error {
 		// A named one's key starts with a kind byte, so that the empty
 		// name `subgraph ""` is a name too.
 		name, html := canonical(sub.ID)
+		if !html && isClusterName(name) {
+			// Where each occurrence of a cluster starts, for Clusters.
+			if w.g.clusterAt == nil {
+				w.g.clusterAt = make(map[*ast.Subgraph]int32)
+			}
+			w.g.clusterAt[sub] = w.sc.subAt[w.subCount]
+		}
 		key := subKey{parent, "s" + name}
 		if html {
 			key.name = "h" + name

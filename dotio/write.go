@@ -18,7 +18,16 @@ type Layout struct {
 	X, Y    []int64  // pos in points per node (index as in Graph.Nodes)
 	BB      [4]int64 // llx, lly, urx, ury in points
 	Removed []bool   // per edge (index into Graph.Edges): the layout set this edge aside; nil = none
+	// ClusterBB holds a frame per cluster, indexed as Graph.Clusters
+	// returns them (llx, lly, urx, ury in points), written as a
+	// `graph [bb="..."]` statement at the end of the body of the
+	// cluster's first occurrence; an entry with urx < llx or ury < lly
+	// (an empty cluster's) writes none, and nil writes none at all.
+	ClusterBB [][4]int64
 }
+
+// NoBB is a ClusterBB entry that writes no bb.
+var NoBB = [4]int64{0, 0, -1, -1}
 
 // WriteOptions configure what Write does with removed edges.
 type WriteOptions struct {
@@ -90,6 +99,11 @@ func Write(w io.Writer, f *File, layouts []Layout, opt WriteOptions) error {
 		if l.Removed != nil && len(l.Removed) != len(g.Edges) {
 			return fmt.Errorf("dotio: graph %d: %d removed flags for %d edges", gi, len(l.Removed), len(g.Edges))
 		}
+		if l.ClusterBB != nil {
+			if k := len(g.Clusters().Clusters); len(l.ClusterBB) != k {
+				return fmt.Errorf("dotio: graph %d: %d cluster boxes for %d clusters", gi, len(l.ClusterBB), k)
+			}
+		}
 	}
 	p := &printer{bw: bufio.NewWriter(w), f: f, opt: opt}
 	for gi, g := range f.Graphs {
@@ -119,6 +133,7 @@ type printer struct {
 	stack []pframe
 	err   error
 	opBuf []int32
+	bbAt  map[*ast.Subgraph][4]int64 // cluster boxes to write, by first occurrence
 }
 
 // pframe is a statement list being printed, or an edge statement.
@@ -127,7 +142,8 @@ type pframe struct {
 	stmts  []ast.Stmt
 	i      int
 	depth  int
-	inEdge bool // the list is a subgraph operand of the edge frame below
+	inEdge bool      // the list is a subgraph operand of the edge frame below
+	bb     *[4]int64 // a cluster box to write at the end of the list
 
 	// edge statement
 	es    *ast.EdgeStmt
@@ -151,6 +167,17 @@ func (p *printer) indent(depth int) {
 
 func (p *printer) graph(g *Graph, lay *Layout) {
 	p.g, p.lay = g, lay
+	p.bbAt = nil
+	if lay.ClusterBB != nil {
+		for c, cl := range g.Clusters().Clusters {
+			if bb := lay.ClusterBB[c]; bb[0] <= bb[2] && bb[1] <= bb[3] {
+				if p.bbAt == nil {
+					p.bbAt = make(map[*ast.Subgraph][4]int64)
+				}
+				p.bbAt[cl.first] = bb
+			}
+		}
+	}
 	ag := g.ast
 	if ag.Strict {
 		p.ws("strict ")
@@ -178,16 +205,23 @@ func (p *printer) graph(g *Graph, lay *Layout) {
 		p.ws(string(num))
 		p.ws("\"]\n")
 	}
-	num = num[:0]
-	for j, v := range lay.BB {
+	p.ws("\t")
+	p.bb(lay.BB)
+	p.ws("}\n")
+}
+
+// bb prints a `graph [bb="..."]` statement and its line break.
+func (p *printer) bb(bb [4]int64) {
+	var num []byte
+	for j, v := range bb {
 		if j > 0 {
 			num = append(num, ',')
 		}
 		num = strconv.AppendInt(num, v, 10)
 	}
-	p.ws("\tgraph [bb=\"")
+	p.ws("graph [bb=\"")
 	p.ws(string(num))
-	p.ws("\"]\n}\n")
+	p.ws("\"]\n")
 }
 
 func (p *printer) run() {
@@ -199,10 +233,14 @@ func (p *printer) run() {
 			continue
 		}
 		if fr.i == len(fr.stmts) {
-			depth, inEdge := fr.depth, fr.inEdge
+			depth, inEdge, bb := fr.depth, fr.inEdge, fr.bb
 			p.stack = p.stack[:top]
 			if top == 0 {
 				return
+			}
+			if bb != nil {
+				p.indent(depth)
+				p.bb(*bb)
 			}
 			p.indent(depth - 1)
 			p.ws("}")
@@ -280,8 +318,15 @@ func (p *printer) subgraph(s *ast.Subgraph, depth int, inEdge bool) (inline bool
 		p.ws(s.ID)
 		p.ws(" ")
 	}
-	inline = true
+	var bb *[4]int64
+	if b, ok := p.bbAt[s]; ok {
+		bb = &b
+	}
+	inline = bb == nil
 	for _, st := range s.Stmts {
+		if !inline {
+			break
+		}
 		if !p.printed(st) {
 			continue
 		}
@@ -308,7 +353,7 @@ func (p *printer) subgraph(s *ast.Subgraph, depth int, inEdge bool) (inline bool
 		return true
 	}
 	p.ws("{\n")
-	p.stack = append(p.stack, pframe{stmts: s.Stmts, depth: depth + 1, inEdge: inEdge})
+	p.stack = append(p.stack, pframe{stmts: s.Stmts, depth: depth + 1, inEdge: inEdge, bb: bb})
 	return false
 }
 

@@ -112,7 +112,11 @@ func filtered(g *ast.Graph, drop int) string {
 			case ast.GraphKind:
 				gone = []string{"bb", "lp", "lwidth", "lheight"}
 			}
-			return &ast.AttrStmt{Kind: s.Kind, Attrs: keep(s.Attrs, gone...)}
+			kept := keep(s.Attrs, gone...)
+			if len(s.Attrs) > 0 && len(kept) == 0 {
+				return nil // only stale data: the statement goes
+			}
+			return &ast.AttrStmt{Kind: s.Kind, Attrs: kept}
 		case *ast.Attr:
 			if k, _ := canonical(s.Key); slices.Contains([]string{"bb", "lp", "lwidth", "lheight"}, k) {
 				return nil

@@ -14,6 +14,7 @@ import (
 	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/dotio/nodesize"
 	"github.com/gridwood/gridwood/internal/geomcheck"
+	"github.com/gridwood/gridwood/place/frame"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -22,16 +23,18 @@ import (
 type checkKind int
 
 const (
-	checkNoPos      checkKind = iota // some node has no pos
-	checkBadPos                      // a pos that is not "X,Y" or "X,Y!"
-	checkBadSize                     // a width or height that is not a size
-	checkRange                       // too many decimals, or too far out for exact arithmetic
-	checkCrossing                    // two edges cross
-	checkOverlap                     // two edges lie on one line and share a piece
-	checkOnEdge                      // a node lies inside an edge it does not end at
-	checkSamePoint                   // two nodes at one point
-	checkBoxOverlap                  // two node boxes overlap with positive area
-	checkThroughBox                  // an edge passes through the box of a node it does not end at
+	checkNoPos        checkKind = iota // some node has no pos
+	checkBadPos                        // a pos that is not "X,Y" or "X,Y!"
+	checkBadSize                       // a width or height that is not a size
+	checkRange                         // too many decimals, or too far out for exact arithmetic
+	checkCrossing                      // two edges cross
+	checkOverlap                       // two edges lie on one line and share a piece
+	checkOnEdge                        // a node lies inside an edge it does not end at
+	checkSamePoint                     // two nodes at one point
+	checkBoxOverlap                    // two node boxes overlap with positive area
+	checkThroughBox                    // an edge passes through the box of a node it does not end at
+	checkIntrusion                     // a node lies in the frame of a cluster it is not in
+	checkFrameOverlap                  // the frames of two clusters, neither inside the other, overlap
 )
 
 // checkProblem is one line of checkFile's report.
@@ -69,7 +72,13 @@ const maxPosDecimals = 6
 //   - pairs of node boxes overlapping with positive area (a pair already
 //     reported at one point is not reported again);
 //   - edges passing through the box of a node they do not end at (a node
-//     already reported lying on that edge is not reported again).
+//     already reported lying on that edge is not reported again);
+//   - nodes lying in the frame of a cluster they do not belong to, at the
+//     node's first mention, and overlapping frames of two clusters
+//     neither of which holds the other, at the earlier cluster; frames are
+//     computed from the nodes' positions and boxes by the rule the layout
+//     writes them by (README, "What the output contains"), not read from
+//     the input's own cluster bb, which may be stale.
 //
 // Edges are straight segments between node centres: edge pos (spline
 // points) and ports are ignored, the graph is taken as undirected, loops
@@ -290,6 +299,32 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 		l, c := edgePos(pr[1])
 		n := g.Nodes[pr[0]]
 		add(checkThroughBox, l, c, n.Line, n.Col, "edge %s passes through the box of node %s", edgeName(pr[1]), nodeName(pr[0]))
+	}
+	set := g.Clusters()
+	if len(set.Clusters) == 0 {
+		return probs
+	}
+	xs, ys := make([]int64, len(pts)), make([]int64, len(pts))
+	for v, p := range pts {
+		xs[v], ys[v] = p.X, p.Y
+	}
+	ci, err := clusterFrames(g, set, xs, ys, hw, hh, unit)
+	var found frame.Found
+	if err == nil {
+		found, err = frame.Find(ci.tree, ci.nodes, ci.frames)
+	}
+	if err != nil {
+		add(checkRange, g.Line, g.Col, 0, 0, "%s: %v", graphName(g, index), err) // unreachable: coordinates were validated above
+		return probs
+	}
+	clusterName := func(c int32) string { return strconv.Quote(set.Clusters[c].Name) }
+	for _, in := range found.Intrusions {
+		n, cl := g.Nodes[in.Node], set.Clusters[in.Cluster]
+		add(checkIntrusion, n.Line, n.Col, cl.Line, cl.Col, "node %s lies in the frame of cluster %s, which it does not belong to", nodeName(int(in.Node)), clusterName(in.Cluster))
+	}
+	for _, o := range found.Overlaps {
+		a, b := set.Clusters[o.A], set.Clusters[o.B]
+		add(checkFrameOverlap, a.Line, a.Col, b.Line, b.Col, "frames of clusters %s and %s overlap", clusterName(o.A), clusterName(o.B))
 	}
 	return probs
 }

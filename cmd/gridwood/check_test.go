@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"encoding/json"
 	"fmt"
 	"os"
 	"path/filepath"
@@ -87,6 +88,19 @@ func TestCheckFile(t *testing.T) {
 			// 2^40 = 1099511627776 (geomcheck.MaxCoord).
 			`malformed.dot:8:2: node "f": pos "2000000000000,0" is too far out to be checked exactly (want |x|, |y| <= 1099511627776)`,
 		}},
+		{"clusters.dot", []string{
+			// Default boxes 54 x 36 points, frames 8 points round them
+			// (README, What the output contains). cluster_a's frame spans
+			// x -35..235, so c's box (73..127) lies in it. p's frame
+			// (-35..35) and q's (31..101) overlap, though neither box
+			// reaches the other's frame (27 < 31, 39 > 35). cluster_inner
+			// (-35..35) keeps clear of s (73..127). w lies in the frames
+			// of cluster_n and of cluster_m around it: two intrusions.
+			`clusters.dot:4:2: node "c" lies in the frame of cluster "cluster_a", which it does not belong to`,
+			`clusters.dot:15:2: node "w" lies in the frame of cluster "cluster_m", which it does not belong to`,
+			`clusters.dot:15:2: node "w" lies in the frame of cluster "cluster_n", which it does not belong to`,
+			`clusters.dot:5:2: frames of clusters "cluster_p" and "cluster_q" overlap`,
+		}},
 		{"range.dot", []string{
 			`range.dot:5:2: node "b": pos "2000000,0" is too far out to be checked exactly (want |x|, |y| <= 1099511.627776)`,
 		}},
@@ -162,7 +176,8 @@ func TestCheckLaidOutExamples(t *testing.T) {
 				t.Fatal(err)
 			}
 			for _, drop := range []bool{true, false} {
-				args := []string{"-q", path}
+				reportPath := filepath.Join(t.TempDir(), "report.json")
+				args := []string{"-q", "--report", reportPath, path}
 				if drop {
 					args = append(args, "--drop-removed")
 				}
@@ -170,27 +185,42 @@ func TestCheckLaidOutExamples(t *testing.T) {
 				if code != exitOK {
 					t.Fatalf("exit %d: %s", code, errs)
 				}
+				var rep reportOut
+				if err := json.Unmarshal(mustRead(t, reportPath), &rep); err != nil || len(rep.Files) != 1 {
+					t.Fatalf("report: %v (%d files)", err, len(rep.Files))
+				}
 				f, err := dotio.Read([]byte(out), dotio.ReadOptions{Name: "out"})
 				if err != nil {
 					t.Fatal(err)
 				}
-				if len(rm.Graphs) != len(f.Graphs) {
-					t.Fatalf("%d graphs in --removed, %d in the output", len(rm.Graphs), len(f.Graphs))
+				if len(rm.Graphs) != len(f.Graphs) || len(rep.Files[0].Graphs) != len(f.Graphs) {
+					t.Fatalf("%d graphs in --removed, %d in the report, %d in the output", len(rm.Graphs), len(rep.Files[0].Graphs), len(f.Graphs))
 				}
 				for gi, g := range f.Graphs {
 					var geo, other []string
+					var intrusions, overlaps int64
 					for _, p := range checkGraph(g, gi) {
-						if p.kind == checkThroughBox && !drop {
+						switch {
+						case p.kind == checkThroughBox && !drop:
 							continue
-						}
-						if geometric(p) {
+						case p.kind == checkIntrusion:
+							intrusions++
+						case p.kind == checkFrameOverlap:
+							overlaps++
+						case geometric(p):
 							geo = append(geo, p.msg)
-						} else {
+						default:
 							other = append(other, p.msg) // box overlaps and edges through boxes included: the spacing rule forbids them
 						}
 					}
 					if len(other) > 0 {
 						t.Errorf("drop=%v graph %d: input problems in the command's own output: %v", drop, gi, other)
+					}
+					// Clusters are framed but not yet held together
+					// (README, Clusters): what --check lists in the
+					// output is what --report counted for it.
+					if r := rep.Files[0].Graphs[gi]; r.ClusterIntrusions != intrusions || r.FrameOverlaps != overlaps {
+						t.Errorf("drop=%v graph %d: --check lists %d intrusions and %d frame overlaps, --report counts %d and %d", drop, gi, intrusions, overlaps, r.ClusterIntrusions, r.FrameOverlaps)
 					}
 					setAside := len(rm.Graphs[gi].Edges) > 0
 					switch {

@@ -783,13 +783,61 @@ func compareSubgraphs(mi, mo *graphMeaning, edgeTexts func([]int, *graphMeaning)
 		if !slices.Equal(s.Nodes, o.Nodes) {
 			p.add("graph %s: subgraph %q holds nodes %v, held %v", mi.ID, s.Name, o.Nodes, s.Nodes)
 		}
-		if a, b := s.Attrs.without(staleGraphKeys...), o.Attrs; !maps.Equal(a, b) {
+		got := o.Attrs
+		if strings.HasPrefix(o.Name, "cluster") {
+			// README, "What the output contains": a cluster with nodes
+			// gets its frame as bb; one whose nodes all stay in other
+			// clusters (a node named in two, neither inside the other)
+			// has none, which only a graph with such a node allows.
+			bb, set := got["bb"]
+			switch {
+			case set && !clusterBB.MatchString(bb):
+				p.add("graph %s: cluster %q has bb %q, not LLX,LLY,URX,URY in integers", mi.ID, o.Name, bb)
+			case !set && len(o.Nodes) > 0 && !clusterConflicts(mo):
+				p.add("graph %s: cluster %q of %d nodes has no bb", mi.ID, o.Name, len(o.Nodes))
+			case set && len(o.Nodes) == 0:
+				p.add("graph %s: cluster %q without nodes has bb %q", mi.ID, o.Name, bb)
+			}
+			got = got.without("bb")
+		}
+		if a, b := s.Attrs.without(staleGraphKeys...), got; !maps.Equal(a, b) {
 			p.add("graph %s: subgraph %q has %v, had %v (bb removed)", mi.ID, s.Name, b, a)
 		}
 		if a, b := edgeTexts(s.Edges, mi), edgeTexts(o.Edges, mo); !slices.Equal(a, b) {
 			p.add("graph %s: subgraph %q holds edges\n%s\nheld\n%s", mi.ID, s.Name, strings.Join(b, "\n"), strings.Join(a, "\n"))
 		}
 	}
+}
+
+// clusterBB is a cluster's bb as the output writes it.
+var clusterBB = regexp.MustCompile(`^-?[0-9]+,-?[0-9]+,-?[0-9]+,-?[0-9]+$`)
+
+// clusterConflicts reports whether some node of m is named in two
+// clusters neither of which holds the other.
+func clusterConflicts(m *graphMeaning) bool {
+	inside := func(a, b int) bool { // cluster a holds subgraph b
+		for ; b >= 0; b = m.Subs[b].Parent {
+			if a == b {
+				return true
+			}
+		}
+		return false
+	}
+	of := make([][]int, len(m.Nodes))
+	for i, s := range m.Subs {
+		if !strings.HasPrefix(s.Name, "cluster") {
+			continue
+		}
+		for _, v := range s.Nodes {
+			for _, j := range of[v] {
+				if !inside(i, j) && !inside(j, i) {
+					return true
+				}
+			}
+			of[v] = append(of[v], i)
+		}
+	}
+	return false
 }
 
 // checkInsideBB checks README.md's "every node's box lies inside bb".
@@ -1461,7 +1509,9 @@ func TestLosslessCheckerCatchesChanges(t *testing.T) {
 		{"membership lost", "cluster_a {", "cluster_b {"},
 		{"pos not integral", `a [pos="`, `a [pos="0.5,`},
 		{"statement moved", "\tlabel=x\n", "\tlabel=x\n\tlabel=x\n"},
-		{"bb missing", "graph [bb=", "graph [xbb="},
+		{"bb missing", "\n\tgraph [bb=", "\n\tgraph [xbb="},
+		{"cluster bb missing", "\t\tgraph [bb=", "\t\tgraph [xbb="},
+		{"cluster bb not integral", "\t\tgraph [bb=\"", "\t\tgraph [bb=\"0.5"},
 	} {
 		edited := strings.Replace(good, tc.old, tc.new, 1)
 		if tc.old != "" && edited == good {

@@ -8,6 +8,8 @@ import (
 	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/place"
+	"github.com/gridwood/gridwood/place/frame"
+	"github.com/gridwood/gridwood/place/quality"
 )
 
 // The --report file: JSON, one record per input file with one per graph.
@@ -55,8 +57,18 @@ type graphReport struct {
 		Layout    float64 `json:"layout"`
 		Space     float64 `json:"space"`
 	} `json:"seconds"`
+	Clusters          int     `json:"clusters"`
+	ClusterIntrusions int64   `json:"cluster_intrusions"`
+	FrameOverlaps     int64   `json:"frame_overlaps"`
+	FlowAlong         *int    `json:"flow_along"`
+	FlowAgainst       *int    `json:"flow_against"`
+	FlowOnCycles      *int    `json:"flow_on_cycles"`
+	Stress            float64 `json:"stress"`
+	EdgeLengthCV      float64 `json:"edge_length_cv"`
+	AngularResolution float64 `json:"angular_resolution"`
 
-	caps boxCaps // for the command's note, not the report
+	caps     boxCaps      // for the command's note, not the report
+	clusters *clusterInfo // for the command's notes and the preview
 }
 
 // graphMeasures fills a report record from one laid-out graph.
@@ -107,6 +119,34 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 	r.Seconds.Layout = res.Times.Layout.Seconds()
 	r.Seconds.Space = spaceTime.Seconds()
 	return r
+}
+
+// addStructure adds the measures of what the DOT says about structure
+// (clusters, a digraph's flow) and the readability measures of package
+// quality, all on the kept edges.
+func (r *graphReport) addStructure(g *dotio.Graph, removed []bool, sp *place.Placed, ci *clusterInfo, res *place.Result) error {
+	if ci != nil {
+		r.Clusters = len(ci.set.Clusters)
+		c, err := frame.Measure(ci.tree, ci.nodes, ci.frames)
+		if err != nil {
+			return err
+		}
+		r.ClusterIntrusions, r.FrameOverlaps = c.Intrusions, c.Overlaps
+	}
+	if g.Directed {
+		c, err := flowCounts(g, removed, sp.X, sp.Y)
+		if err != nil {
+			return err
+		}
+		r.FlowAlong, r.FlowAgainst, r.FlowOnCycles = &c.Along, &c.Against, &c.OnCycles
+	}
+	x, y := make([]float64, len(sp.X)), make([]float64, len(sp.Y))
+	for v := range x {
+		x[v], y[v] = float64(sp.X[v]), float64(sp.Y[v])
+	}
+	q := quality.Measure(x, y, res.Kept())
+	r.Stress, r.EdgeLengthCV, r.AngularResolution = q.Stress, q.EdgeCV, q.AngularResolution
+	return nil
 }
 
 func writeReport(w io.Writer, files []fileReport) error {

@@ -63,6 +63,15 @@ type graphRecord struct {
 	BoxOverlaps           int                `json:"box_overlaps"`
 	EdgesThroughBoxes     int                `json:"edges_through_boxes"`
 	Seconds               map[string]float64 `json:"seconds"`
+	Clusters              int                `json:"clusters"`
+	ClusterIntrusions     int64              `json:"cluster_intrusions"`
+	FrameOverlaps         int64              `json:"frame_overlaps"`
+	FlowAlong             *int               `json:"flow_along"`
+	FlowAgainst           *int               `json:"flow_against"`
+	FlowOnCycles          *int               `json:"flow_on_cycles"`
+	Stress                float64            `json:"stress"`
+	EdgeLengthCV          float64            `json:"edge_length_cv"`
+	AngularResolution     float64            `json:"angular_resolution"`
 }
 
 // reportInputs are the graphs the report is checked on, written as DOT.

@@ -21,6 +21,7 @@ import (
 	"github.com/gridwood/gridwood/dotio/nodesize"
 	"github.com/gridwood/gridwood/dotio/preview"
 	"github.com/gridwood/gridwood/place"
+	"github.com/gridwood/gridwood/place/flow"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -48,6 +49,7 @@ type config struct {
 	output       string
 	unit         int
 	gridOnly     bool
+	noFlow       bool
 	quiet        bool
 	removedFile  string
 	dropRemoved  bool
@@ -148,7 +150,7 @@ var flagGroups = []struct {
 	flags []string
 }{
 	{"Input and output", []string{"output", "quiet", "max-expansion"}},
-	{"Drawing", []string{"unit", "grid", "method", "outer"}},
+	{"Drawing", []string{"unit", "grid", "method", "outer", "no-flow"}},
 	{"Non-planar graphs", []string{"removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort"}},
 	{"Checking and preview", []string{"check", "svg", "report"}},
 	{"About gridwood", []string{"version", "help"}},
@@ -168,13 +170,14 @@ func parseFlags(args []string) (*config, error) {
 	fs.BoolVar(&cfg.gridOnly, "grid", false, "keep the grid drawing, stretched to clear the node boxes, instead\nof the readable one")
 	method := fs.String("method", "schnyder", "drawing `METHOD`: schnyder draws every planar graph; convex draws\n3-connected components with every face convex (the others fall\nback to schnyder, and standard error names them); convex keeps\nits drawing, without the readable stage")
 	outer := fs.String("outer", "", "comma-separated `NAMES` of nodes that must lie on the outer\nboundary, as written but without quotes; applies to every graph\nthat has all of them\nexample: --outer Refectory,Gym,Chapel")
+	fs.BoolVar(&cfg.noFlow, "no-flow", false, "leave a digraph's drawing as laid out; by default it is mirrored,\nor turned a quarter when the boxes stay clear, so that the most\nedges not on a directed cycle point along its rankdir (TB when\nunset)")
 	fs.StringVar(&cfg.removedFile, "removed", "", "write the removed edges to `FILE` as DOT: one graph per input\ngraph, one edge per line with its attributes, in input order")
 	fs.BoolVar(&cfg.dropRemoved, "drop-removed", false, "leave the removed edges out of the main output")
 	mark := fs.String("mark-removed", "", "add these `ATTRS` to the removed edges in the main output,\nreplacing any of the same name on their statement\nexample: --mark-removed 'style=dashed,color=\"#999999\"'")
 	fs.BoolVar(&cfg.planarOnly, "planar-only", false, "treat a non-planar graph as an error (exit status 3)")
 	fs.StringVar(&cfg.explainFile, "explain", "", "write to `FILE`, for each removed edge, a Kuratowski subgraph (a\nsubdivision of K5 or K3,3 made of it and kept edges) proving it\ncould not stay, as DOT; one graph per input graph")
 	fs.IntVar(&cfg.effort, "effort", 0, "search more for fewer removed edges: `N` seeded restarts and a\nwider exact search on small blocks; the same N always gives the\nsame result")
-	fs.BoolVar(&cfg.check, "check", false, "lay nothing out: check the positions already in the input and\nlist crossing edges, nodes on edges, overlapping node boxes and\nedges through node boxes, one per line; exit status 1 if any\nexample: gridwood -q net.dot | gridwood --check")
+	fs.BoolVar(&cfg.check, "check", false, "lay nothing out: check the positions already in the input and\nlist crossing edges, nodes on edges, overlapping node boxes,\nedges through node boxes, nodes in the frames of clusters they\nare not in and overlapping cluster frames, one per line; exit\nstatus 1 if any\nexample: gridwood -q net.dot | gridwood --check")
 	fs.StringVar(&cfg.svgFile, "svg", "", "also write a self-contained SVG picture of the result to `FILE`;\nwith --check, a picture of the drawing as the input gives it")
 	fs.StringVar(&cfg.reportFile, "report", "", "write a JSON quality report to `FILE` (README, Quality report)")
 	fs.BoolVar(&cfg.version, "version", false, "print the version and exit")
@@ -212,7 +215,7 @@ func parseFlags(args []string) (*config, error) {
 		// silently ignored.
 		// --svg is no layout flag: with --check it draws the input's own
 		// drawing.
-		for _, name := range []string{"unit", "grid", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "method", "outer", "report"} {
+		for _, name := range []string{"unit", "grid", "removed", "drop-removed", "mark-removed", "planar-only", "explain", "effort", "method", "outer", "report", "no-flow"} {
 			if fs.Changed(name) {
 				return nil, &usageError{"--check lays nothing out: --" + name + " does not go with it"}
 			}
@@ -577,6 +580,7 @@ func process(cfg *config, std *stdStreams) error {
 		layouts := make([]dotio.Layout, len(f.Graphs))
 		removed := make([][]int, len(f.Graphs))
 		results := make([]*place.Result, len(f.Graphs))
+		frames := make([][]preview.Frame, len(f.Graphs))
 		totalEdges, edgesDone := 0, 0
 		for _, g := range f.Graphs {
 			totalEdges += len(g.Edges) + 1
@@ -592,6 +596,8 @@ func process(cfg *config, std *stdStreams) error {
 			if err != nil {
 				return err
 			}
+			clusters := gr.clusters
+			gr.clusters = nil // the report keeps figures only
 			rep.Graphs = append(rep.Graphs, gr)
 			if gr.caps.count > 0 && !cfg.quiet {
 				n := g.Nodes[gr.caps.first]
@@ -602,6 +608,17 @@ func process(cfg *config, std *stdStreams) error {
 				prog.note("gridwood: %s:%d:%d: node %s: its label needs a box over 1000 inches a side; the box was taken as 1000 inches%s\n", name, n.Line, n.Col, strconv.Quote(n.Name), more)
 			}
 			layouts[gi], removed[gi] = lay, res.Removed
+			if !cfg.quiet {
+				if clusters != nil {
+					warnClusters(prog.note, name, g, gi, clusters.set)
+				}
+				if _, value, ok := flowDirection(g); g.Directed && !ok {
+					prog.note("gridwood: %s:%d:%d: %s: rankdir %s is not TB, LR, BT or RL; taken as TB\n", name, g.Line, g.Col, graphName(g, gi), strconv.Quote(value))
+				}
+			}
+			if cfg.svgFile != "" {
+				frames[gi] = previewFrames(clusters)
+			}
 			// The drawing's internals and the node boxes are kept only for
 			// the outputs that need them: a file of many small graphs
 			// would otherwise hold every graph's working state at once.
@@ -658,7 +675,9 @@ func process(cfg *config, std *stdStreams) error {
 		}
 		if cfg.svgFile != "" {
 			for gi, g := range f.Graphs {
-				pictures = append(pictures, preview.FromLayout(g, layouts[gi]))
+				pg := preview.FromLayout(g, layouts[gi])
+				pg.Frames = frames[gi]
+				pictures = append(pictures, pg)
 			}
 		}
 	}
@@ -808,12 +827,32 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
 	}
 	spaceTime := time.Since(spaceStart)
-	lay := dotio.Layout{X: sp.X, Y: sp.Y, BB: [4]int64{0, 0, sp.Width, sp.Height}}
+	var removed []bool
 	if len(res.Removed) > 0 {
-		lay.Removed = make([]bool, len(g.Edges))
+		removed = make([]bool, len(g.Edges))
 		for _, i := range res.Removed {
-			lay.Removed[i] = true
+			removed[i] = true
 		}
+	}
+	// Digraph flow (README, "Digraph flow"): the finished drawing is
+	// mirrored or turned so that the most edges point along rankdir,
+	// before the frames are put round it.
+	sym := flow.Identity
+	if g.Directed && !cfg.noFlow {
+		if sym, err = orientFlow(g, removed, res.Kept(), sp, boxes); err != nil {
+			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+		}
+	}
+	lay := dotio.Layout{X: sp.X, Y: sp.Y, BB: [4]int64{0, 0, sp.Width, sp.Height}, Removed: removed}
+	// Cluster frames (README, "What the output contains"): the drawing
+	// moves, whole grid steps under --unit, so that it starts at 0,0
+	// with its frames.
+	var clusters *clusterInfo
+	if set := g.Clusters(preview.FrameKeys()...); len(set.Clusters) > 0 {
+		if clusters, err = layoutFrames(g, set, &lay, boxes, int64(cfg.unit)); err != nil {
+			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+		}
+		sp.Width, sp.Height = lay.BB[2], lay.BB[3]
 	}
 	if res.NotConvex > 0 && !cfg.quiet {
 		cfg.prog.note("gridwood: %s: %d of %d components are not 3-connected and were drawn with the schnyder method: %s\n", where, res.NotConvex, len(res.Components), fellBackNames(g, res.FellBackVertices()))
@@ -831,8 +870,15 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 			name = "convex"
 		}
 		gr = graphMeasures(g, gi, name, res, sp, boxes, spaceTime)
+		if sym.SwapsAxes() {
+			gr.GridWidth, gr.GridHeight = gr.GridHeight, gr.GridWidth // the grid as drawn
+		}
+		if err := gr.addStructure(g, lay.Removed, sp, clusters, res); err != nil {
+			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+		}
 	}
 	gr.caps = caps
+	gr.clusters = clusters
 	return res, lay, boxes, gr, nil
 }
 

@@ -3,11 +3,13 @@ package main
 import (
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 
 	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/dotio/preview"
+	"github.com/gridwood/gridwood/internal/geomcheck"
 )
 
 // writeSVG writes the --svg preview of graphs (package preview) to w and,
@@ -59,7 +61,31 @@ func previewOfInput(g *dotio.Graph) (preview.Graph, string) {
 			pg.BB = bb
 		}
 	}
+	pg.Frames = inputFrames(g, pg.X, pg.Y)
 	return pg, ""
+}
+
+// inputFrames frames the clusters of a drawing made elsewhere, as --check
+// does, from the nodes' positions rounded to whole points (the picture
+// needs no more); none when a position is too far out to frame.
+func inputFrames(g *dotio.Graph, x, y []float64) []preview.Frame {
+	set := g.Clusters(preview.FrameKeys()...)
+	if len(set.Clusters) == 0 {
+		return previewFrames(nil)
+	}
+	xs, ys := make([]int64, len(x)), make([]int64, len(y))
+	for v := range x {
+		if math.Abs(x[v]) > geomcheck.MaxCoord || math.Abs(y[v]) > geomcheck.MaxCoord {
+			return previewFrames(nil)
+		}
+		xs[v], ys[v] = int64(math.Round(x[v])), int64(math.Round(y[v]))
+	}
+	b := nodeBoxes(g)
+	ci, err := clusterFrames(g, set, xs, ys, b.HalfW, b.HalfH, 1)
+	if err != nil {
+		return previewFrames(nil)
+	}
+	return previewFrames(ci)
 }
 
 func finite(v float64) bool { return v-v == 0 }

@@ -56,8 +56,7 @@ var (
 		"labelfontsize", "tooltip")
 	drawnGraph = keySet("label", "labelloc", "labeljust", "fontsize", "fontcolor", "bgcolor", "rankdir")
 	// drawnCluster applies when cluster frames are given.
-	drawnCluster = keySet("label", "labelloc", "labeljust", "fontsize", "fontcolor", "color",
-		"pencolor", "fillcolor", "bgcolor", "style", "penwidth")
+	drawnCluster = keySet(FrameKeys()...)
 	// silent are attributes that steer a layout, name things for other
 	// programs, or carry a layout's results: not part of the picture the
 	// preview is given, so there is nothing to say about them (from

@@ -41,6 +41,13 @@ type Frame struct {
 	Attrs          []dotio.Attr
 }
 
+// FrameKeys lists the cluster attributes a frame is drawn from, for
+// Frame.Attrs.
+func FrameKeys() []string {
+	return []string{"label", "labelloc", "labeljust", "fontsize", "fontcolor", "color",
+		"pencolor", "fillcolor", "bgcolor", "style", "penwidth"}
+}
+
 // FromLayout makes a Graph from a layout in whole points.
 func FromLayout(g *dotio.Graph, lay dotio.Layout) Graph {
 	pg := Graph{G: g, Removed: lay.Removed, X: make([]float64, len(lay.X)), Y: make([]float64, len(lay.Y))}

@@ -1,0 +1,152 @@
+package main
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"github.com/gridwood/gridwood/dotio"
+	"github.com/gridwood/gridwood/dotio/nodesize"
+	"github.com/gridwood/gridwood/dotio/preview"
+	"github.com/gridwood/gridwood/place"
+	"github.com/gridwood/gridwood/place/frame"
+)
+
+// frameMargin is the room between a cluster's nodes (and nested frames)
+// and its frame, in points (our own choice): below half the gap the
+// spacing keeps between node boxes (boxGap), so the frames of two
+// clusters whose nodes are kept apart do not overlap by their margins
+// alone.
+const frameMargin = 8
+
+// clusterInfo is the cluster structure of a graph and its frames in a
+// drawing.
+type clusterInfo struct {
+	set    *dotio.ClusterSet
+	tree   frame.Clusters
+	nodes  frame.Nodes
+	frames []frame.Rect
+}
+
+// clusterFrames computes the frames of g's clusters for nodes at (x, y)
+// with half boxes hw x hh, all in units of 1/unit point (1 for a layout,
+// 10^d for --check): the margin and label sizes are scaled to match.
+// Labels are sized as the preview draws them (nodesize), up to the
+// largest box side.
+func clusterFrames(g *dotio.Graph, set *dotio.ClusterSet, x, y, hw, hh []int64, unit int64) (*clusterInfo, error) {
+	ci := &clusterInfo{set: set, nodes: frame.Nodes{X: x, Y: y, HalfW: hw, HalfH: hh}}
+	ci.tree.Home = set.Home
+	ci.tree.Parent = make([]int32, len(set.Clusters))
+	labels := make([]frame.Label, len(set.Clusters))
+	for c, cl := range set.Clusters {
+		ci.tree.Parent[c] = int32(cl.Parent)
+		if !cl.LabelSet {
+			continue
+		}
+		l := nodesize.Layout(cl.Label, cl.LabelHTML, nodesize.FontSize(cl.FontSize, cl.FontSize != ""), nodesize.Escapes{G: cl.Name})
+		if l.Empty() {
+			continue
+		}
+		side := func(v float64) int64 { return int64(math.Ceil(min(v, maxBoxSide))) * unit }
+		labels[c] = frame.Label{W: side(l.W), H: side(l.H), Bottom: strings.EqualFold(strings.TrimSpace(cl.LabelLoc), "b")}
+	}
+	frames, err := frame.Frames(frame.Input{Clusters: ci.tree, Nodes: ci.nodes, Margin: frameMargin * unit, Labels: labels})
+	if err != nil {
+		return nil, err
+	}
+	ci.frames = frames
+	return ci, nil
+}
+
+// layoutFrames frames the clusters of a laid-out graph and writes their
+// boxes into lay: positions move so that the drawing, frames included,
+// starts at 0,0 (by whole steps of step points when step > 0, as under
+// --unit), and the graph's bb grows to hold every frame.
+func layoutFrames(g *dotio.Graph, set *dotio.ClusterSet, lay *dotio.Layout, boxes place.Boxes, step int64) (*clusterInfo, error) {
+	ci, err := clusterFrames(g, set, lay.X, lay.Y, boxes.HalfW, boxes.HalfH, 1)
+	if err != nil {
+		return nil, err
+	}
+	bb := lay.BB
+	for _, f := range ci.frames {
+		if f.Empty() {
+			continue
+		}
+		bb = [4]int64{min(bb[0], f.X0), min(bb[1], f.Y0), max(bb[2], f.X1), max(bb[3], f.Y1)}
+	}
+	dx, dy := -bb[0], -bb[1] // bb[0], bb[1] <= 0: lay.BB starts at 0,0
+	if step > 0 {
+		dx, dy = (dx+step-1)/step*step, (dy+step-1)/step*step
+	}
+	for v := range lay.X {
+		lay.X[v] += dx
+		lay.Y[v] += dy
+	}
+	lay.BB = [4]int64{0, 0, bb[2] + dx, bb[3] + dy}
+	lay.ClusterBB = make([][4]int64, len(ci.frames))
+	for c, f := range ci.frames {
+		if f.Empty() {
+			lay.ClusterBB[c] = dotio.NoBB
+			continue
+		}
+		f.X0, f.Y0, f.X1, f.Y1 = f.X0+dx, f.Y0+dy, f.X1+dx, f.Y1+dy
+		ci.frames[c] = f
+		lay.ClusterBB[c] = [4]int64{f.X0, f.Y0, f.X1, f.Y1}
+	}
+	return ci, nil
+}
+
+// previewFrames gives the preview the frames of a graph's clusters,
+// parents before children (so a child is drawn over its parent), with
+// the attributes that say how a frame looks. A graph without clusters
+// gets an empty, non-nil list: frames are drawn, there are none.
+func previewFrames(ci *clusterInfo) []preview.Frame {
+	out := []preview.Frame{}
+	if ci == nil {
+		return out
+	}
+	for c, cl := range ci.set.Clusters {
+		f := ci.frames[c]
+		if f.Empty() {
+			continue
+		}
+		out = append(out, preview.Frame{Name: cl.Name, X0: float64(f.X0), Y0: float64(f.Y0), X1: float64(f.X1), Y1: float64(f.Y1), Attrs: cl.Attrs})
+	}
+	return out
+}
+
+// warnClusters names, one line per graph at the first instance, the
+// nodes mentioned in two clusters neither of which holds the other (the
+// first placement is kept) and the clusters without nodes (drawn without
+// a frame).
+func warnClusters(note func(format string, args ...any), name string, g *dotio.Graph, gi int, set *dotio.ClusterSet) {
+	if k := len(set.Conflicts); k > 0 {
+		cf := set.Conflicts[0]
+		n := g.Nodes[cf.Node]
+		kept, dropped := set.Clusters[cf.Kept], set.Clusters[cf.Dropped]
+		more := ""
+		if k > 1 {
+			more = fmt.Sprintf(" (and %d more such in %s)", k-1, graphName(g, gi))
+		}
+		note("gridwood: %s:%d:%d: node %s is in cluster %s (line %d) and in cluster %s, neither inside the other; it stays in the first%s\n",
+			name, dropped.Line, dropped.Col, strconv.Quote(n.Name), strconv.Quote(kept.Name), kept.Line, strconv.Quote(dropped.Name), more)
+	}
+	empty, first := 0, -1
+	for c := range set.Clusters {
+		if set.Size(c) == 0 {
+			if empty == 0 {
+				first = c
+			}
+			empty++
+		}
+	}
+	if empty > 0 {
+		cl := set.Clusters[first]
+		more := ""
+		if empty > 1 {
+			more = fmt.Sprintf(" (and %d more in %s)", empty-1, graphName(g, gi))
+		}
+		note("gridwood: %s:%d:%d: cluster %s has no nodes and gets no frame%s\n", name, cl.Line, cl.Col, strconv.Quote(cl.Name), more)
+	}
+}
