@@ -217,7 +217,7 @@ func TestCheckLaidOutExamples(t *testing.T) {
 						t.Errorf("drop=%v graph %d: input problems in the command's own output: %v", drop, gi, other)
 					}
 					// Clusters are framed but not yet held together
-					// (README, Clusters): what --check lists in the
+					// (README, Clusters and direction): what --check lists in the
 					// output is what --report counted for it.
 					if r := rep.Files[0].Graphs[gi]; r.ClusterIntrusions != intrusions || r.FrameOverlaps != overlaps {
 						t.Errorf("drop=%v graph %d: --check lists %d intrusions and %d frame overlaps, --report counts %d and %d", drop, gi, intrusions, overlaps, r.ClusterIntrusions, r.FrameOverlaps)

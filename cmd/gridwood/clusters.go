@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -149,4 +150,24 @@ func warnClusters(note func(format string, args ...any), name string, g *dotio.G
 		}
 		note("gridwood: %s:%d:%d: cluster %s has no nodes and gets no frame%s\n", name, cl.Line, cl.Col, strconv.Quote(cl.Name), more)
 	}
+}
+
+// clusterChains lists, per node, the clusters it lies in, outermost
+// first, for the readable stage to gather (place.ReadableOptions.Groups);
+// nil for a graph without clusters.
+func clusterChains(g *dotio.Graph) [][]int32 {
+	set := g.Clusters()
+	if len(set.Clusters) == 0 {
+		return nil
+	}
+	chains := make([][]int32, len(g.Nodes))
+	for v, h := range set.Home {
+		var chain []int32
+		for c := int(h); c >= 0; c = set.Clusters[c].Parent {
+			chain = append(chain, int32(c))
+		}
+		slices.Reverse(chain)
+		chains[v] = chain
+	}
+	return chains
 }

@@ -228,7 +228,7 @@ func TestClusterFrames(t *testing.T) {
 					const eps = 1e-9
 					lh, lw := 0.0, 0.0
 					if label, set := sub.Attrs["label"]; set {
-						// README, Spacing: 0.6 em a character, 1.2 em a line.
+						// README, Node boxes: 0.6 em a character, 1.2 em a line.
 						fs := 14.0
 						if v, set := sub.Attrs["fontsize"]; set {
 							fs, _ = strconv.ParseFloat(v, 64)

@@ -33,7 +33,7 @@ func flowCounts(g *dotio.Graph, removed []bool, x, y []int64) (flow.Counts, erro
 }
 
 // edgeClear is the room, in points, the spacing keeps between an edge
-// and the box of a node it passes (README, Spacing, step 2).
+// and the box of a node it passes (place/doc.go, the spacing rule, step 2).
 const edgeClear = 4
 
 // keptAsWritten lists a graph's kept edges as written (repeats and loops
@@ -88,7 +88,7 @@ func orientFlow(g *dotio.Graph, removed []bool, pairs [][2]int32, sp *place.Plac
 }
 
 // swapStaysClear reports whether the drawing with its axes swapped keeps
-// what the spacing guarantees (README, Spacing), judged by the
+// what the spacing guarantees (place/doc.go, the spacing rule), judged by the
 // independent checker: no crossing of kept pairs, node boxes grown by
 // half the gap on every side not overlapping, and no kept pair passing
 // through a box grown by edgeClear. The other three symmetries that swap
@@ -113,4 +113,24 @@ func swapStaysClear(sp *place.Placed, boxes place.Boxes, pairs [][2]int32) bool 
 	}
 	through, err := geomcheck.EdgeThroughBox(pts, hw, hh, pairs)
 	return err == nil && len(through) == 0
+}
+
+// flowPairs lists a digraph's edges that lie on no directed cycle, tail
+// first, and the unit direction of its rankdir, for the readable stage
+// to point them along (place.ReadableOptions.Flow).
+func flowPairs(g *dotio.Graph) ([][2]int32, [2]float64, error) {
+	all := keptAsWritten(g, nil)
+	onCycle, err := flow.OnCycles(len(g.Nodes), all)
+	if err != nil {
+		return nil, [2]float64{}, err
+	}
+	var pairs [][2]int32
+	for i, e := range all {
+		if !onCycle[i] && e[0] != e[1] {
+			pairs = append(pairs, e)
+		}
+	}
+	d, _, _ := flowDirection(g)
+	dx, dy := d.Axis()
+	return pairs, [2]float64{float64(dx), float64(dy)}, nil
 }

@@ -19,7 +19,7 @@ var flowInputs = []struct {
 	kept, cycles, along int
 }{
 	// One edge between two default boxes: the spacing keeps them at
-	// least 54 + 18 points apart along one axis (README, Spacing), so
+	// least 54 + 18 points apart along one axis (place/doc.go, the spacing rule), so
 	// whichever way it runs, a mirror image, or a quarter turn that
 	// leaves the boxes 72 >= 36 + 18 points apart on the other axis,
 	// points it along.

@@ -1,13 +1,13 @@
 package main
 
 import (
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/graph/formats/dot"
 
-	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/internal/graphgen"
 	"github.com/gridwood/gridwood/place/flow"
 )
@@ -46,23 +46,24 @@ func imageOf(s flow.Symmetry, a, b [][2]int64) bool {
 	return true
 }
 
-// TestFlowOrientation (README, "Digraph flow"): random plane
+// TestFlowOrientation (README, "Clusters and direction"): random plane
 // triangulations are drawn undirected, and each edge is then pointed up
 // the drawing (y up, as in DOT). Every inner node of a straight-line
 // triangulation lies inside the polygon of its neighbours, so it has a
 // lower and a higher one; with no level edge the lowest outer node is the
-// one source and the highest the one sink: an st-planar digraph whose
-// drawing points up (common practice; checked below). Written as a
-// digraph, whose layout ignores direction (README, "What is kept"), it
-// comes out mirrored top to bottom with every edge along the flow under
-// the default rankdir, unchanged under rankdir=BT and with --no-flow, and
-// under LR either turned (all along, boxes clear) or as the best mirror
-// image; on a grid of --unit points it is a symmetry image of the
-// undirected grid drawing, and the report's grid extent follows it. An
-// undirected graph is the same with and without --no-flow. Every drawing
-// passes geomcheck (readDrawing).
+// one source and the highest the one sink: an st-planar digraph (common
+// practice; checked below). With --no-flow the digraph's drawing is the
+// undirected one, so its edges all point against the default flow and it
+// is unchanged under rankdir=BT; by default, under TB, BT and LR, the
+// share of edges along the flow is measured (the readable stage draws
+// from its own start, so this is no symmetry image). On a grid of --unit
+// points the drawing is a symmetry image of the undirected grid drawing,
+// and the report's grid extent follows it. An undirected graph is the
+// same with and without --no-flow. Every drawing passes geomcheck
+// (readDrawing).
 func TestFlowOrientation(t *testing.T) {
 	used, turned, turnedOnGrid := 0, 0, 0
+	var flowShares []float64
 	for seed := uint64(1); seed <= 6; seed++ {
 		for _, n := range []int{12, 40} {
 			g := graphgen.RandomMaximalPlanar(n, seed)
@@ -117,10 +118,18 @@ func TestFlowOrientation(t *testing.T) {
 				{"", nil, flow.MirrorY, m, 0},
 				{"rankdir=BT", nil, flow.Identity, m, 0},
 				{"", []string{"--no-flow"}, flow.Identity, 0, 0},
+				{"rankdir=BT", []string{"--no-flow"}, flow.Identity, m, 0},
 			} {
 				src := strings.Replace(up, "{\n", "{\n\t"+tc.rankdir+"\n", 1)
 				rec, out := reportRecord(t, src, tc.args...)
 				_, dpos, dbb := readDrawing(t, out)
+				if tc.args == nil {
+					// The readable stage points edges along the flow
+					// itself, from its own start: not an image of the
+					// undirected drawing, and measured, not exact.
+					flowShares = append(flowShares, float64(*rec.FlowAlong)/float64(m))
+					continue
+				}
 				if !imageOf(tc.want, pos, dpos) || dbb != bb {
 					t.Errorf("%s %s %v: not the undirected drawing mapped by %v (bb %v, was %v)", g.Name, tc.rankdir, tc.args, tc.want, dbb, bb)
 				}
@@ -128,58 +137,20 @@ func TestFlowOrientation(t *testing.T) {
 					t.Errorf("%s %s %v: along %d against %d on cycles %d, want %d of %d along", g.Name, tc.rankdir, tc.args, *rec.FlowAlong, *rec.FlowAgainst, *rec.FlowOnCycles, tc.along, m)
 				}
 			}
-			// Left to right: a quarter turn would point every edge along,
-			// if the boxes stay clear; the mirror images point those
-			// edges along that run right in the drawing or those that
-			// run left.
-			right, left := 0, 0
-			for i, e := range g.Edges {
-				u, v := e[0], e[1]
-				if flip[i] {
-					u, v = v, u
-				}
-				switch {
-				case pos[v][0] > pos[u][0]:
-					right++
-				case pos[v][0] < pos[u][0]:
-					left++
-				}
-			}
+			// Left to right: the readable stage points the edges right
+			// from its own start (measured below, with TB and BT).
 			rec, out := reportRecord(t, strings.Replace(up, "{\n", "{\n\trankdir=LR\n", 1))
-			_, dpos, _ := readDrawing(t, out)
-			image := -1
-			for _, s := range flow.Symmetries {
-				if imageOf(s, pos, dpos) {
-					image = int(s)
-					break
-				}
-			}
-			switch {
-			case image < 0:
-				t.Errorf("%s LR: not a symmetry image of the undirected drawing", g.Name)
-			case *rec.FlowAlong == m:
-				turned++
-				if !flow.Symmetry(image).SwapsAxes() {
-					t.Errorf("%s LR: all along by %v", g.Name, flow.Symmetry(image))
-				}
-				// Turned: the node boxes must still be clear.
-				file, _ := dot.ParseString(out)
-				f, err := dotio.Read([]byte(out), dotio.ReadOptions{Name: "out"})
-				if err != nil || len(file.Graphs) != 1 {
-					t.Fatal(err)
-				}
-				if probs := checkGraph(f.Graphs[0], 0); len(probs) > 0 {
-					t.Errorf("%s LR: turned drawing has problems: %v", g.Name, probs[0].msg)
-				}
-			case *rec.FlowAlong != max(left, right) || flow.Symmetry(image).SwapsAxes():
-				t.Errorf("%s LR: along %d by %v, want %d or the best mirror's %d", g.Name, *rec.FlowAlong, flow.Symmetry(image), m, max(left, right))
-			}
+			readDrawing(t, out)
+			flowShares = append(flowShares, float64(*rec.FlowAlong)/float64(m))
 			// On a fixed grid the report's grid extent follows the
 			// drawing as output, turned or not.
 			const unit = 400
 			_, gOut, _ := runCmd(t, undirected, "-q", "--unit", strconv.Itoa(unit))
 			_, gpos, _ := readDrawing(t, gOut)
 			rec, out = reportRecord(t, strings.Replace(up, "{\n", "{\n\trankdir=LR\n", 1), "--unit", strconv.Itoa(unit))
+			if *rec.FlowAlong == m {
+				turned++
+			}
 			_, upos, _ := readDrawing(t, out)
 			lo, hi := upos[0], upos[0]
 			for _, p := range upos {
@@ -207,5 +178,11 @@ func TestFlowOrientation(t *testing.T) {
 	if used < 6 {
 		t.Errorf("only %d generated triangulations had no level edge", used)
 	}
-	t.Logf("%d triangulations without a level edge, %d of them turned under LR, %d on a grid of %d points", used, turned, turnedOnGrid, 400)
+	slices.Sort(flowShares)
+	t.Logf("%d triangulations without a level edge, %d of them all along under LR on a grid of 400 points, %d turned there; share along by default: least %.2f, median %.2f", used, turned, turnedOnGrid, flowShares[0], flowShares[len(flowShares)/2])
+	// Measured: least 0.50 (a triangulation that keeps its spaced
+	// drawing, where only the symmetry helps), median 1.00.
+	if flowShares[0] < 0.45 || flowShares[len(flowShares)/2] < 0.95 {
+		t.Errorf("share of edges along the flow by default: least %.2f, median %.2f; want at least 0.45 and 0.95", flowShares[0], flowShares[len(flowShares)/2])
+	}
 }

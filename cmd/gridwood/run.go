@@ -170,7 +170,7 @@ func parseFlags(args []string) (*config, error) {
 	fs.BoolVar(&cfg.gridOnly, "grid", false, "keep the grid drawing, stretched to clear the node boxes, instead\nof the readable one")
 	method := fs.String("method", "schnyder", "drawing `METHOD`: schnyder draws every planar graph; convex draws\n3-connected components with every face convex (the others fall\nback to schnyder, and standard error names them); convex keeps\nits drawing, without the readable stage")
 	outer := fs.String("outer", "", "comma-separated `NAMES` of nodes that must lie on the outer\nboundary, as written but without quotes; applies to every graph\nthat has all of them\nexample: --outer Refectory,Gym,Chapel")
-	fs.BoolVar(&cfg.noFlow, "no-flow", false, "leave a digraph's drawing as laid out; by default it is mirrored,\nor turned a quarter when the boxes stay clear, so that the most\nedges not on a directed cycle point along its rankdir (TB when\nunset)")
+	fs.BoolVar(&cfg.noFlow, "no-flow", false, "do not point a digraph's edges along its rankdir (TB when\nunset); by default the readable stage keeps edges not on a\ndirected cycle pointing that way where it can, and the drawing is\nmirrored, or turned a quarter when the boxes stay clear, to point\nthe most along it")
 	fs.StringVar(&cfg.removedFile, "removed", "", "write the removed edges to `FILE` as DOT: one graph per input\ngraph, one edge per line with its attributes, in input order")
 	fs.BoolVar(&cfg.dropRemoved, "drop-removed", false, "leave the removed edges out of the main output")
 	mark := fs.String("mark-removed", "", "add these `ATTRS` to the removed edges in the main output,\nreplacing any of the same name on their statement\nexample: --mark-removed 'style=dashed,color=\"#999999\"'")
@@ -819,7 +819,13 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	spaceStart := time.Now()
 	var sp *place.Placed
 	if readable {
-		sp, err = res.Readable(boxes, place.ReadableOptions{EdgeExtra: labelRoom(g)})
+		opt := place.ReadableOptions{EdgeExtra: labelRoom(g), Groups: clusterChains(g)}
+		if g.Directed && !cfg.noFlow {
+			if opt.Flow, opt.FlowDir, err = flowPairs(g); err != nil {
+				return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+			}
+		}
+		sp, err = res.Readable(boxes, opt)
 	} else {
 		sp, err = res.Space(boxes, place.SpaceOptions{Unit: int64(cfg.unit), GridOnly: cfg.gridOnly})
 	}
@@ -834,7 +840,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 			removed[i] = true
 		}
 	}
-	// Digraph flow (README, "Digraph flow"): the finished drawing is
+	// Digraph flow (README, "Clusters and direction"): the finished drawing is
 	// mirrored or turned so that the most edges point along rankdir,
 	// before the frames are put round it.
 	sym := flow.Identity
