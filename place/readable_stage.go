@@ -10,8 +10,8 @@ import (
 
 // maxRoundings bounds the scalings tried when rounding a readable drawing
 // to integer points, and maxReadableGrowth the sides of the result, as a
-// multiple of the spaced drawing's (its area by the square): past either, the drawing is too
-// crowded somewhere to keep (errCrowded).
+// multiple of the spaced drawing's (its area by the square): past either,
+// the drawing is too crowded somewhere to keep (errCrowded).
 const (
 	maxRoundings      = 40
 	maxReadableGrowth = 2
@@ -51,8 +51,8 @@ type ReadableOptions struct {
 // left a box too near; a component whose drawing would then take more
 // than maxReadableGrowth^2 times the area of its spaced drawing keeps the
 // spaced drawing (counted in Placed.Unrefined), as do one whose drawing
-// has more normalized stress than the spaced one and one of more than
-// readableMaxVertices vertices. Components are then packed in rows. Draw
+// has more stress than the spaced one (by the stage's own ideal distances,
+// readable.Output.Gain) and one of more than readableMaxVertices vertices. Components are then packed in rows. Draw
 // must have been run with DrawOptions.Readable.
 func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 	sp, err := r.Space(b, SpaceOptions{})
@@ -142,14 +142,14 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 	return out, nil
 }
 
+// readableMaxVertices bounds the components the readable stage draws:
+// larger ones keep their spaced grid drawing (Placed.Unrefined), since
+// the stage's cost per vertex would take them past a minute.
+const readableMaxVertices = 20000
+
 // readableComponent draws the component with vertices vs and kept edges
 // (Draw's numbering), spaced at sx, sy, by the readable stage, and writes
 // its integer points into px, py.
-// readableMaxVertices bounds the components the readable stage draws:
-// larger ones keep their spaced grid drawing (Placed.Unrefined), since
-// the stage's cost per vertex would take them past a few seconds.
-const readableMaxVertices = 20000
-
 func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh []int64, gap int64, opt ReadableOptions, px, py []int64, stamp []int32, out *Placed) error {
 	emb, _ := r.keptEmb.Restrict(vs)
 	k := len(vs)
@@ -247,8 +247,8 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	return nil
 }
 
-// maxReadableStressShare is the most normalized stress a readable drawing
-// may keep of the spaced drawing it replaces.
+// maxReadableStressShare is the most stress a readable drawing may have
+// as a share of the spaced drawing's it replaces (readable.Output.Gain).
 const maxReadableStressShare = 1.0
 
 // boxedArea is the area of the bounding box of the vertices vs at x, y

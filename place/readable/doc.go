@@ -20,6 +20,14 @@
 // Computer Graphics Forum 30(3) (2011), with stress in place of forces
 // and the triangulation in place of their per-face bounds.
 //
+// What the caller says about structure enters through the stress model
+// (package place/stress): longer ideal lengths for labelled edges
+// (Input.EdgeExtra), shorter wanted distances inside a cluster and longer
+// ones across (Input.Groups), and a digraph's edges kept pointing one way
+// by projecting each target onto its separation constraints (Input.Flow;
+// after T. Dwyer and Y. Koren, "DIG-CoLa", InfoVis 2005, and T. Dwyer,
+// Y. Koren and K. Marriott, "IPSep-CoLa", InfoVis 2006).
+//
 // Ideal edge lengths come from the node boxes, so that labels fit; a move
 // also keeps a vertex's box from coming closer to an edge, or to a nearby
 // box, than the gap, wherever it was not already closer.
