@@ -13,14 +13,14 @@ import (
 )
 
 // drawReadable runs the default pipeline (Draw with Readable, then
-// Result.Readable) on g with boxes b.
-func drawReadable(t *testing.T, g graphgen.Graph, b Boxes) (*Result, *Placed) {
+// Result.Readable with opt) on g with boxes b.
+func drawReadable(t *testing.T, g graphgen.Graph, b Boxes, opt ReadableOptions) (*Result, *Placed) {
 	t.Helper()
 	res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}, Readable: true})
 	if err != nil {
 		t.Fatal(err)
 	}
-	sp, err := res.Readable(b, ReadableOptions{})
+	sp, err := res.Readable(b, opt)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -81,7 +81,7 @@ func TestReadableNearReference(t *testing.T) {
 	} {
 		t.Run(tc.g.Name, func(t *testing.T) {
 			b := equalBoxes(tc.g.N, 27, 18)
-			res, sp := drawReadable(t, tc.g, b)
+			res, sp := drawReadable(t, tc.g, b, ReadableOptions{})
 			checkSpaced(t, tc.g.Name, sp, b, res.Kept(), true)
 			if sp.Readable+sp.Unrefined != 1 {
 				t.Fatalf("%d components drawn readable and %d unrefined, want 1 in all", sp.Readable, sp.Unrefined)
@@ -108,7 +108,7 @@ func TestReadableNearReference(t *testing.T) {
 func TestReadableStarIsEven(t *testing.T) {
 	g := graphgen.Star(12)
 	b := equalBoxes(g.N, 27, 18)
-	res, sp := drawReadable(t, g, b)
+	res, sp := drawReadable(t, g, b, ReadableOptions{})
 	checkSpaced(t, g.Name, sp, b, res.Kept(), true)
 	centre := -1
 	deg := make([]int, g.N)
@@ -151,12 +151,12 @@ func TestReadablePlaneOnRandomInputs(t *testing.T) {
 		} {
 			name := fmt.Sprintf("%s seed %d", g.Name, seed)
 			b := variedBoxes(g.N)
-			res, sp := drawReadable(t, g, b)
+			res, sp := drawReadable(t, g, b, ReadableOptions{})
 			checkSpaced(t, name, sp, b, res.Kept(), false)
 			if seed > 2 {
 				continue
 			}
-			_, again := drawReadable(t, g, b)
+			_, again := drawReadable(t, g, b, ReadableOptions{})
 			if !slices.Equal(sp.X, again.X) || !slices.Equal(sp.Y, again.Y) {
 				t.Errorf("%s: two runs differ", name)
 			}
@@ -189,15 +189,8 @@ func TestReadableGathersClusters(t *testing.T) {
 		}
 		g.Edges = append(g.Edges, [2]int32{int32(seed % size), int32(2*size + seed*3%size)})
 		for _, gr := range [][][]int32{nil, groups} {
-			res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}, Readable: true})
-			if err != nil {
-				t.Fatal(err)
-			}
 			b := equalBoxes(g.N, 27, 18)
-			sp, err := res.Readable(b, ReadableOptions{Groups: gr})
-			if err != nil {
-				t.Fatal(err)
-			}
+			res, sp := drawReadable(t, g, b, ReadableOptions{Groups: gr})
 			checkSpaced(t, fmt.Sprintf("seed %d groups %v", seed, gr != nil), sp, b, res.Kept(), true)
 			k := clusterIntrusions(sp, b, groups)
 			if gr == nil {
@@ -259,15 +252,8 @@ func TestReadableFlows(t *testing.T) {
 		for _, e := range tc.g.Edges {
 			flow = append(flow, [2]int32{min(e[0], e[1]), max(e[0], e[1])})
 		}
-		res, err := Draw(tc.g.N, tc.g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}, Readable: true})
-		if err != nil {
-			t.Fatal(err)
-		}
 		b := equalBoxes(tc.g.N, 27, 18)
-		sp, err := res.Readable(b, ReadableOptions{Flow: flow, FlowDir: [2]float64{0, -1}})
-		if err != nil {
-			t.Fatal(err)
-		}
+		res, sp := drawReadable(t, tc.g, b, ReadableOptions{Flow: flow, FlowDir: [2]float64{0, -1}})
 		checkSpaced(t, tc.g.Name, sp, b, res.Kept(), true)
 		down := 0
 		for _, e := range flow {
