@@ -536,6 +536,13 @@ func (g *guard) barrier(v int32, w, qx, qy float64) float64 {
 			if g.margins {
 				need = max(need, g.reachAcross(p, ex-sx, ey-sy))
 			}
+			// Far from the side's bounding box, far from the side: no
+			// cost, and no square root (most sides of most stars).
+			bx := max(min(sx, ex)-px, px-max(sx, ex), 0)
+			by := max(min(sy, ey)-py, py-max(sy, ey), 0)
+			if float64(bx*bx)+float64(by*by) >= float64(need*need) {
+				return
+			}
 			term(segmentDistance(px, py, sx, sy, ex, ey), need)
 		}
 		side(v, c.AB, qx, qy, ax, ay, bx, by)
