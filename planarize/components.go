@@ -12,22 +12,10 @@ func (e *Embedding) Components() int {
 // in increasing order.
 func (e *Embedding) ComponentLabels() (label []int32, members [][]int32) {
 	label, count := e.componentLabels()
-	sizes := make([]int32, count+1)
-	for _, c := range label {
-		sizes[c+1]++
-	}
-	for c := int32(1); c <= count; c++ {
-		sizes[c] += sizes[c-1]
-	}
-	flat := make([]int32, len(label))
-	fill := append([]int32(nil), sizes[:count]...)
-	for v, c := range label {
-		flat[fill[c]] = int32(v)
-		fill[c]++
-	}
+	start, flat := groupByLabel(label, int(count))
 	members = make([][]int32, count)
 	for c := range members {
-		members[c] = flat[sizes[c]:sizes[c+1]:sizes[c+1]]
+		members[c] = flat[start[c]:start[c+1]:start[c+1]]
 	}
 	return label, members
 }
@@ -104,4 +92,24 @@ func (e *Embedding) intervalLabels() (label []int32, count int32, ok bool) {
 		}
 	}
 	return label, count, true
+}
+
+// groupByLabel lists the indices of label grouped by their label (each in
+// 0..count-1), in increasing order within a group: group c is
+// flat[start[c]:start[c+1]]. A counting sort, linear in len(label)+count.
+func groupByLabel(label []int32, count int) (start, flat []int32) {
+	start = make([]int32, count+1)
+	for _, c := range label {
+		start[c+1]++
+	}
+	for c := 1; c <= count; c++ {
+		start[c] += start[c-1]
+	}
+	flat = make([]int32, len(label))
+	fill := append([]int32(nil), start[:count]...)
+	for i, c := range label {
+		flat[fill[c]] = int32(i)
+		fill[c]++
+	}
+	return start, flat
 }
