@@ -289,14 +289,6 @@ func (r *Result) Explain(i int, budget *planarize.Budget) (*planarize.Kuratowski
 // first occurrence; Explain's edge indices refer to it.
 func (r *Result) PairList() [][2]int32 { return r.simple }
 
-func identity32(m int) []int32 {
-	p := make([]int32, m)
-	for i := range p {
-		p[i] = int32(i)
-	}
-	return p
-}
-
 // checkInput rejects what would otherwise index out of range.
 func checkInput(n int, edges [][2]int32) error {
 	if n < 0 || n > math.MaxInt32/2 {

@@ -136,7 +136,7 @@ func simpleEdges(emb *planarize.Embedding) bool {
 // layout is Layout on an embedding it may change.
 func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	n := work.N()
-	comp, members := components(work)
+	comp, members := work.ComponentLabels()
 	// A component that already has 3n-6 edges is a triangulation: it needs
 	// no augmentation, which on meshes saves a third of the time.
 	full := make([]bool, len(members))
@@ -399,101 +399,6 @@ func convexComponent(emb *planarize.Embedding, vs []int32, outer int32) (x, y []
 		}
 	}
 	return convexDrawing(sub, inSub)
-}
-
-// components labels vertices by connected component, numbering components
-// by their smallest vertex, and lists each component's vertices in
-// increasing order.
-func components(emb *planarize.Embedding) (comp []int32, members [][]int32) {
-	if comp, members, ok := intervalComponents(emb); ok {
-		return comp, members
-	}
-	n := emb.N()
-	comp = make([]int32, n)
-	for v := range comp {
-		comp[v] = -1
-	}
-	var stack []int32
-	count := int32(0)
-	for s := int32(0); int(s) < n; s++ {
-		if comp[s] >= 0 {
-			continue
-		}
-		comp[s] = count
-		stack = append(stack[:0], s)
-		for len(stack) > 0 {
-			v := stack[len(stack)-1]
-			stack = stack[:len(stack)-1]
-			f := emb.First(v)
-			if f < 0 {
-				continue
-			}
-			for d := f; ; {
-				if w := emb.Head(d); comp[w] < 0 {
-					comp[w] = count
-					stack = append(stack, w)
-				}
-				if d = emb.Next(d); d == f {
-					break
-				}
-			}
-		}
-		count++
-	}
-	sizes := make([]int32, count+1)
-	for _, c := range comp {
-		sizes[c+1]++
-	}
-	for c := int32(1); c <= count; c++ {
-		sizes[c] += sizes[c-1]
-	}
-	flat := make([]int32, n)
-	fill := append([]int32(nil), sizes[:count]...)
-	for v, c := range comp {
-		flat[fill[c]] = int32(v)
-		fill[c]++
-	}
-	members = make([][]int32, count)
-	for c := range members {
-		members[c] = flat[sizes[c]:sizes[c+1]:sizes[c+1]]
-	}
-	return comp, members
-}
-
-// intervalComponents finds the components in two sequential passes when
-// each is an interval of vertex numbers, as after Draw's depth-first
-// renumbering, and reports false otherwise. The intervals are the stretches
-// no edge leaves; such a stretch is connected when each of its vertices
-// but the first has a smaller neighbour in it, since following smaller
-// neighbours then leads every vertex to the first.
-func intervalComponents(emb *planarize.Embedding) (comp []int32, members [][]int32, ok bool) {
-	n := emb.N()
-	reach := make([]int32, n) // the largest neighbour, or the vertex itself
-	below := make([]bool, n)  // has a smaller neighbour
-	for v := range reach {
-		reach[v] = int32(v)
-	}
-	for i := range emb.M() {
-		e := emb.Edge(i)
-		lo, hi := min(e[0], e[1]), max(e[0], e[1])
-		reach[lo] = max(reach[lo], hi)
-		below[hi] = true
-	}
-	comp = make([]int32, n)
-	flat := make([]int32, n)
-	first, far := 0, int32(-1)
-	for v := range n {
-		if v > first && !below[v] {
-			return nil, nil, false
-		}
-		comp[v], flat[v] = int32(len(members)), int32(v)
-		far = max(far, reach[v])
-		if far == int32(v) {
-			members = append(members, flat[first:v+1:v+1])
-			first = v + 1
-		}
-	}
-	return comp, members, true
 }
 
 // pack places component boxes left to right in rows, with one empty grid

@@ -235,7 +235,7 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 			scale *= 2
 			continue
 		}
-		s, checked := neededStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+		s, checked := clearingStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
 		if !checked {
 			out.Unchecked++
 		}

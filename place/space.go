@@ -336,13 +336,13 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 		if compare && gridRegion != nil && !gridOnly {
 			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
 		}
-		gridStretch, gridChecked = neededStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+		gridStretch, gridChecked = clearingStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
 	}
 	stretch, checked, region := gridStretch, gridChecked, gridRegion
 	smoothed := false
 	if bary {
 		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
-		s2, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+		s2, ok := clearingStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
 		take := ok && !compare
 		if ok && compare {
 			g := stretchLimit(vs, px, py, hw, hh) // unknown: assume the grid as crowded as it may be
@@ -435,7 +435,7 @@ func shrinkComponent(aug *planarize.Embedding, vs []int32, region *outerRegion, 
 		if !planeDrawing(aug, vs, region, tx, ty, seen) {
 			continue
 		}
-		if s, checked := stretchNeeded(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)), false); checked && s <= 1 {
+		if s, checked := clearingStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)), false); checked && s <= 1 {
 			for _, v := range vs {
 				x[v], y[v] = tx[v], ty[v]
 			}
@@ -490,7 +490,7 @@ func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw,
 	if region != nil {
 		refine(d.aug, vs, region, edges, tx, ty, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
 	}
-	s, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+	s, ok := clearingStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
 	if !ok || s > stretchLimit(vs, tx, ty, hw, hh) {
 		return 0, nil, false // unknown, or crowded: not a clear win
 	}
@@ -538,7 +538,7 @@ func spaceTree(vs []int32, edges [][2]int32, hw, hh []int64, gap int64, x, y []i
 			y[v] = y[v] / layer * l
 		}
 		layer = l
-		s, checked := neededStretch(vs, edges, x, y, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+		s, checked := clearingStretch(vs, edges, x, y, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
 		unchecked = !checked
 		return checked && s <= 1
 	}
@@ -636,19 +636,14 @@ func stretchComponent(aug *planarize.Embedding, vs []int32, region *outerRegion,
 	}
 }
 
-// neededStretch returns the least factor s >= 1 by which the component's
+// clearingStretch returns the least factor s >= 1 by which the component's
 // point positions must be scaled so that no two node boxes (grown by gap)
 // overlap and no edge passes through the grown box of a vertex it does not
 // end at, where that vertex lies alongside the edge (its projection falls
 // strictly inside the edge). checked is false when the work bound stopped
-// the search (s is then 1).
-func neededStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, meter *workMeter) (s float64, checked bool) {
-	return stretchNeeded(vs, edges, x, y, hw, hh, gap, stamp, meter, true)
-}
-
-// stretchNeeded is neededStretch; everyPair says whether it may fall back
-// to trying every pair when the meter runs out.
-func stretchNeeded(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, meter *workMeter, everyPair bool) (s float64, checked bool) {
+// the search (s is then 1). allPairsFallback says whether it may then try
+// every vertex-edge pair instead, when there are few enough.
+func clearingStretch(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, meter *workMeter, allPairsFallback bool) (s float64, checked bool) {
 	if len(vs) < 2 {
 		return 1, true
 	}
@@ -661,7 +656,7 @@ func stretchNeeded(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64
 	// tried instead, if there are few enough (a drawing is only called
 	// checked when every pair was).
 	if !nearPairs(vs, edges, x, y, grid, stamp, meter, c.edgePair) {
-		if !everyPair || int64(len(vs))*int64(len(edges)) > checkAllPairs {
+		if !allPairsFallback || int64(len(vs))*int64(len(edges)) > checkAllPairs {
 			return 1, false
 		}
 		c.s = 1
@@ -671,7 +666,7 @@ func stretchNeeded(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64
 	return c.s, true
 }
 
-// checkAllPairs is the most vertex-edge pairs neededStretch tries one by
+// checkAllPairs is the most vertex-edge pairs clearingStretch tries one by
 // one when walking the edges' cells ran out of work: about 200 ms.
 const checkAllPairs = 80_000_000
 
@@ -687,7 +682,7 @@ func clearanceCell(vs []int32, hw, hh []int64, gap int64) int64 {
 }
 
 // clearance accumulates in s the least stretch that clears the pairs it
-// is shown (see neededStretch).
+// is shown (see clearingStretch).
 type clearance struct {
 	x, y, hw, hh []int64
 	gap          int64
@@ -1060,7 +1055,7 @@ func relaxWins(aug *planarize.Embedding, vs []int32, region *outerRegion, edges 
 	if !relax(aug, vs, region, edges, tx, ty, hw, hh, gap, reach, seen, stamp) {
 		return false
 	}
-	s, ok := neededStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)))
+	s, ok := clearingStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
 	if !ok || s > stretchLimit(vs, tx, ty, hw, hh) {
 		return false
 	}

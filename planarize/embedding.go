@@ -133,41 +133,6 @@ func (e *Embedding) IsPlane() bool {
 	return e.Faces() == 2*e.Components()-e.N()+e.M()
 }
 
-// Components returns the number of connected components, isolated vertices
-// included.
-func (e *Embedding) Components() int {
-	n := e.N()
-	seen := make([]bool, n)
-	stack := make([]int32, 0, 64)
-	c := 0
-	for s := range n {
-		if seen[s] {
-			continue
-		}
-		c++
-		seen[s] = true
-		stack = append(stack[:0], int32(s))
-		for len(stack) > 0 {
-			v := stack[len(stack)-1]
-			stack = stack[:len(stack)-1]
-			f := e.first[v]
-			if f < 0 {
-				continue
-			}
-			for d := f; ; {
-				if w := e.Head(d); !seen[w] {
-					seen[w] = true
-					stack = append(stack, w)
-				}
-				if d = e.next[d]; d == f {
-					break
-				}
-			}
-		}
-	}
-	return c
-}
-
 // Reserve makes room for m more edges, so that adding them later does not
 // copy the arrays again.
 func (e *Embedding) Reserve(m int) {

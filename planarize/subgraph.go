@@ -76,19 +76,7 @@ func MaximalPlanar(n int, edges [][2]int32, opt SubgraphOptions) *Subgraph {
 	}
 	block, nb := Blocks(n, edges)
 	// Group edge indices by block, keeping input order within a block.
-	start := make([]int32, nb+1)
-	for _, b := range block {
-		start[b+1]++
-	}
-	for b := 1; b <= nb; b++ {
-		start[b] += start[b-1]
-	}
-	byBlock := make([]int32, len(edges))
-	fill := append([]int32(nil), start[:nb]...)
-	for i, b := range block {
-		byBlock[fill[b]] = int32(i)
-		fill[b]++
-	}
+	start, byBlock := groupByLabel(block, nb)
 	local := make([]int32, n)
 	for v := range local {
 		local[v] = -1
