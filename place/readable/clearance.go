@@ -366,52 +366,20 @@ func (g *guard) inflateCrowded() bool {
 			factor[v] = max(factor[v], f)
 		}
 	}
-	parent := make([]int32, n)
-	for v := range parent {
-		parent[v] = int32(v)
-	}
-	find := func(v int32) int32 {
-		for parent[v] != v {
-			parent[v] = parent[parent[v]]
-			v = parent[v]
-		}
-		return v
-	}
-	any := false
-	for _, e := range g.edges {
-		if factor[e[0]] > inflateAbove && factor[e[1]] > inflateAbove {
-			parent[find(e[0])] = find(e[1])
-			any = true
-		}
-	}
-	if !any {
-		return false
-	}
-	members := map[int32][]int32{}
-	var roots []int32
-	for v := range int32(n) {
-		if factor[v] > inflateAbove {
-			r := find(v)
-			if len(members[r]) == 0 {
-				roots = append(roots, r)
-			}
-			members[r] = append(members[r], v)
-		}
-	}
-	slices.Sort(roots)
-	var parts [][]int32
-	var factors []float64
-	for _, r := range roots {
-		vs := members[r]
-		if len(vs) < 2 {
-			continue
-		}
+	parts := joinedParts(n, g.edges, func(i int) bool {
+		e := g.edges[i]
+		return factor[e[0]] > inflateAbove && factor[e[1]] > inflateAbove
+	}, func(v int32) bool { return factor[v] > inflateAbove })
+	factors := make([]float64, len(parts))
+	for k, vs := range parts {
 		f := 1.0
 		for _, v := range vs {
 			f = max(f, factor[v])
 		}
-		parts = append(parts, vs)
-		factors = append(factors, min(f, maxInflate))
+		factors[k] = min(f, maxInflate)
+	}
+	if len(parts) == 0 {
+		return false
 	}
 	return g.blowUp(parts, factors, g.reach)
 }

@@ -3,6 +3,7 @@ package readable
 import (
 	"slices"
 
+	"github.com/gridwood/gridwood/internal/disjoint"
 	"github.com/gridwood/gridwood/place/mesh"
 )
 
@@ -25,64 +26,78 @@ const crushedShare = 0.05
 // triangulating it anew), and keeps the largest that does. It returns
 // whether anything moved; the guard's triangulation is then rebuilt.
 func (g *guard) uncrush(lengths []float64, reach float64) bool {
-	n := len(g.x)
-	parent := make([]int32, n)
-	for v := range parent {
-		parent[v] = int32(v)
-	}
-	var find func(int32) int32
-	find = func(v int32) int32 {
-		for parent[v] != v {
-			parent[v] = parent[parent[v]]
-			v = parent[v]
-		}
-		return v
-	}
-	crushed := false
-	for i, e := range g.edges {
-		if hypot(g.x[e[0]]-g.x[e[1]], g.y[e[0]]-g.y[e[1]]) < crushedShare*lengths[i] {
-			parent[find(e[0])] = find(e[1])
-			crushed = true
-		}
-	}
-	if !crushed {
+	parts := joinedParts(len(g.x), g.edges, func(i int) bool {
+		e := g.edges[i]
+		return hypot(g.x[e[0]]-g.x[e[1]], g.y[e[0]]-g.y[e[1]]) < crushedShare*lengths[i]
+	}, nil)
+	if len(parts) == 0 {
 		return false
 	}
-	// The parts, as lists of vertices in index order, each to grow by
-	// the factor that gives its edges their ideal mean length.
-	members := map[int32][]int32{}
-	for v := range int32(n) {
-		r := find(v)
-		members[r] = append(members[r], v)
+	// Each part grows by the factor that gives its edges their ideal mean
+	// length: the sums over its edges, in one pass over all edges.
+	partOf := make([]int32, len(g.x))
+	for v := range partOf {
+		partOf[v] = -1
 	}
-	roots := make([]int32, 0, len(members))
-	for r, vs := range members {
-		if len(vs) >= 2 {
+	for k, vs := range parts {
+		for _, v := range vs {
+			partOf[v] = int32(k)
+		}
+	}
+	drawn, ideal := make([]float64, len(parts)), make([]float64, len(parts))
+	for i, e := range g.edges {
+		if k := partOf[e[0]]; k >= 0 && k == partOf[e[1]] {
+			drawn[k] += hypot(g.x[e[0]]-g.x[e[1]], g.y[e[0]]-g.y[e[1]])
+			ideal[k] += lengths[i]
+		}
+	}
+	var grown [][]int32
+	var factors []float64
+	for k, vs := range parts {
+		if drawn[k] > 0 {
+			grown = append(grown, vs)
+			factors = append(factors, ideal[k]/drawn[k])
+		}
+	}
+	return g.blowUp(grown, factors, reach)
+}
+
+// joinedParts joins the ends of every edge i for which join(i) holds and
+// returns the parts of two or more vertices for which keep holds (nil:
+// all), each in increasing order, the parts in the order of their roots
+// (the second end's root stays the root of a joined pair).
+func joinedParts(n int, edges [][2]int32, join func(i int) bool, keep func(v int32) bool) [][]int32 {
+	sets := disjoint.New(n)
+	joined := false
+	for i, e := range edges {
+		if join(i) {
+			sets.Union(e[1], e[0])
+			joined = true
+		}
+	}
+	if !joined {
+		return nil
+	}
+	members := map[int32][]int32{}
+	var roots []int32
+	for v := range int32(n) {
+		if keep != nil && !keep(v) {
+			continue
+		}
+		r := sets.Find(v)
+		if len(members[r]) == 0 {
 			roots = append(roots, r)
 		}
+		members[r] = append(members[r], v)
 	}
 	slices.Sort(roots)
 	var parts [][]int32
-	var factors []float64
 	for _, r := range roots {
-		vs := members[r]
-		in := make(map[int32]bool, len(vs))
-		for _, v := range vs {
-			in[v] = true
-		}
-		var drawn, ideal float64
-		for i, e := range g.edges {
-			if in[e[0]] && in[e[1]] {
-				drawn += hypot(g.x[e[0]]-g.x[e[1]], g.y[e[0]]-g.y[e[1]])
-				ideal += lengths[i]
-			}
-		}
-		if drawn > 0 {
-			parts = append(parts, vs)
-			factors = append(factors, ideal/drawn)
+		if len(members[r]) >= 2 {
+			parts = append(parts, members[r])
 		}
 	}
-	return g.blowUp(parts, factors, reach)
+	return parts
 }
 
 // blowUp scales each part about its centroid by its factor, halving the
