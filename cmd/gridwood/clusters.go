@@ -152,15 +152,14 @@ func warnClusters(note func(format string, args ...any), name string, g *dotio.G
 	}
 }
 
-// clusterChains lists, per node, the clusters it lies in, outermost
-// first, for the readable stage to gather (place.ReadableOptions.Groups);
-// nil for a graph without clusters.
-func clusterChains(g *dotio.Graph) [][]int32 {
-	set := g.Clusters()
+// clusterChains lists, per node, the clusters of set it lies in,
+// outermost first, for the readable stage to gather
+// (place.ReadableOptions.Groups); nil for a graph without clusters.
+func clusterChains(set *dotio.ClusterSet) [][]int32 {
 	if len(set.Clusters) == 0 {
 		return nil
 	}
-	chains := make([][]int32, len(g.Nodes))
+	chains := make([][]int32, len(set.Home))
 	for v, h := range set.Home {
 		var chain []int32
 		for c := int(h); c >= 0; c = set.Clusters[c].Parent {

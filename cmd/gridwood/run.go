@@ -817,9 +817,10 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	boxes, caps := cappedNodeBoxes(g)
 	step("spacing", 0.85)
 	spaceStart := time.Now()
+	set := g.Clusters(preview.FrameKeys()...) // gathered, then framed
 	var sp *place.Placed
 	if readable {
-		opt := place.ReadableOptions{EdgeExtra: labelRoom(g), Groups: clusterChains(g)}
+		opt := place.ReadableOptions{EdgeExtra: labelRoom(g), Groups: clusterChains(set)}
 		if g.Directed && !cfg.noFlow {
 			if opt.Flow, opt.FlowDir, err = flowPairs(g); err != nil {
 				return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
@@ -854,7 +855,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	// moves, whole grid steps under --unit, so that it starts at 0,0
 	// with its frames.
 	var clusters *clusterInfo
-	if set := g.Clusters(preview.FrameKeys()...); len(set.Clusters) > 0 {
+	if len(set.Clusters) > 0 {
 		if clusters, err = layoutFrames(g, set, &lay, boxes, int64(cfg.unit)); err != nil {
 			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
 		}
