@@ -4,8 +4,8 @@ import (
 	"fmt"
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 // orientations lists, for every vertex and every edge not ending at it

@@ -4,8 +4,8 @@ import (
 	"slices"
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/geomcheck"
 	"github.com/gridwood/gridwood/planarize"
 )
 

@@ -8,13 +8,13 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/geomcheck"
 	"github.com/gridwood/gridwood/planarize"
 )
 
 // This file tests convexDrawing. Every drawing goes through the independent
-// exact checker internal/geomcheck and through the exact convexity check
+// exact checker place/geomcheck and through the exact convexity check
 // below, which walks the faces of the embedding and looks only at the
 // coordinates. Whether a graph is 3-connected is decided here by brute
 // force, never by the code under test.

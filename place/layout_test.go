@@ -8,13 +8,13 @@ import (
 	"sync/atomic"
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/geomcheck"
 	"github.com/gridwood/gridwood/planarize"
 )
 
 // This file tests Layout. Every drawing goes through the independent exact
-// checker internal/geomcheck, and the Schnyder invariants are checked from
+// checker place/geomcheck, and the Schnyder invariants are checked from
 // the coordinates, the component boxes and the barycentric triples.
 
 // mustEmbed embeds g or stops the test: every graph handed to it is planar.

@@ -7,8 +7,8 @@ import (
 	"slices"
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 // outlierBoxes gives n nodes default-sized boxes (half 27 x 18 points, 18

@@ -29,8 +29,8 @@ import (
 
 	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/dotio/nodesize"
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/geomcheck"
 	"github.com/gridwood/gridwood/place/mesh"
 	"github.com/gridwood/gridwood/place/quality"
 	"github.com/gridwood/gridwood/place/readable"

@@ -13,8 +13,8 @@ import (
 
 	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/dotio/nodesize"
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/place/frame"
+	"github.com/gridwood/gridwood/place/geomcheck"
 	"github.com/gridwood/gridwood/planarize"
 )
 

@@ -2,9 +2,9 @@ package main
 
 import (
 	"github.com/gridwood/gridwood/dotio"
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/place"
 	"github.com/gridwood/gridwood/place/flow"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 // flowDirection reads a digraph's rankdir; ok is false for a value that

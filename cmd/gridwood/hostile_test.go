@@ -13,7 +13,7 @@ import (
 	"testing"
 
 	"github.com/gridwood/gridwood/dotio"
-	"github.com/gridwood/gridwood/internal/geomcheck"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 // operandProduct returns `graph {` / `{a0 ... an-1} -- {b0 ... bm-1}` / `}`

@@ -21,7 +21,7 @@ import (
 	"gonum.org/v1/gonum/graph/formats/dot/ast"
 
 	"github.com/gridwood/gridwood/dotio"
-	"github.com/gridwood/gridwood/internal/geomcheck"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 // This file checks README.md's promise "What the output contains": the

@@ -9,7 +9,7 @@ import (
 	"gonum.org/v1/gonum/graph/formats/dot"
 
 	"github.com/gridwood/gridwood/dotio"
-	"github.com/gridwood/gridwood/internal/geomcheck"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 // This file checks README.md's "Grid drawings" on --outer: with --outer A,B,C the

@@ -6,9 +6,9 @@ import (
 	"time"
 
 	"github.com/gridwood/gridwood/dotio"
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/place"
 	"github.com/gridwood/gridwood/place/frame"
+	"github.com/gridwood/gridwood/place/geomcheck"
 	"github.com/gridwood/gridwood/place/quality"
 )
 

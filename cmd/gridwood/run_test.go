@@ -19,7 +19,7 @@ import (
 	"gonum.org/v1/gonum/graph/formats/dot/ast"
 
 	"github.com/gridwood/gridwood/dotio"
-	"github.com/gridwood/gridwood/internal/geomcheck"
+	"github.com/gridwood/gridwood/place/geomcheck"
 	"github.com/gridwood/gridwood/planarize"
 )
 

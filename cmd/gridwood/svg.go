@@ -9,7 +9,7 @@ import (
 
 	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/dotio/preview"
-	"github.com/gridwood/gridwood/internal/geomcheck"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 // writeSVG writes the --svg preview of graphs (package preview) to w and,

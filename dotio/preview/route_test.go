@@ -9,8 +9,8 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/geomcheck"
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 // routeInputs are the graphs the removed routes are checked on: the

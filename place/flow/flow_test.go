@@ -6,7 +6,7 @@ import (
 	"slices"
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/geomcheck"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 func TestOnCycles(t *testing.T) {

@@ -6,7 +6,7 @@ import (
 	"slices"
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/geomcheck"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 // drawing is a hand-made test drawing: clusters, node centres and half

@@ -6,7 +6,7 @@ import (
 	"math/rand/v2"
 	"testing"
 
-	"github.com/gridwood/gridwood/internal/geomcheck"
+	"github.com/gridwood/gridwood/place/geomcheck"
 )
 
 // sides returns the drawing-vertex sides of the mesh, each once.
@@ -46,7 +46,7 @@ func points(pts []geomcheck.Point) (x, y []float64) {
 }
 
 // TestNewAgreesWithChecker: on small random integer drawings, New accepts
-// exactly the drawings the independent checker (internal/geomcheck) finds
+// exactly the drawings the independent checker (place/geomcheck) finds
 // plane, and an accepted mesh holds every edge as a fixed side.
 func TestNewAgreesWithChecker(t *testing.T) {
 	rng := rand.New(rand.NewPCG(7, 8))
