@@ -56,7 +56,7 @@
 //     triangle, or is one and the component has at most tutteTriangleLimit
 //     (100) vertices, since inside a triangle it crowds the corners; it is
 //     preferred to the grid unless it needs more than
-//     barycentricAreaAllowance (2) times the grid's area, and past
+//     tutteAreaAllowance (2) times the grid's area, and past
 //     gridCompareLimit (2,000) vertices it is taken without comparing.
 //     Felsner's face-count drawing is made of the input's own faces when
 //     the component is 3-connected (every face convex; Placed.Convex), else

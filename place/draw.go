@@ -56,7 +56,8 @@ type Result struct {
 	removedSP  []int32
 	keptComp   []int32              // for Explain: each vertex's component in the kept graph
 	keptIn     [][]int32            // for Explain: the kept pairs of each component
-	local      *Drawing             // the drawing in Draw's own numbering
+	local      *Drawing             // the grid drawing in Draw's own numbering
+	tri        *triangulation       // the grid stage's triangulation, for Space
 	newID      []int32              // caller's vertex -> Draw's numbering
 	keptLocal  [][2]int32           // kept pairs in Draw's numbering
 	keptEmb    *planarize.Embedding // the kept graph's embedding (DrawOptions.Readable)
@@ -172,17 +173,17 @@ func Draw(n int, edges [][2]int32, opt DrawOptions) (*Result, error) {
 	if opt.Readable {
 		res.keptEmb = emb.Clone()
 	}
-	d, err := layout(emb, lopt) // emb is ours to augment
+	d, tri, err := layout(emb, lopt) // emb is ours to augment
 	res.Times.Layout = time.Since(start)
 	if err != nil {
 		return nil, err
 	}
-	res.local, res.newID, res.keptLocal = d, newID, kept
+	res.local, res.tri, res.newID, res.keptLocal = d, tri, newID, kept
 	// Back to the caller's numbering.
 	res.Drawing = *d
-	res.X, res.Y, res.bary = make([]int64, n), make([]int64, n), make([][3]int32, n)
+	res.X, res.Y, res.Barycentric = make([]int64, n), make([]int64, n), make([][3]int32, n)
 	for v, w := range newID {
-		res.X[v], res.Y[v], res.bary[v] = d.X[w], d.Y[w], d.bary[w]
+		res.X[v], res.Y[v], res.Barycentric[v] = d.X[w], d.Y[w], d.Barycentric[w]
 	}
 	return res, nil
 }
@@ -199,7 +200,7 @@ func (r *Result) FellBackVertices() []int {
 		callerID[w] = v
 	}
 	var out []int
-	for c, vs := range r.local.members {
+	for c, vs := range r.tri.members {
 		if !r.Components[c].FellBack {
 			continue
 		}
@@ -247,7 +248,7 @@ func pairsInInputOrder(edges [][2]int32, rawOf, localIndex []int32, pairs int) (
 // StageTimes are the durations of Draw's stages.
 type StageTimes struct {
 	Planarize time.Duration // simple graph, planarity test, planar subgraph, embedding
-	Layout    time.Duration // augmentation, ordering, coordinates, compaction, barycentric drawing
+	Layout    time.Duration // augmentation, ordering, coordinates, compaction, Tutte drawing
 }
 
 // Kept returns the distinct vertex pairs of the drawing, without the

@@ -22,20 +22,27 @@ type Drawing struct {
 	// with the Schnyder method.
 	NotConvex int
 
-	// bary holds each vertex's weak barycentric coordinates within its
-	// component (zero for components of one or two vertices); tests check
-	// them against Schnyder's invariants.
-	bary [][3]int32
+	// Barycentric holds each vertex's weak barycentric coordinates within
+	// its component's Schnyder wood (Schnyder 1990): the vertex counts
+	// that place it. Zero for components of one or two vertices and for
+	// those drawn convex.
+	Barycentric [][3]int32
+}
 
-	// Each component's vertices; with Options.Smooth also the augmented
-	// triangulation, each component's outer face (nil where no barycentric
-	// drawing was made) and the barycentric coordinates in a frame of side
+// triangulation is what the grid stage hands on to spacing besides the
+// drawing: each component's vertices and, with Options.Smooth, the
+// triangulation the Schnyder drawings were made of and the other drawings
+// of it that Space weighs against the grid.
+type triangulation struct {
+	members [][]int32 // each component's vertices, in increasing order
+	// The rest is set with Options.Smooth only.
+	aug      *planarize.Embedding // the input with its dummy edges
+	triOuter []int32              // each Schnyder drawing's outer triangle (a dart of aug), -1 if none
+	// outer is each component's outer region (nil where no Tutte drawing
+	// was made), and tutteX, tutteY Tutte's drawing in a frame of side
 	// fineSpan (nil if none was made).
-	aug          *planarize.Embedding
-	members      [][]int32
-	triOuter     []int32 // the outer triangle of each Schnyder drawing, -1 if none
-	outer        []*outerRegion
-	fineX, fineY []int64
+	outer          []*outerRegion
+	tutteX, tutteY []int64
 	// convexAlt holds, per component (nil if none), a face-count drawing
 	// to weigh against the Schnyder one: x and y in the order of members;
 	// convexOwn says it is of the component's own faces (3-connected:
@@ -112,7 +119,8 @@ func Layout(emb *planarize.Embedding, opt Options) (*Drawing, error) {
 	if !simpleEdges(emb) {
 		return nil, errNotSimple
 	}
-	return layout(emb.Clone(), opt)
+	d, _, err := layout(emb.Clone(), opt)
+	return d, err
 }
 
 var (
@@ -133,8 +141,9 @@ func simpleEdges(emb *planarize.Embedding) bool {
 	return len(simple) == len(edges)
 }
 
-// layout is Layout on an embedding it may change.
-func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
+// layout is Layout on an embedding it may change; it also returns what
+// spacing needs of the triangulation behind the drawing.
+func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, error) {
 	n := work.N()
 	comp, members := work.ComponentLabels()
 	// A component that already has 3n-6 edges is a triangulation: it needs
@@ -154,7 +163,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	}
 	chosen, err := chooseOuterFaces(work, comp, members, full, opt.Outer)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	// Convex drawings work on the input's own embedding: draw them first
 	// and leave those components out of the augmentation.
@@ -289,7 +298,8 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	if opt.Compact {
 		origEdges = edgesByComponent(work, comp, members, work.M())
 	}
-	d := &Drawing{X: make([]int64, n), Y: make([]int64, n), bary: make([][3]int32, n)}
+	d := &Drawing{X: make([]int64, n), Y: make([]int64, n), Barycentric: make([][3]int32, n)}
+	tri := &triangulation{members: members}
 	ww := newWoodWork(n)
 	index := make([]int32, n) // position of a vertex within its component
 	var coord [][3]int32
@@ -321,17 +331,17 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 			outer = work.First(vs[0])
 		}
 		if opt.Smooth > 0 {
-			if d.triOuter == nil {
-				d.triOuter = make([]int32, len(members))
-				for i := range d.triOuter {
-					d.triOuter[i] = -1
+			if tri.triOuter == nil {
+				tri.triOuter = make([]int32, len(members))
+				for i := range tri.triOuter {
+					tri.triOuter[i] = -1
 				}
 			}
-			d.triOuter[c] = outer
+			tri.triOuter[c] = outer
 		}
 		order = append(order[:0], make([]int32, len(vs))...)
 		if err := ww.canonicalOrder(work, outer, order); err != nil {
-			return nil, err
+			return nil, nil, err
 		}
 		coord = append(coord[:0], make([][3]int32, len(vs))...)
 		ww.barycentric(order, coord, index)
@@ -348,16 +358,16 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 		// interior exponentially; it is worth computing for a larger
 		// outer face, or for small components.
 		if r := regions[c]; r != nil && len(vs) >= 4 && len(vs) <= readableLimit && (len(r.face) > 3 || len(vs) <= tutteTriangleLimit) {
-			if d.fineX == nil {
-				d.fineX, d.fineY = make([]int64, n), make([]int64, n)
-				d.outer = make([]*outerRegion, len(members))
+			if tri.tutteX == nil {
+				tri.tutteX, tri.tutteY = make([]int64, n), make([]int64, n)
+				tri.outer = make([]*outerRegion, len(members))
 			}
-			tutteDrawing(work, vs, r, d.fineX, d.fineY, opt.Smooth)
-			d.outer[c] = r
+			tutteDrawing(work, vs, r, tri.tutteX, tri.tutteY, opt.Smooth)
+			tri.outer[c] = r
 		}
 		var w, h int64
 		for i, v := range vs {
-			d.bary[v] = coord[i]
+			d.Barycentric[v] = coord[i]
 			d.X[v], d.Y[v] = int64(coord[i][0]), int64(coord[i][1])
 			w, h = max(w, d.X[v]), max(h, d.Y[v])
 		}
@@ -378,12 +388,11 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, error) {
 	}
 	d.Components = boxes
 	d.NotConvex = notConvex
-	d.members = members
 	if opt.Smooth > 0 {
-		d.aug = work
-		d.convexAlt, d.convexOwn = convexAlt, convexOwn
+		tri.aug = work
+		tri.convexAlt, tri.convexOwn = convexAlt, convexOwn
 	}
-	return d, nil
+	return d, tri, nil
 }
 
 // convexComponent draws the component of emb with vertices vs convex (see

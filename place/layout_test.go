@@ -82,8 +82,8 @@ const maxLexWork = 4_000_000
 // given edges must satisfy.
 func checkDrawing(tb testing.TB, name string, n int, edges [][2]int32, d *Drawing) {
 	tb.Helper()
-	if len(d.X) != n || len(d.Y) != n || len(d.bary) != n {
-		tb.Fatalf("%s: %d vertices, but len(X), len(Y), len(bary) = %d, %d, %d", name, n, len(d.X), len(d.Y), len(d.bary))
+	if len(d.X) != n || len(d.Y) != n || len(d.Barycentric) != n {
+		tb.Fatalf("%s: %d vertices, but len(X), len(Y), len(bary) = %d, %d, %d", name, n, len(d.X), len(d.Y), len(d.Barycentric))
 	}
 	checkCrossingFree(tb, name, d, edges)
 	label, members := graphgen.Components(n, edges)
@@ -140,8 +140,8 @@ func checkComponent(tb testing.TB, name string, c int, vs []int32, d *Drawing) b
 	switch {
 	case nc == 1:
 		// A single vertex is a point at the corner of an empty box.
-		if b.W != 0 || b.H != 0 || b.Barycentre || d.bary[vs[0]] != [3]int32{} {
-			tb.Errorf("%s: one-vertex component %d: box %+v, bary %v", name, c, b, d.bary[vs[0]])
+		if b.W != 0 || b.H != 0 || b.Barycentre || d.Barycentric[vs[0]] != [3]int32{} {
+			tb.Errorf("%s: one-vertex component %d: box %+v, bary %v", name, c, b, d.Barycentric[vs[0]])
 			return false
 		}
 	case nc == 2:
@@ -151,7 +151,7 @@ func checkComponent(tb testing.TB, name string, c int, vs []int32, d *Drawing) b
 		ends := [2]int64{d.X[u] + d.Y[u], d.X[v] + d.Y[v]}
 		lo := b.X0 + b.Y0
 		if !unit || b.Barycentre || min(ends[0], ends[1]) != lo || max(ends[0], ends[1]) != lo+1 ||
-			d.bary[u] != [3]int32{} || d.bary[v] != [3]int32{} {
+			d.Barycentric[u] != [3]int32{} || d.Barycentric[v] != [3]int32{} {
 			tb.Errorf("%s: two-vertex component %d: box %+v, ends (%d,%d) (%d,%d)", name, c, b, d.X[u], d.Y[u], d.X[v], d.Y[v])
 			return false
 		}
@@ -170,7 +170,7 @@ func checkComponent(tb testing.TB, name string, c int, vs []int32, d *Drawing) b
 		}
 		for _, v := range vs {
 			x, y := d.X[v]-b.X0, d.Y[v]-b.Y0
-			t := d.bary[v]
+			t := d.Barycentric[v]
 			if t[0] < 0 || t[1] < 0 || t[2] < 0 || int64(t[0])+int64(t[1])+int64(t[2]) != nc-1 {
 				tb.Errorf("%s: vertex %d of a %d-vertex component has barycentric %v (Schnyder 1990: >= 0, sum n-1)", name, v, nc, t)
 				return false
@@ -218,7 +218,7 @@ func lexLess(a0, a1, b0, b1 int32) bool { return a0 < b0 || (a0 == b0 && a1 < b1
 // triangulation, so in particular for the input's edges.
 func checkWeakBarycentric(tb testing.TB, name string, label []int, members [][]int32, edges [][2]int32, d *Drawing) {
 	tb.Helper()
-	b := d.bary
+	b := d.Barycentric
 	for _, e := range edges {
 		x, y := e[0], e[1]
 		vs := members[label[x]]
@@ -448,7 +448,7 @@ func TestLayoutWorkedExamples(t *testing.T) {
 	cmp := func(a, b [3]int32) int { return slices.Compare(a[:], b[:]) }
 	for _, tt := range tests {
 		d := layoutAndCheck(t, tt.g)
-		got := slices.SortedFunc(slices.Values(d.bary), cmp)
+		got := slices.SortedFunc(slices.Values(d.Barycentric), cmp)
 		want := slices.SortedFunc(slices.Values(tt.want), cmp)
 		if !slices.Equal(got, want) {
 			t.Errorf("%s: barycentric triples %v, worked by hand %v", tt.g.Name, got, want)
@@ -884,7 +884,7 @@ func TestCheckersCatchDefects(t *testing.T) {
 	clone := func() *Drawing {
 		d := *good
 		d.X, d.Y = slices.Clone(good.X), slices.Clone(good.Y)
-		d.bary = slices.Clone(good.bary)
+		d.Barycentric = slices.Clone(good.Barycentric)
 		d.Components = slices.Clone(good.Components)
 		return &d
 	}
@@ -897,11 +897,14 @@ func TestCheckersCatchDefects(t *testing.T) {
 		{"vertex-onto-neighbour", func(d *Drawing) { d.X[u], d.Y[u] = d.X[v], d.Y[v] }},
 		{"swap-two-vertices", func(d *Drawing) {
 			d.X[u], d.X[v], d.Y[u], d.Y[v] = d.X[v], d.X[u], d.Y[v], d.Y[u]
-			d.bary[u], d.bary[v] = d.bary[v], d.bary[u]
+			d.Barycentric[u], d.Barycentric[v] = d.Barycentric[v], d.Barycentric[u]
 		}},
-		{"bary-sum", func(d *Drawing) { d.bary[u][2]++ }},
-		{"bary-negative", func(d *Drawing) { d.bary[u][2] -= d.bary[u][2] + 1; d.bary[u][0] += d.bary[u][2] + 1 }},
-		{"not-at-bary", func(d *Drawing) { d.bary[u][0], d.bary[u][2] = d.bary[u][2], d.bary[u][0] }},
+		{"bary-sum", func(d *Drawing) { d.Barycentric[u][2]++ }},
+		{"bary-negative", func(d *Drawing) {
+			d.Barycentric[u][2] -= d.Barycentric[u][2] + 1
+			d.Barycentric[u][0] += d.Barycentric[u][2] + 1
+		}},
+		{"not-at-bary", func(d *Drawing) { d.Barycentric[u][0], d.Barycentric[u][2] = d.Barycentric[u][2], d.Barycentric[u][0] }},
 		{"box-too-wide", func(d *Drawing) { d.Components[0].W = 29 }},
 		{"width-too-small", func(d *Drawing) { d.Width-- }},
 		{"boxes-meet", func(d *Drawing) {
@@ -928,7 +931,7 @@ func TestCheckersCatchDefects(t *testing.T) {
 	// The weak barycentric check alone catches two swapped triples.
 	d := clone()
 	label, members := graphgen.Components(g.N, edges)
-	d.bary[u], d.bary[v] = d.bary[v], d.bary[u]
+	d.Barycentric[u], d.Barycentric[v] = d.Barycentric[v], d.Barycentric[u]
 	if ok, _ := rejects(t, func(tb testing.TB) { checkWeakBarycentric(tb, "swapped", label, members, edges, d) }); !ok {
 		t.Errorf("swapping two barycentric triples passes the weak barycentric check")
 	}

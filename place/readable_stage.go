@@ -64,7 +64,6 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 	if err != nil {
 		return nil, err
 	}
-	d := r.local
 	out := &Placed{X: make([]int64, n), Y: make([]int64, n), Unit: unit, Unchecked: sp.Unchecked}
 	px, py := make([]int64, n), make([]int64, n)
 	sx, sy := make([]int64, n), make([]int64, n) // the spaced drawing, local
@@ -103,9 +102,9 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 		opt.Groups = local
 	}
 	edgesOf := r.edgesByComponent()
-	boxes := make([]Component, len(d.members))
+	boxes := make([]Component, len(r.tri.members))
 	stamp := make([]int32, n)
-	for c, vs := range d.members {
+	for c, vs := range r.tri.members {
 		for _, v := range vs {
 			px[v], py[v] = sx[v], sy[v]
 		}
@@ -128,7 +127,7 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 		boxes[c] = shiftToOrigin(vs, px, py, hw, hh)
 	}
 	packSpaced(boxes, unit)
-	for c, vs := range d.members {
+	for c, vs := range r.tri.members {
 		for _, v := range vs {
 			px[v] += boxes[c].X0
 			py[v] += boxes[c].Y0

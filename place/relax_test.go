@@ -28,7 +28,7 @@ func TestRelaxKeepsTriangulationPlane(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		d := res.local
+		d := res.tri // the triangulation behind the grid drawing res.local
 		relaxed := 0
 		for c, vs := range d.members {
 			if len(vs) < 4 || d.triOuter[c] < 0 {
@@ -40,7 +40,7 @@ func TestRelaxKeepsTriangulationPlane(t *testing.T) {
 			n := d.aug.N()
 			x, y := make([]int64, n), make([]int64, n)
 			for _, v := range vs {
-				x[v], y[v] = d.X[v], d.Y[v]
+				x[v], y[v] = res.local.X[v], res.local.Y[v]
 			}
 			corners := [3]int32{d.aug.Tail(f0), d.aug.Tail(f1), d.aug.Tail(d.aug.FaceNext(f1))}
 			before := cornerCoordinates(vs, corners, x, y)
@@ -291,7 +291,7 @@ func TestEquilateral(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		d := res.local
+		d := res.tri // the triangulation behind the grid drawing res.local
 		vs := d.members[0]
 		f0 := d.triOuter[0]
 		f1 := d.aug.FaceNext(f0)
@@ -300,7 +300,7 @@ func TestEquilateral(t *testing.T) {
 		n := d.aug.N()
 		x, y := make([]int64, n), make([]int64, n)
 		for _, v := range vs {
-			x[v], y[v] = d.X[v]*1000, d.Y[v]*1000
+			x[v], y[v] = res.local.X[v]*1000, res.local.Y[v]*1000
 		}
 		seen := make([]bool, 2*d.aug.M())
 		turn := triangleSign(d.aug, f0, x, y)

@@ -25,7 +25,7 @@ type SpaceOptions struct {
 	Unit int64
 	// GridOnly keeps every component's grid drawing, with the unit chosen
 	// from the boxes and stretched to clear them, but neither refined nor
-	// replaced by the barycentric drawing.
+	// replaced by the Tutte drawing.
 	GridOnly bool
 }
 
@@ -36,9 +36,9 @@ type Placed struct {
 	Width, Height int64
 	// Unit is the base points per grid step, from the boxes or as given.
 	Unit int64
-	// Smoothed counts the components drawn from their smoothed drawing
+	// Tutte counts the components spaced from Tutte's drawing
 	// rather than the grid.
-	Smoothed int
+	Tutte int
 	// Unchecked counts components too big for the box-clearance check
 	// (more than readableLimit vertices, or past its work bound), spaced by Unit
 	// alone: their node boxes never overlap, but an edge may pass through
@@ -75,12 +75,12 @@ const (
 	// are exact in int64. A drawing that would need more stays crowded
 	// and is counted (Placed.Crowded).
 	maxExtent = 1 << 29
-	// barycentricAreaAllowance: the barycentric drawing is preferred to
+	// tutteAreaAllowance: the Tutte drawing is preferred to
 	// the grid one unless it needs more than this times the area; its
 	// even spread reads better (see doc.go, The spacing rule).
-	barycentricAreaAllowance = 2.0
+	tutteAreaAllowance = 2.0
 	// gridCompareLimit is the largest component whose grid drawing is
-	// compared with its barycentric one.
+	// compared with its Tutte drawing.
 	gridCompareLimit = 2000
 	// edgeGap is the clear space, in points, between a node box and an
 	// edge passing by: enough that the edge visibly misses the box.
@@ -118,7 +118,7 @@ func tooBig(half int64) bool { return half > maxBoxHalf }
 //     drawing; for trees, the layered drawing) is refined (refine) and
 //     stretched by the least factor that keeps every edge off the boxes of
 //     the nodes it does not end at, computed per vertex-edge pair near
-//     each other; the one needing the least area wins (the barycentric
+//     each other; the one needing the least area wins (the Tutte
 //     drawing unless it needs more than twice the grid's area);
 //   - the winner is stretched, shrunk while it stays clear (to no less
 //     than a quarter), then relaxed (relax) and kept relaxed when that
@@ -142,7 +142,7 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 	}
 	d := r.local
 	out := &Placed{X: make([]int64, n), Y: make([]int64, n), Unit: unit}
-	members := d.members
+	members := r.tri.members
 	edgesOf := r.edgesByComponent()
 	w := &scratch{
 		px: make([]int64, n), py: make([]int64, n),
@@ -158,8 +158,8 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 		}
 	}
 	boxes := make([]Component, len(members))
-	if d.aug != nil {
-		w.seen = make([]bool, 2*d.aug.M())
+	if r.tri.aug != nil {
+		w.seen = make([]bool, 2*r.tri.aug.M())
 	}
 	for c, vs := range members {
 		box := d.Components[c]
@@ -216,7 +216,7 @@ func (r *Result) localBoxes(b Boxes) (hw, hh []int64, gap, unit int64, err error
 // order, by a counting sort into one array: growing a slice per component
 // copies a million edges over and over.
 func (r *Result) edgesByComponent() [][][2]int32 {
-	members := r.local.members
+	members := r.tri.members
 	edgesOf := make([][][2]int32, len(members))
 	if len(members) == 1 {
 		edgesOf[0] = r.keptLocal
@@ -301,7 +301,7 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 		}
 		return
 	}
-	out.Smoothed += counts.Smoothed
+	out.Tutte += counts.Tutte
 	out.Unchecked += counts.Unchecked
 	out.Crowded += counts.Crowded
 	out.Convex += counts.Convex
@@ -310,15 +310,14 @@ func (r *Result) spaceComponent(c int, vs []int32, edges [][2]int32, unit int64,
 }
 
 // spaceGrid spaces one component from its grid drawing, or from its
-// barycentric drawing where that reads better (see Space).
+// Tutte drawing where that reads better (see Space).
 func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, gridOnly bool, w *scratch, out *Placed) {
-	d := r.local
 	px, py, tx, ty, seen, stamp := w.px, w.py, w.tx, w.ty, w.seen, w.stamp
 	var gridRegion *outerRegion
-	if d.aug != nil && d.triOuter != nil && d.triOuter[c] >= 0 {
-		f0 := d.triOuter[c]
-		f1 := d.aug.FaceNext(f0)
-		gridRegion = &outerRegion{face: []int32{f0, f1, d.aug.FaceNext(f1)}}
+	if r.tri.aug != nil && r.tri.triOuter != nil && r.tri.triOuter[c] >= 0 {
+		f0 := r.tri.triOuter[c]
+		f1 := r.tri.aug.FaceNext(f0)
+		gridRegion = &outerRegion{face: []int32{f0, f1, r.tri.aug.FaceNext(f1)}}
 	}
 	if len(vs) > readableLimit {
 		// Too big to read as a picture anyway: base unit only, which keeps
@@ -326,22 +325,22 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 		out.Unchecked++
 		return
 	}
-	bary := !gridOnly && d.fineX != nil && d.outer[c] != nil && r.barycentricPoints(c, vs, edges, unit, tx, ty, seen)
+	tutte := !gridOnly && r.tri.tutteX != nil && r.tri.outer[c] != nil && r.tuttePoints(c, vs, edges, unit, tx, ty, seen)
 	// Past a few thousand vertices a grid drawing's long edges make its
-	// refinement costly and it hardly ever wins: take the barycentric
+	// refinement costly and it hardly ever wins: take the Tutte
 	// drawing without comparing when there is one.
 	compare := len(vs) <= gridCompareLimit
 	gridStretch, gridChecked := 1.0, false
-	if compare || !bary {
+	if compare || !tutte {
 		if compare && gridRegion != nil && !gridOnly {
-			refine(d.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
+			refine(r.tri.aug, vs, gridRegion, edges, px, py, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
 		}
 		gridStretch, gridChecked = clearingStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
 	}
 	stretch, checked, region := gridStretch, gridChecked, gridRegion
 	smoothed := false
-	if bary {
-		refine(d.aug, vs, d.outer[c], edges, tx, ty, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
+	if tutte {
+		refine(r.tri.aug, vs, r.tri.outer[c], edges, tx, ty, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
 		s2, ok := clearingStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
 		take := ok && !compare
 		if ok && compare {
@@ -349,26 +348,26 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 			if gridChecked {
 				g = min(gridStretch, g)
 			}
-			take = clearedArea(vs, tx, ty, min(s2, stretchLimit(vs, tx, ty, hw, hh)), hw, hh) <= barycentricAreaAllowance*clearedArea(vs, px, py, g, hw, hh)
+			take = clearedArea(vs, tx, ty, min(s2, stretchLimit(vs, tx, ty, hw, hh)), hw, hh) <= tutteAreaAllowance*clearedArea(vs, px, py, g, hw, hh)
 		}
 		if take {
 			for _, v := range vs {
 				px[v], py[v] = tx[v], ty[v]
 			}
-			stretch, checked, region = s2, true, d.outer[c]
+			stretch, checked, region = s2, true, r.tri.outer[c]
 			smoothed = true
 		}
 	}
 	// Which candidate the component is counted under, last winner first.
-	counted := &out.Smoothed
+	counted := &out.Tutte
 	if !smoothed {
 		counted = nil
 	}
-	if !gridOnly && d.convexAlt != nil && d.convexAlt[c][0] != nil {
+	if !gridOnly && r.tri.convexAlt != nil && r.tri.convexAlt[c][0] != nil {
 		if s, reg, ok := r.convexWins(c, vs, edges, unit, hw, hh, gap, gridRegion, w, stretch, checked); ok {
 			stretch, checked, region = s, true, reg
 			counted = &out.FaceCounts
-			if d.convexOwn[c] {
+			if r.tri.convexOwn[c] {
 				counted = &out.Convex
 			}
 		}
@@ -384,16 +383,16 @@ func (r *Result) spaceGrid(c int, vs []int32, edges [][2]int32, unit int64, hw, 
 	if limit := stretchLimit(vs, px, py, hw, hh); stretch > limit {
 		stretch, crowded = limit, true
 	}
-	stretchComponent(d.aug, vs, region, px, py, stretch, tx, ty, seen)
+	stretchComponent(r.tri.aug, vs, region, px, py, stretch, tx, ty, seen)
 	if !crowded && !gridOnly {
-		shrinkComponent(d.aug, vs, region, edges, px, py, hw, hh, gap, tx, ty, seen, stamp)
+		shrinkComponent(r.tri.aug, vs, region, edges, px, py, hw, hh, gap, tx, ty, seen, stamp)
 	}
 	// Trees are left out: their layered drawing (spaceComponent) won
 	// over the relaxed grid drawing on every random tree measured (30 to
 	// 1,000 nodes), and relaxing costs as much again.
 	if !gridOnly && !crowded && region != nil && len(edges) != len(vs)-1 && len(vs) <= relaxLimit {
 		for _, reach := range relaxReaches(vs, hw, hh, gap) {
-			if relaxWins(d.aug, vs, region, edges, px, py, tx, ty, w.lx, w.ly, hw, hh, gap, reach, seen, stamp) {
+			if relaxWins(r.tri.aug, vs, region, edges, px, py, tx, ty, w.lx, w.ly, hw, hh, gap, reach, seen, stamp) {
 				counted = &out.Relaxed
 			}
 		}
@@ -478,17 +477,16 @@ func shrinkNeed(vs []int32, edges [][2]int32, x, y, hw, hh []int64, gap int64, s
 // If it then needs less area, it is written to w.px, w.py and convexWins
 // reports true with the stretch it needs.
 func (r *Result) convexWins(c int, vs []int32, edges [][2]int32, unit int64, hw, hh []int64, gap int64, region *outerRegion, w *scratch, stretch float64, checked bool) (float64, *outerRegion, bool) {
-	d := r.local
 	px, py, tx, ty, seen, stamp := w.px, w.py, w.tx, w.ty, w.seen, w.stamp
-	alt := d.convexAlt[c]
+	alt := r.tri.convexAlt[c]
 	for i, v := range vs {
 		tx[v], ty[v] = alt[0][i]*unit, alt[1][i]*unit
 	}
-	if region != nil && !planeDrawing(d.aug, vs, region, tx, ty, seen) {
+	if region != nil && !planeDrawing(r.tri.aug, vs, region, tx, ty, seen) {
 		region = nil
 	}
 	if region != nil {
-		refine(d.aug, vs, region, edges, tx, ty, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
+		refine(r.tri.aug, vs, region, edges, tx, ty, hw, hh, gap, stamp, seen, w.push, newWorkMeter(len(edges)))
 	}
 	s, ok := clearingStretch(vs, edges, tx, ty, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
 	if !ok || s > stretchLimit(vs, tx, ty, hw, hh) {
@@ -576,13 +574,12 @@ func stretchLimit(vs []int32, x, y, hw, hh []int64) float64 {
 	return max(1, float64(maxExtent)/float64(max(1, maxX-minX, maxY-minY)))
 }
 
-// barycentricPoints writes component c's barycentric drawing in points
+// tuttePoints writes component c's Tutte drawing in points
 // into x, y, scaled so that its median edge is one unit, and reports
 // whether it rounds to a plane drawing (doubling the scale up to 7 times
 // until it does).
-func (r *Result) barycentricPoints(c int, vs []int32, edges [][2]int32, unit int64, x, y []int64, seen []bool) bool {
-	d := r.local
-	fx, fy := d.fineX, d.fineY
+func (r *Result) tuttePoints(c int, vs []int32, edges [][2]int32, unit int64, x, y []int64, seen []bool) bool {
+	fx, fy := r.tri.tutteX, r.tri.tutteY
 	lengths := make([]float64, 0, len(edges))
 	for _, e := range edges {
 		dx, dy := float64(fx[e[0]]-fx[e[1]]), float64(fy[e[0]]-fy[e[1]])
@@ -602,7 +599,7 @@ func (r *Result) barycentricPoints(c int, vs []int32, edges [][2]int32, unit int
 			x[v] = int64(math.Round(float64(fx[v]) * scale))
 			y[v] = int64(math.Round(float64(fy[v]) * scale))
 		}
-		if planeDrawing(d.aug, vs, d.outer[c], x, y, seen) {
+		if planeDrawing(r.tri.aug, vs, r.tri.outer[c], x, y, seen) {
 			return true
 		}
 	}

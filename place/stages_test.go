@@ -39,7 +39,7 @@ func BenchmarkStage(b *testing.B) {
 			})
 			b.Run(fmt.Sprintf("place/%s", g.Name), func(b *testing.B) {
 				stagebench.PerEdge(b, m, func() {
-					if _, err := layout(emb.Clone(), Options{Compact: true, Smooth: 400}); err != nil {
+					if _, _, err := layout(emb.Clone(), Options{Compact: true, Smooth: 400}); err != nil {
 						b.Fatal(err)
 					}
 				})

@@ -5,7 +5,7 @@ import (
 	"github.com/gridwood/gridwood/planarize"
 )
 
-// fineSpan is the side of the integer frame the barycentric drawing is
+// fineSpan is the side of the integer frame the Tutte drawing is
 // rounded into: fine enough for detail, small enough that orientation
 // tests on its coordinates stay exact in int64.
 const fineSpan = 1 << 30

@@ -22,37 +22,37 @@ type fileReport struct {
 }
 
 type graphReport struct {
-	Graph                 string   `json:"graph"`
-	Directed              bool     `json:"directed"`
-	Nodes                 int      `json:"nodes"`
-	Edges                 int      `json:"edges"`
-	RemovedEdges          int      `json:"removed_edges"`
-	RemovedPairs          int      `json:"removed_pairs"`
-	RemovalOptimal        bool     `json:"removal_optimal"`
-	Method                string   `json:"method"`
-	Components            int      `json:"components"`
-	BarycentricComponents int      `json:"barycentric_components"`
-	ConvexComponents      int      `json:"convex_components"`
-	TreeComponents        int      `json:"tree_components"`
-	FaceCountComponents   int      `json:"face_count_components"`
-	RelaxedComponents     int      `json:"relaxed_components"`
-	UncheckedComponents   int      `json:"unchecked_components"`
-	CrowdedComponents     int      `json:"crowded_components"`
-	ReadableComponents    int      `json:"readable_components"`
-	UnrefinedComponents   int      `json:"unrefined_components"`
-	GridWidth             int64    `json:"grid_width"`
-	GridHeight            int64    `json:"grid_height"`
-	AreaRatio             float64  `json:"area_ratio"`
-	CompactionSaved       float64  `json:"compaction_saved"`
-	Unit                  int64    `json:"unit"`
-	WidthPoints           int64    `json:"width_pt"`
-	HeightPoints          int64    `json:"height_pt"`
-	MinAngle              float64  `json:"min_angle_deg"`
-	EdgeLengthRatio       float64  `json:"edge_length_ratio"`
-	MinVertexEdge         *float64 `json:"min_vertex_edge_distance"`
-	BoxOverlaps           int      `json:"box_overlaps"`
-	EdgesThroughBoxes     int      `json:"edges_through_boxes"`
-	Seconds               struct {
+	Graph               string   `json:"graph"`
+	Directed            bool     `json:"directed"`
+	Nodes               int      `json:"nodes"`
+	Edges               int      `json:"edges"`
+	RemovedEdges        int      `json:"removed_edges"`
+	RemovedPairs        int      `json:"removed_pairs"`
+	RemovalOptimal      bool     `json:"removal_optimal"`
+	Method              string   `json:"method"`
+	Components          int      `json:"components"`
+	TutteComponents     int      `json:"tutte_components"`
+	ConvexComponents    int      `json:"convex_components"`
+	TreeComponents      int      `json:"tree_components"`
+	FaceCountComponents int      `json:"face_count_components"`
+	RelaxedComponents   int      `json:"relaxed_components"`
+	UncheckedComponents int      `json:"unchecked_components"`
+	CrowdedComponents   int      `json:"crowded_components"`
+	ReadableComponents  int      `json:"readable_components"`
+	UnrefinedComponents int      `json:"unrefined_components"`
+	GridWidth           int64    `json:"grid_width"`
+	GridHeight          int64    `json:"grid_height"`
+	AreaRatio           float64  `json:"area_ratio"`
+	CompactionSaved     float64  `json:"compaction_saved"`
+	Unit                int64    `json:"unit"`
+	WidthPoints         int64    `json:"width_pt"`
+	HeightPoints        int64    `json:"height_pt"`
+	MinAngle            float64  `json:"min_angle_deg"`
+	EdgeLengthRatio     float64  `json:"edge_length_ratio"`
+	MinVertexEdge       *float64 `json:"min_vertex_edge_distance"`
+	BoxOverlaps         int      `json:"box_overlaps"`
+	EdgesThroughBoxes   int      `json:"edges_through_boxes"`
+	Seconds             struct {
 		Planarize float64 `json:"planarize"`
 		Layout    float64 `json:"layout"`
 		Space     float64 `json:"space"`
@@ -76,7 +76,7 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 	r := graphReport{
 		Graph: g.Name, Directed: g.Directed, Nodes: len(g.Nodes), Edges: len(g.Edges),
 		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
-		Method: method, Components: len(res.Components), BarycentricComponents: sp.Smoothed,
+		Method: method, Components: len(res.Components), TutteComponents: sp.Tutte,
 		ConvexComponents: convexCount(res) + sp.Convex, TreeComponents: sp.Trees, FaceCountComponents: sp.FaceCounts, RelaxedComponents: sp.Relaxed, UncheckedComponents: sp.Unchecked, CrowdedComponents: sp.Crowded,
 		ReadableComponents: sp.Readable, UnrefinedComponents: sp.Unrefined,
 		GridWidth: res.Width, GridHeight: res.Height, Unit: sp.Unit,

@@ -46,7 +46,7 @@ type graphRecord struct {
 	RemovalOptimal        bool               `json:"removal_optimal"`
 	Method                string             `json:"method"`
 	Components            int                `json:"components"`
-	BarycentricComponents int                `json:"barycentric_components"`
+	TutteComponents       int                `json:"tutte_components"`
 	ConvexComponents      int                `json:"convex_components"`
 	TreeComponents        int                `json:"tree_components"`
 	FaceCountComponents   int                `json:"face_count_components"`
@@ -493,14 +493,14 @@ func checkRecord(t *testing.T, rec graphRecord, out *ast.Graph, d drawn, unitFla
 	if rec.Method != "schnyder" {
 		t.Errorf("%s: method %q, want the default schnyder", id, rec.Method)
 	}
-	if rec.Components != ncomp || rec.BarycentricComponents < 0 || rec.ConvexComponents != 0 || rec.BarycentricComponents > ncomp {
-		t.Errorf("%s: components %d (barycentric %d, convex %d), output has %d", id, rec.Components, rec.BarycentricComponents, rec.ConvexComponents, ncomp)
+	if rec.Components != ncomp || rec.TutteComponents < 0 || rec.ConvexComponents != 0 || rec.TutteComponents > ncomp {
+		t.Errorf("%s: components %d (tutte %d, convex %d), output has %d", id, rec.Components, rec.TutteComponents, rec.ConvexComponents, ncomp)
 	}
-	if rec.TreeComponents < 0 || rec.FaceCountComponents < 0 || rec.TreeComponents+rec.BarycentricComponents+rec.FaceCountComponents > ncomp || unitFlag > 0 && rec.TreeComponents+rec.FaceCountComponents != 0 {
-		t.Errorf("%s: tree_components %d, face_count_components %d (barycentric %d) of %d components, --unit %d", id, rec.TreeComponents, rec.FaceCountComponents, rec.BarycentricComponents, ncomp, unitFlag)
+	if rec.TreeComponents < 0 || rec.FaceCountComponents < 0 || rec.TreeComponents+rec.TutteComponents+rec.FaceCountComponents > ncomp || unitFlag > 0 && rec.TreeComponents+rec.FaceCountComponents != 0 {
+		t.Errorf("%s: tree_components %d, face_count_components %d (tutte %d) of %d components, --unit %d", id, rec.TreeComponents, rec.FaceCountComponents, rec.TutteComponents, ncomp, unitFlag)
 	}
-	if unitFlag > 0 && rec.BarycentricComponents != 0 {
-		t.Errorf("%s: --unit skips the barycentric drawing (place/doc.go, The spacing rule), but barycentric_components %d", id, rec.BarycentricComponents)
+	if unitFlag > 0 && rec.TutteComponents != 0 {
+		t.Errorf("%s: --unit skips the Tutte drawing (place/doc.go, The spacing rule), but tutte_components %d", id, rec.TutteComponents)
 	}
 	// Grid extent and area.
 	if rec.GridWidth < 0 || rec.GridHeight < 0 {

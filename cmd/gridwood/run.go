@@ -33,7 +33,7 @@ const (
 	exitNonPlanar = 3 // a graph is not planar under --planar-only
 )
 
-// smoothSweeps bounds the conjugate-gradient steps of the barycentric
+// smoothSweeps bounds the conjugate-gradient steps of Tutte's
 // drawing (see place.Options.Smooth); Space uses it where the grid crowds.
 const smoothSweeps = 400
 
