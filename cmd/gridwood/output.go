@@ -8,6 +8,7 @@ import (
 	"os"
 	"os/signal"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 	"sync"
@@ -450,4 +451,73 @@ func (g *commitGuard) removeTemps() {
 func (g *commitGuard) stop() {
 	signal.Stop(g.sigs)
 	close(g.done)
+}
+
+// planOutputs decides where every output goes (output.go): the side files
+// in a fixed order, the main output last.
+func planOutputs(cfg *config, std *stdStreams) {
+	cfg.outs = cfg.outs[:0]
+	for _, o := range []struct{ flag, path string }{{"--report", cfg.reportFile}, {"--svg", cfg.svgFile}, {"--removed", cfg.removedFile}, {"--explain", cfg.explainFile}} {
+		if o.path != "" {
+			cfg.outs = append(cfg.outs, planOutput(o.flag, o.path, std))
+		}
+	}
+	if cfg.output != "" {
+		cfg.outs = append(cfg.outs, planOutput("-o", cfg.output, std))
+	} else {
+		cfg.outs = append(cfg.outs, &output{kind: toStdout})
+	}
+}
+
+// checkClashes refuses a command line on which two outputs name the same
+// path or would replace the same file, or an output would replace an
+// input (standard input included, when it is read and is a file), or
+// standard output, when written to, is an input file: one would overwrite
+// the other.
+func checkClashes(cfg *config, std *stdStreams) error {
+	sameFile := func(a, b string) bool {
+		fa, errA := os.Stat(a)
+		fb, errB := os.Stat(b)
+		return errA == nil && errB == nil && fa.Mode().IsRegular() && os.SameFile(fa, fb)
+	}
+	readsStdin := slices.Contains(cfg.inputs, "-")
+	// In the order of --help: -o first.
+	var named []*output
+	if main := cfg.outs[len(cfg.outs)-1]; main.flag != "" {
+		named = append(named, main)
+	}
+	named = append(named, cfg.outs[:len(cfg.outs)-1]...)
+	for i, o := range named {
+		for _, p := range named[:i] {
+			if filepath.Clean(o.path) == filepath.Clean(p.path) || o.kind == toReplace && p.kind == toReplace && sameFile(o.file, p.file) {
+				return fmt.Errorf("%s and %s both name %s", p.flag, o.flag, o.path)
+			}
+		}
+		for _, in := range cfg.inputs {
+			if in != "-" && (filepath.Clean(o.path) == filepath.Clean(in) || sameFile(o.path, in)) {
+				return fmt.Errorf("%s %s is also an input file", o.flag, o.path)
+			}
+		}
+		if fi, err := os.Stat(o.path); readsStdin && err == nil && fi.Mode().IsRegular() && std.inInfo != nil && os.SameFile(fi, std.inInfo) {
+			return fmt.Errorf("%s %s is also the input (standard input)", o.flag, o.path)
+		}
+	}
+	if std.outInfo != nil && std.outInfo.Mode().IsRegular() && slices.ContainsFunc(cfg.outs, func(o *output) bool { return o.kind == toStdout }) {
+		for _, in := range cfg.inputs {
+			if fi, err := os.Stat(in); in != "-" && err == nil && os.SameFile(fi, std.outInfo) {
+				return fmt.Errorf("standard output is the input file %s", in)
+			}
+		}
+	}
+	return nil
+}
+
+// sideFile returns the planned output of a side-file flag.
+func (cfg *config) sideFile(flag string) *output {
+	for _, o := range cfg.outs {
+		if o.flag == flag {
+			return o
+		}
+	}
+	return nil
 }
