@@ -158,7 +158,7 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 		if missing > 1 {
 			more = fmt.Sprintf(" (nor have %d more of its %d nodes)", missing-1, len(g.Nodes))
 		}
-		add(checkNoPos, n.Line, n.Col, 0, 0, "%s: node %s has no pos%s", graphName(g, index), strconv.Quote(n.Name), more)
+		add(checkNoPos, n.Line, n.Col, 0, 0, "%s: node %s has no pos%s", g.Describe(index), strconv.Quote(n.Name), more)
 	}
 	pts := make([]geomcheck.Point, len(g.Nodes))
 	hw := make([]int64, len(g.Nodes))
@@ -243,7 +243,7 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 	geo, err := geomcheck.Check(pts, simple)
 	if err != nil {
 		// Unreachable: every coordinate and index was validated above.
-		add(checkRange, g.Line, g.Col, 0, 0, "%s: %v", graphName(g, index), err)
+		add(checkRange, g.Line, g.Col, 0, 0, "%s: %v", g.Describe(index), err)
 		return probs
 	}
 	samePoint := map[[2]int]bool{}
@@ -276,7 +276,7 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 	boxes, err := geomcheck.BoxOverlaps(pts, hw, hh)
 	if err != nil {
 		// Unreachable: every half-size was validated above.
-		add(checkRange, g.Line, g.Col, 0, 0, "%s: %v", graphName(g, index), err)
+		add(checkRange, g.Line, g.Col, 0, 0, "%s: %v", g.Describe(index), err)
 		return probs
 	}
 	for _, pr := range boxes {
@@ -288,7 +288,7 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 	}
 	through, err := geomcheck.EdgeThroughBox(pts, hw, hh, simple)
 	if err != nil {
-		add(checkRange, g.Line, g.Col, 0, 0, "%s: %v", graphName(g, index), err) // unreachable, as above
+		add(checkRange, g.Line, g.Col, 0, 0, "%s: %v", g.Describe(index), err) // unreachable, as above
 		return probs
 	}
 	for _, pr := range through {
@@ -314,7 +314,7 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 		found, err = frame.Find(ci.tree, ci.nodes, ci.frames)
 	}
 	if err != nil {
-		add(checkRange, g.Line, g.Col, 0, 0, "%s: %v", graphName(g, index), err) // unreachable: coordinates were validated above
+		add(checkRange, g.Line, g.Col, 0, 0, "%s: %v", g.Describe(index), err) // unreachable: coordinates were validated above
 		return probs
 	}
 	clusterName := func(c int32) string { return strconv.Quote(set.Clusters[c].Name) }

@@ -128,7 +128,7 @@ func warnClusters(note func(format string, args ...any), name string, g *dotio.G
 		kept, dropped := set.Clusters[cf.Kept], set.Clusters[cf.Dropped]
 		more := ""
 		if k > 1 {
-			more = fmt.Sprintf(" (and %d more such in %s)", k-1, graphName(g, gi))
+			more = fmt.Sprintf(" (and %d more such in %s)", k-1, g.Describe(gi))
 		}
 		note("gridwood: %s:%d:%d: node %s is in cluster %s (line %d) and in cluster %s, neither inside the other; it stays in the first%s\n",
 			name, dropped.Line, dropped.Col, strconv.Quote(n.Name), strconv.Quote(kept.Name), kept.Line, strconv.Quote(dropped.Name), more)
@@ -146,7 +146,7 @@ func warnClusters(note func(format string, args ...any), name string, g *dotio.G
 		cl := set.Clusters[first]
 		more := ""
 		if empty > 1 {
-			more = fmt.Sprintf(" (and %d more in %s)", empty-1, graphName(g, gi))
+			more = fmt.Sprintf(" (and %d more in %s)", empty-1, g.Describe(gi))
 		}
 		note("gridwood: %s:%d:%d: cluster %s has no nodes and gets no frame%s\n", name, cl.Line, cl.Col, strconv.Quote(cl.Name), more)
 	}

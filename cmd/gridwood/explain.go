@@ -21,16 +21,16 @@ func writeExplain(w *bytes.Buffer, f *dotio.File, results []*place.Result, total
 		res := results[gi]
 		id := g.ID
 		if id == "" {
-			id = dotQuote(fmt.Sprintf("anonymous %d", gi+1))
+			id = dotio.QuoteText(fmt.Sprintf("anonymous %d", gi+1))
 		}
 		fmt.Fprintf(w, "graph %s {\n", id)
 		cache := map[[2]int32]*planarize.Kuratowski{}
 		for k, i := range res.Removed {
 			e := g.Edges[i]
 			line, col := g.EdgePos(i)
-			fmt.Fprintf(w, "\tsubgraph %s {\n", dotQuote(fmt.Sprintf("removed %d", k+1)))
+			fmt.Fprintf(w, "\tsubgraph %s {\n", dotio.QuoteText(fmt.Sprintf("removed %d", k+1)))
 			edgeText := g.Nodes[e.From].Name + " -- " + g.Nodes[e.To].Name
-			fmt.Fprintf(w, "\t\tgraph [removed_edge=%s, at=%s", dotQuote(edgeText), dotQuote(fmt.Sprintf("%s:%d:%d", f.Name, line, col)))
+			fmt.Fprintf(w, "\t\tgraph [removed_edge=%s, at=%s", dotio.QuoteText(edgeText), dotio.QuoteText(fmt.Sprintf("%s:%d:%d", f.Name, line, col)))
 			key := [2]int32{min(e.From, e.To), max(e.From, e.To)}
 			ks, seen := cache[key]
 			if !seen {
@@ -50,7 +50,7 @@ func writeExplain(w *bytes.Buffer, f *dotio.File, results []*place.Result, total
 			for j, v := range ks.Branch {
 				names[j] = g.Nodes[v].Name
 			}
-			fmt.Fprintf(w, ", obstruction=%s, branch=%s]\n", dotQuote(ks.Kind.String()), dotQuote(strings.Join(names, ", ")))
+			fmt.Fprintf(w, ", obstruction=%s, branch=%s]\n", dotio.QuoteText(ks.Kind.String()), dotio.QuoteText(strings.Join(names, ", ")))
 			for _, path := range ks.Paths {
 				ids := make([]string, len(path))
 				for j, v := range path {
@@ -62,11 +62,4 @@ func writeExplain(w *bytes.Buffer, f *dotio.File, results []*place.Result, total
 		}
 		fmt.Fprintf(w, "}\n")
 	}
-}
-
-// dotQuote returns s as a double-quoted DOT string.
-func dotQuote(s string) string {
-	s = strings.ReplaceAll(s, `\`, `\\`)
-	s = strings.ReplaceAll(s, `"`, `\"`)
-	return `"` + s + `"`
 }

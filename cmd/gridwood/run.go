@@ -170,13 +170,13 @@ func process(cfg *config, std *stdStreams) error {
 			totalEdges += len(g.Edges) + 1
 		}
 		for gi, g := range f.Graphs {
-			drawing := fmt.Sprintf("drawing %s in %s: ", graphName(g, gi), name)
+			drawing := fmt.Sprintf("drawing %s in %s: ", g.Describe(gi), name)
 			before, share := float64(edgesDone), float64(len(g.Edges)+1)
 			edgesDone += len(g.Edges) + 1
 			step := func(stage string, done float64) {
 				prog.set(drawing+stage, pct(ii, 0.4+0.5*(before+done*share)/float64(totalEdges)))
 			}
-			res, lay, _, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi)), step)
+			res, lay, _, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, g.Describe(gi)), step)
 			if err != nil {
 				return err
 			}
@@ -187,7 +187,7 @@ func process(cfg *config, std *stdStreams) error {
 				n := g.Nodes[gr.caps.first]
 				more := ""
 				if gr.caps.count > 1 {
-					more = fmt.Sprintf(" (and %d more in %s)", gr.caps.count-1, graphName(g, gi))
+					more = fmt.Sprintf(" (and %d more in %s)", gr.caps.count-1, g.Describe(gi))
 				}
 				prog.note("gridwood: %s:%d:%d: node %s: its label needs a box over 1000 inches a side; the box was taken as 1000 inches%s\n", name, n.Line, n.Col, strconv.Quote(n.Name), more)
 			}
@@ -197,7 +197,7 @@ func process(cfg *config, std *stdStreams) error {
 					warnClusters(prog.note, name, g, gi, clusters.set)
 				}
 				if _, value, ok := flowDirection(g); g.Directed && !ok {
-					prog.note("gridwood: %s:%d:%d: %s: rankdir %s is not TB, LR, BT or RL; taken as TB\n", name, g.Line, g.Col, graphName(g, gi), strconv.Quote(value))
+					prog.note("gridwood: %s:%d:%d: %s: rankdir %s is not TB, LR, BT or RL; taken as TB\n", name, g.Line, g.Col, g.Describe(gi), strconv.Quote(value))
 				}
 			}
 			if cfg.svgFile != "" {
@@ -213,13 +213,13 @@ func process(cfg *config, std *stdStreams) error {
 				if missing := missingNames(g, cfg.outer); len(missing) == 0 {
 					outerUsed = true
 				} else {
-					lacks = append(lacks, [2]string{fmt.Sprintf("%s:%d:%d", name, g.Line, g.Col), graphName(g, gi) + " lacks " + strings.Join(missing, ", ")})
+					lacks = append(lacks, [2]string{fmt.Sprintf("%s:%d:%d", name, g.Line, g.Col), g.Describe(gi) + " lacks " + strings.Join(missing, ", ")})
 				}
 			}
 			if len(res.Removed) == 0 {
 				continue
 			}
-			where := fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, graphName(g, gi))
+			where := fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, g.Describe(gi))
 			removedN, edgesN := edgeCounts(g, res.Removed)
 			if cfg.planarOnly {
 				return &exitError{exitNonPlanar, fmt.Sprintf("%s is not planar: %d of %d edges would have to be removed", where, removedN, edgesN)}
@@ -589,20 +589,6 @@ func missingNames(g *dotio.Graph, names []string) []string {
 	return out
 }
 
-func graphName(g *dotio.Graph, index int) string {
-	kind := "graph"
-	if g.Directed {
-		kind = "digraph"
-	}
-	if g.ID == "" {
-		return fmt.Sprintf("anonymous %s %d", kind, index+1)
-	}
-	if strings.HasPrefix(g.ID, `"`) {
-		return kind + " " + g.ID
-	}
-	return kind + " " + strconv.Quote(g.ID)
-}
-
 // warnPinned notes input positions marked pinned with '!': gridwood
 // replaces every pos, so say so rather than ignore them silently.
 func warnPinned(p *progress, name string, f *dotio.File) {
@@ -614,7 +600,7 @@ func warnPinned(p *progress, name string, f *dotio.File) {
 			}
 		}
 		if pinned > 0 {
-			p.note("gridwood: %s:%d:%d: %s: %d pinned positions (pos=\"...!\") replaced by the layout\n", name, g.Line, g.Col, graphName(g, gi), pinned)
+			p.note("gridwood: %s:%d:%d: %s: %d pinned positions (pos=\"...!\") replaced by the layout\n", name, g.Line, g.Col, g.Describe(gi), pinned)
 		}
 	}
 }
@@ -638,7 +624,7 @@ func warnSizes(p *progress, name string, f *dotio.File) {
 			n := g.Nodes[first]
 			more := ""
 			if count > 1 {
-				more = fmt.Sprintf(" (and %d more sizes in %s)", count-1, graphName(g, gi))
+				more = fmt.Sprintf(" (and %d more sizes in %s)", count-1, g.Describe(gi))
 			}
 			p.note("gridwood: %s:%d:%d: node %s: %s is not a size below 1000 and was taken as the default%s\n", name, n.Line, n.Col, strconv.Quote(n.Name), what, more)
 		}
