@@ -179,7 +179,7 @@ func (g *guard) boxesMeet(v, w int32, vx, vy float64) bool {
 func (g *guard) edgeMeetsBox(w int32, wx, wy float64, a, b int32) bool {
 	ax, ay := g.x[a]-wx, g.y[a]-wy
 	dx, dy := g.x[b]-g.x[a], g.y[b]-g.y[a]
-	rx, ry := g.hw[w]+g.gap, g.hh[w]+g.gap
+	rx, ry := g.hw[w]+g.edgeGap, g.hh[w]+g.edgeGap
 	lo, hi := 0.0, 1.0
 	clip := func(p, q float64) bool { // p t <= q
 		if p == 0 {

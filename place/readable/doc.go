@@ -29,8 +29,9 @@
 // Y. Koren and K. Marriott, "IPSep-CoLa", InfoVis 2006).
 //
 // Ideal edge lengths come from the node boxes, so that labels fit; a move
-// also keeps a vertex's box from coming closer to an edge, or to a nearby
-// box, than the gap, wherever it was not already closer.
+// also keeps a vertex's box from coming closer to a nearby box than
+// Input.Gap, or to an edge than Input.EdgeGap, wherever it was not
+// already closer.
 //
 // Draw weighs several plane starting drawings, refines each by the guarded
 // descent, and keeps the one of least stress among those whose boxes can
@@ -51,6 +52,8 @@
 // A last phase ("margins") runs the same descent with each vertex's box
 // conflicts (a box too near another box or an edge) added to its target,
 // and locally inflates crowded spots, so that the boxes part with little
-// uniform stretching. Work is bounded in stress terms (Options.Work), and
+// uniform stretching. Its result is kept only if, stretched to clear its
+// boxes, it is no larger than the drawing it started from: parting boxes
+// in one spot can press another tighter. Work is bounded in stress terms (Options.Work), and
 // every phase by a number of sweeps: the result never depends on a clock.
 package readable

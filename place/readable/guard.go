@@ -15,9 +15,11 @@ type guard struct {
 	model  *stress.Model
 	x, y   []float64
 	hw, hh []float64
-	gap    float64
-	edges  [][2]int32
-	corner []mesh.Corner // the star being looked at
+	gap    float64 // between boxes
+	// edgeGap is the clear space between a box and an edge passing by.
+	edgeGap float64
+	edges   [][2]int32
+	corner  []mesh.Corner // the star being looked at
 	// margins makes the barrier keep boxes, not only points, clear.
 	margins bool
 	// jumps lets a vertex whose move is stopped early jump to its target.
@@ -569,7 +571,7 @@ func (g *guard) reachAcross(v int32, ex, ey float64) float64 {
 	if l == 0 {
 		return 0
 	}
-	return float64(g.hw[v]*math.Abs(ey))/l + float64(g.hh[v]*math.Abs(ex))/l + g.gap
+	return float64(g.hw[v]*math.Abs(ey))/l + float64(g.hh[v]*math.Abs(ex))/l + g.edgeGap
 }
 
 // boxDistance is how far apart along the unit direction (ux, uy) the

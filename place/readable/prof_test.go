@@ -41,7 +41,7 @@ func BenchmarkDrawFile(b *testing.B) {
 	}
 	kept := res.Kept()
 	for b.Loop() {
-		if _, err := readable.Draw(readable.Input{Edges: kept, X: x, Y: y, HalfW: hw, HalfH: hh, Gap: 18}, readable.Options{}); err != nil {
+		if _, err := readable.Draw(readable.Input{Edges: kept, X: x, Y: y, HalfW: hw, HalfH: hh, Gap: 18, EdgeGap: 4}, readable.Options{}); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -3,6 +3,7 @@ package readable
 import (
 	"errors"
 	"math"
+	"slices"
 	"time"
 
 	"github.com/gridwood/gridwood/place/mesh"
@@ -18,9 +19,9 @@ type Input struct {
 	X, Y []float64
 	// HalfW, HalfH are the node boxes' half sizes, in points (nil: 0).
 	HalfW, HalfH []float64
-	// Gap is the clear space wanted between two boxes and between a box
-	// and an edge passing by, in points.
-	Gap float64
+	// Gap is the clear space wanted between two boxes, and EdgeGap that
+	// between a box and an edge passing by, in points.
+	Gap, EdgeGap float64
 	// Embedding, if not nil, is a plane embedding of the graph (vertices
 	// 0..n-1, the same edges in any order), the one the start drawing
 	// has; else Draw embeds the graph itself.
@@ -139,7 +140,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 	minHeight := minHeights(n, in.Edges, lengths)
 	var reach float64 // set once the reference is known
 	newGuard := func(m *mesh.Mesh, x, y []float64) *guard {
-		return &guard{mesh: m, model: model, x: x, y: y, hw: hw, hh: hh, gap: in.Gap, edges: in.Edges, minHeight: minHeight, jumps: !in.KeepOuter, lengths: lengths, reach: reach}
+		return &guard{mesh: m, model: model, x: x, y: y, hw: hw, hh: hh, gap: in.Gap, edgeGap: in.EdgeGap, edges: in.Edges, minHeight: minHeight, jumps: !in.KeepOuter, lengths: lengths, reach: reach}
 	}
 	phase := func(name string, sweeps int, x, y []float64, t time.Time) {
 		least := math.Inf(1)
@@ -300,11 +301,22 @@ func Draw(in Input, opt Options) (*Output, error) {
 		return out, nil
 	}
 	t = time.Now()
+	// The margins phase can press a knot tighter while parting boxes
+	// elsewhere: its result is kept only if, once stretched to clear its
+	// boxes, it is no larger than the drawing it started from.
+	keepX, keepY := slices.Clone(best.x), slices.Clone(best.y)
+	before := extent(keepX, keepY) * best.stretchNeeded()
 	best.margins = true
 	k = best.run(min(maxMarginSweeps, sweepsFor(marginShare)), runTolerance)
 	phase("margins", k, best.x, best.y, t)
-	out.Phases[len(out.Phases)-1].Stretch = best.stretchNeeded()
+	after := best.stretchNeeded()
+	out.Phases[len(out.Phases)-1].Stretch = after
 	out.X, out.Y = best.x, best.y
+	if extent(best.x, best.y)*after > before {
+		out.X, out.Y = keepX, keepY
+		out.Phases[len(out.Phases)-1].Name = "margins (undone)"
+	}
+	best.x, best.y = out.X, out.Y
 	out.Stress = model.Stress(best.x, best.y)
 	out.Gain = gain(model, best.x, best.y, in.X, in.Y)
 	return out, nil
