@@ -2,11 +2,12 @@ package place
 
 import (
 	"fmt"
-	"github.com/gridwood/gridwood/place/augment"
 	"testing"
 
+	"github.com/gridwood/gridwood/internal/graphgen"
 	"github.com/gridwood/gridwood/internal/order"
 	"github.com/gridwood/gridwood/internal/stagebench"
+	"github.com/gridwood/gridwood/place/augment"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -14,7 +15,7 @@ import (
 // (see bench/run), each on the input the command would give it:
 // renumber (the locality pass of Draw), augment (biconnect and triangulate
 // faces), place (canonical ordering, Schnyder wood, coordinates, for every
-// component, with compaction and the barycentric drawing) and space (node
+// component, with compaction and Tutte's drawing) and space (node
 // boxes to points).
 func BenchmarkStage(b *testing.B) {
 	for _, n := range stagebench.Sizes {
@@ -57,5 +58,31 @@ func BenchmarkStage(b *testing.B) {
 				})
 			})
 		}
+	}
+}
+
+// BenchmarkReadable measures the default drawing (Result.Readable: the
+// spaced drawing, then the readable stage on each component) with default
+// node boxes, on the inputs the issue of the readable stage names: random
+// planar graphs of 1,000 and 10,000 vertices, and a grid of 10,000 for
+// comparison. Targets and figures: bench/RESULTS.md.
+func BenchmarkReadable(b *testing.B) {
+	for _, g := range []graphgen.Graph{
+		graphgen.RandomPlanar(1000, 0.5, 1),
+		graphgen.RandomPlanar(10000, 0.5, 1),
+		graphgen.Grid(100, 100),
+	} {
+		res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}, Readable: true})
+		if err != nil {
+			b.Fatal(err)
+		}
+		boxes := equalBoxes(g.N, 27, 18)
+		b.Run(g.Name, func(b *testing.B) {
+			for b.Loop() {
+				if _, err := res.Readable(boxes, ReadableOptions{}); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
 	}
 }

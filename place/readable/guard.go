@@ -242,19 +242,21 @@ func (g *guard) step(v int32, tx, ty, w float64) float64 {
 		}
 	}
 	limit := g.limit(px, py, dx, dy)
-	cost := func(t float64) float64 {
+	// cost is the majorant plus the barrier at p + t d, and the barrier.
+	cost := func(t float64) (float64, float64) {
 		qx, qy := px+float64(t*dx), py+float64(t*dy)
 		ex, ey := qx-tx, qy-ty
-		return float64(w*(float64(ex*ex)+float64(ey*ey))) + g.barrier(v, w, qx, qy)
+		b := g.barrier(v, w, qx, qy)
+		return float64(w*(float64(ex*ex)+float64(ey*ey))) + b, b
 	}
-	here := cost(0)
+	here, _ := cost(0)
 	bestT, bestCost := 0.0, here
 	for k, t := 0, limit; k < steps && t > 0; k, t = k+1, t/2 {
-		c := cost(t)
+		c, b := cost(t)
 		if c < bestCost {
 			bestT, bestCost = t, c
 		}
-		if k == 0 && g.barrier(v, w, px+float64(t*dx), py+float64(t*dy)) == 0 {
+		if k == 0 && b == 0 {
 			break // the majorant only falls toward the target: take it
 		}
 	}
