@@ -1,6 +1,10 @@
 package place
 
-import "slices"
+import (
+	"slices"
+
+	"github.com/gridwood/gridwood/internal/exact"
+)
 
 // compactPairLimit bounds the vertex-edge pairs one compaction check may
 // look at, and compactPerEdge (plus compactFloor) per edge all checks of
@@ -102,7 +106,7 @@ func compactAxis(a, b []int64, edges [][2]int32) bool {
 				continue
 			}
 			for _, w := range byA[i:j] {
-				if orient(a[u], b[u], a[v], b[v], a[w], b[w]) != orient(next[u], b[u], next[v], b[v], next[w], b[w]) {
+				if exact.OrientInt(a[u], b[u], a[v], b[v], a[w], b[w]) != exact.OrientInt(next[u], b[u], next[v], b[v], next[w], b[w]) {
 					return false
 				}
 			}
@@ -138,18 +142,6 @@ func compactAxis(a, b []int64, edges [][2]int32) bool {
 		copy(a, next)
 	}
 	return changed
-}
-
-// orient is the sign of the turn p -> q -> r.
-func orient(px, py, qx, qy, rx, ry int64) int {
-	v := (qx-px)*(ry-py) - (qy-py)*(rx-px)
-	switch {
-	case v > 0:
-		return 1
-	case v < 0:
-		return -1
-	}
-	return 0
 }
 
 func cmp64(p, q int64) int {

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"testing"
 
+	"github.com/gridwood/gridwood/internal/exact"
 	"github.com/gridwood/gridwood/internal/graphgen"
 	"github.com/gridwood/gridwood/place/geomcheck"
 )
@@ -24,7 +25,7 @@ func orientations(x, y []int64, edges [][2]int32) []int {
 			if int(u) == w || int(v) == w || !inside(x[u], x[v], x[w]) && !inside(y[u], y[v], y[w]) {
 				continue
 			}
-			out = append(out, orient(x[u], y[u], x[v], y[v], x[w], y[w]))
+			out = append(out, exact.OrientInt(x[u], y[u], x[v], y[v], x[w], y[w]))
 		}
 		for v := range x {
 			out = append(out, cmp64(x[v], x[w]), cmp64(y[v], y[w]))

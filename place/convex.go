@@ -3,8 +3,8 @@ package place
 import (
 	"errors"
 	"fmt"
-	"math/bits"
 
+	"github.com/gridwood/gridwood/internal/exact"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -1018,12 +1018,12 @@ func (w *convexWood) checkConvex(x, y []int64) error {
 			c := emb.Head(emb.FaceNext(d))
 			ux, uy := x[b]-x[a], y[b]-y[a]
 			vx, vy := x[c]-x[b], y[c]-y[b]
-			switch s := convexCrossSign(ux, uy, vx, vy); {
+			switch s := exact.CrossSign(ux, uy, vx, vy); {
 			case s == want:
 				strict = true
 			case s != 0:
 				return w.internal("face %d turns the wrong way at vertex %d", f, b)
-			case convexCrossSign(ux, uy, -vy, vx) <= 0:
+			case exact.CrossSign(ux, uy, -vy, vx) <= 0:
 				// ux*vx + uy*vy <= 0: a reversal or a repeated point.
 				return w.internal("face %d folds back at vertex %d", f, b)
 			}
@@ -1033,45 +1033,4 @@ func (w *convexWood) checkConvex(x, y []int64) error {
 		}
 	}
 	return nil
-}
-
-// convexCrossSign returns the sign of ax*by - ay*bx, exactly.
-func convexCrossSign(ax, ay, bx, by int64) int {
-	h1, l1 := convexMul(ax, by)
-	h2, l2 := convexMul(ay, bx)
-	switch {
-	case h1 != h2:
-		if h1 < h2 {
-			return -1
-		}
-		return 1
-	case l1 != l2:
-		if l1 < l2 {
-			return -1
-		}
-		return 1
-	}
-	return 0
-}
-
-// convexMul returns a*b as a 128-bit two's-complement number; |a|, |b| <
-// 2^62.
-func convexMul(a, b int64) (hi int64, lo uint64) {
-	neg := (a < 0) != (b < 0)
-	ua, ub := uint64(a), uint64(b)
-	if a < 0 {
-		ua = uint64(-a)
-	}
-	if b < 0 {
-		ub = uint64(-b)
-	}
-	h, l := bits.Mul64(ua, ub)
-	if neg {
-		l = ^l + 1
-		h = ^h
-		if l == 0 {
-			h++
-		}
-	}
-	return int64(h), l
 }

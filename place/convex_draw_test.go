@@ -4,6 +4,7 @@ import (
 	"slices"
 	"testing"
 
+	"github.com/gridwood/gridwood/internal/exact"
 	"github.com/gridwood/gridwood/internal/graphgen"
 	"github.com/gridwood/gridwood/place/geomcheck"
 	"github.com/gridwood/gridwood/planarize"
@@ -27,7 +28,7 @@ func faceTurns(emb *planarize.Embedding, x, y []int64) [][]int {
 		for i, d := range ds {
 			a, b := emb.Tail(d), emb.Head(d)
 			c := emb.Head(ds[(i+1)%len(ds)])
-			turns = append(turns, orient(x[a], y[a], x[b], y[b], x[c], y[c]))
+			turns = append(turns, exact.OrientInt(x[a], y[a], x[b], y[b], x[c], y[c]))
 		}
 		faces = append(faces, turns)
 	}

@@ -3,6 +3,7 @@ package place
 import (
 	"math"
 
+	"github.com/gridwood/gridwood/internal/exact"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -217,7 +218,7 @@ func (g *moveGuard) turnAt(i int, v int32, px, py int64) int {
 	case c:
 		cx, cy = px, py
 	}
-	return orient(ax, ay, bx, by, cx, cy)
+	return exact.OrientInt(ax, ay, bx, by, cx, cy)
 }
 
 // regionCorner reports whether the triangle on the left of dart h is
@@ -245,7 +246,7 @@ func (g *moveGuard) allows(v int32, px, py int64) bool {
 	for range emb.Degree(v) {
 		if !g.regionCorner(h) {
 			a, b := emb.Head(h), emb.Head(emb.Next(h))
-			if orient(px, py, x[a], y[a], x[b], y[b]) != g.innerSign {
+			if exact.OrientInt(px, py, x[a], y[a], x[b], y[b]) != g.innerSign {
 				return false
 			}
 		}

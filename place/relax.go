@@ -4,6 +4,7 @@ import (
 	"math"
 	"slices"
 
+	"github.com/gridwood/gridwood/internal/exact"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -132,7 +133,7 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 					jb = lo
 				}
 				a, b := vs[nbr[j]], vs[nbr[jb]]
-				if orient(px, py, x[a], y[a], x[b], y[b]) != guard.innerSign {
+				if exact.OrientInt(px, py, x[a], y[a], x[b], y[b]) != guard.innerSign {
 					return false
 				}
 			}

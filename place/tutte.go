@@ -1,6 +1,7 @@
 package place
 
 import (
+	"github.com/gridwood/gridwood/internal/exact"
 	"github.com/gridwood/gridwood/internal/trig"
 	"github.com/gridwood/gridwood/planarize"
 )
@@ -174,7 +175,7 @@ func circlePoint(i, k int) (float64, float64) {
 func triangleSign(emb *planarize.Embedding, d int32, x, y []int64) int {
 	a, b := emb.Tail(d), emb.Head(d)
 	c := emb.Head(emb.FaceNext(d))
-	return orient(x[a], y[a], x[b], y[b], x[c], y[c])
+	return exact.OrientInt(x[a], y[a], x[b], y[b], x[c], y[c])
 }
 
 // boundaryWinding counts, exactly, how many times the outer face's
@@ -219,7 +220,7 @@ func planeDrawing(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y
 	for i, d := range outer.face {
 		a, b := emb.Tail(d), emb.Head(d)
 		c := emb.Head(outer.face[(i+1)%k])
-		t := orient(x[a], y[a], x[b], y[b], x[c], y[c])
+		t := exact.OrientInt(x[a], y[a], x[b], y[b], x[c], y[c])
 		if t == 0 || turn != 0 && t != turn {
 			return false
 		}
