@@ -15,7 +15,7 @@ import (
 // see e.g. Kant and Bodlaender 1997 for refined variants).
 func Biconnect(emb *planarize.Embedding, skip func(int32) bool) {
 	n := emb.N()
-	block := blocks(emb, skip)
+	block := blocks(emb)
 	uf := disjoint.New(len(block))
 	for v := int32(0); int(v) < n; v++ {
 		h := emb.First(v)
@@ -34,77 +34,14 @@ func Biconnect(emb *planarize.Embedding, skip func(int32) bool) {
 	}
 }
 
-// blocks labels every edge with its biconnected component, by the
-// lowpoint method of Hopcroft and Tarjan (1973) with an explicit stack.
-// Components whose vertices skip reports are left out (labelled 0).
-func blocks(emb *planarize.Embedding, skip func(int32) bool) []int32 {
-	n, m := emb.N(), emb.M()
-	block := make([]int32, m)
-	disc := make([]int32, n)
-	low := make([]int32, n)
-	parentDart := make([]int32, n)
-	cursor := make([]int32, n) // next dart to look at, -1 when done
-	for v := range disc {
-		disc[v] = -1
+// blocks labels every edge of emb with its biconnected component
+// (planarize.Blocks).
+func blocks(emb *planarize.Embedding) []int32 {
+	edges := make([][2]int32, emb.M())
+	for i := range edges {
+		edges[i] = emb.Edge(i)
 	}
-	var vstack, estack []int32
-	clock, nb := int32(0), int32(0)
-	for s := int32(0); int(s) < n; s++ {
-		if disc[s] >= 0 || emb.First(s) < 0 || skip(s) {
-			continue
-		}
-		disc[s], low[s] = clock, clock
-		clock++
-		parentDart[s] = -1
-		cursor[s] = emb.First(s)
-		vstack = append(vstack, s)
-		for len(vstack) > 0 {
-			v := vstack[len(vstack)-1]
-			d := cursor[v]
-			if d < 0 {
-				vstack = vstack[:len(vstack)-1]
-				pd := parentDart[v]
-				if pd < 0 {
-					continue
-				}
-				u := emb.Tail(pd)
-				low[u] = min(low[u], low[v])
-				if low[v] >= disc[u] {
-					for {
-						e := estack[len(estack)-1]
-						estack = estack[:len(estack)-1]
-						block[e] = nb
-						if e == pd>>1 {
-							break
-						}
-					}
-					nb++
-				}
-				continue
-			}
-			if nx := emb.Next(d); nx != emb.First(v) {
-				cursor[v] = nx
-			} else {
-				cursor[v] = -1
-			}
-			if pd := parentDart[v]; pd >= 0 && d>>1 == pd>>1 {
-				continue
-			}
-			w := emb.Head(d)
-			switch {
-			case disc[w] < 0:
-				disc[w], low[w] = clock, clock
-				clock++
-				parentDart[w] = d
-				cursor[w] = emb.First(w)
-				estack = append(estack, d>>1)
-				vstack = append(vstack, w)
-			case disc[w] < disc[v]:
-				low[v] = min(low[v], disc[w])
-				estack = append(estack, d>>1)
-			}
-		}
-	}
+	block, _ := planarize.Blocks(emb.N(), edges)
 	return block
 }
 
