@@ -415,25 +415,33 @@ func convexComponent(emb *planarize.Embedding, vs []int32, outer int32) (x, y []
 // starting a new row when a row would grow wider than about the square
 // root of the total area, so that many small components do not become one
 // endless line. Rows are stacked upwards in order.
-func pack(boxes []Component) {
+func pack(boxes []Component) { packRows(boxes, 1, 1, 0) }
+
+// packRows places boxes in rows no wider than about the square root of
+// their total area (or the widest box): each box takes W+pad by H+pad,
+// boxes in a row and rows sit sep apart, and areaSep of that separation
+// counts toward the area. Grid boxes (pack) hold W+1 points a side and
+// keep one free step between them; boxes in points (packSpaced) keep the
+// gap.
+func packRows(boxes []Component, pad, sep, areaSep int64) {
 	if len(boxes) == 0 {
 		return
 	}
 	var area, widest int64
 	for _, b := range boxes {
-		area += (b.W + 1) * (b.H + 1)
-		widest = max(widest, b.W+1)
+		area += (b.W + pad + areaSep) * (b.H + pad + areaSep)
+		widest = max(widest, b.W+pad)
 	}
 	limit := max(widest, isqrt(area))
 	var x, y, rowH int64
 	for i := range boxes {
 		b := &boxes[i]
-		if x > 0 && x+b.W+1 > limit {
-			y += rowH + 2
+		if x > 0 && x+b.W+pad > limit {
+			y += rowH + pad + sep
 			x, rowH = 0, 0
 		}
 		b.X0, b.Y0 = x, y
-		x += b.W + 2
+		x += b.W + pad + sep
 		rowH = max(rowH, b.H)
 	}
 }

@@ -126,18 +126,7 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 		}
 		boxes[c] = shiftToOrigin(vs, px, py, hw, hh)
 	}
-	packSpaced(boxes, unit)
-	for c, vs := range r.tri.members {
-		for _, v := range vs {
-			px[v] += boxes[c].X0
-			py[v] += boxes[c].Y0
-		}
-		out.Width = max(out.Width, boxes[c].X0+boxes[c].W)
-		out.Height = max(out.Height, boxes[c].Y0+boxes[c].H)
-	}
-	for v, w := range r.newID {
-		out.X[v], out.Y[v] = px[w], py[w]
-	}
+	r.packInto(out, r.tri.members, boxes, unit, px, py)
 	return out, nil
 }
 

@@ -174,6 +174,14 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 		}
 		boxes[c] = shiftToOrigin(vs, px, py, hw, hh)
 	}
+	r.packInto(out, members, boxes, unit, px, py)
+	return out, nil
+}
+
+// packInto packs the components' boxes in rows (packSpaced), moves each
+// component's points px, py (Draw's numbering) into its box, and writes
+// them in the caller's numbering into out, with its width and height.
+func (r *Result) packInto(out *Placed, members [][]int32, boxes []Component, unit int64, px, py []int64) {
 	packSpaced(boxes, unit)
 	for c, vs := range members {
 		for _, v := range vs {
@@ -183,11 +191,9 @@ func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {
 		out.Width = max(out.Width, boxes[c].X0+boxes[c].W)
 		out.Height = max(out.Height, boxes[c].Y0+boxes[c].H)
 	}
-	// Back to the caller's numbering.
 	for v, w := range r.newID {
 		out.X[v], out.Y[v] = px[w], py[w]
 	}
-	return out, nil
 }
 
 // localBoxes checks the boxes and returns them in Draw's numbering, with
@@ -1015,28 +1021,7 @@ func floorDiv(a, b int64) int64 {
 
 // packSpaced places component boxes (sizes in points) in rows, gap apart,
 // like pack does for grid boxes.
-func packSpaced(boxes []Component, gap int64) {
-	if len(boxes) == 0 {
-		return
-	}
-	var area, widest int64
-	for _, b := range boxes {
-		area += (b.W + gap) * (b.H + gap)
-		widest = max(widest, b.W)
-	}
-	limit := max(widest, isqrt(area))
-	var x, y, rowH int64
-	for i := range boxes {
-		b := &boxes[i]
-		if x > 0 && x+b.W > limit {
-			y += rowH + gap
-			x, rowH = 0, 0
-		}
-		b.X0, b.Y0 = x, y
-		x += b.W + gap
-		rowH = max(rowH, b.H)
-	}
-}
+func packSpaced(boxes []Component, gap int64) { packRows(boxes, 0, gap, gap) }
 
 // relaxWins relaxes a copy of the finished drawing in px, py (see relax),
 // stretches and shrinks it as spacing does, and when it then clears every
