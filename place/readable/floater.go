@@ -67,8 +67,19 @@ func solve(n int, rings func(func(v int32, ring []int32)), tx, ty []float64, rea
 		weight = append(weight, meanValue(tx[v], ty[v], ring, px, py)...)
 		start[v+1] = int32(len(nbr))
 	})
-	// Solve (diag - offdiag) x = frame terms for the inner vertices, each
-	// row scaled to unit diagonal (Jacobi preconditioning).
+	x, y = make([]float64, n), make([]float64, n)
+	free := func(u int32) bool { return int(u) < n }
+	solveWeighted(n, start, nbr, weight, free, [2]func(int32) float64{px, py}, [2][]float64{x, y})
+	return x, y
+}
+
+// solveWeighted puts each free vertex v of 0..n-1 at the weighted mean of
+// its neighbours nbr[start[v]:start[v+1]] (weights as given, made to sum
+// to 1 per row), the others held where at says (for vertices past n, and
+// for the vertices of 0..n-1 that are not free, whose rows are empty): a
+// sparse linear solve per axis by biCGStab, from at's positions, into
+// out. Each row is scaled to unit diagonal (Jacobi preconditioning).
+func solveWeighted(n int, start, nbr []int32, weight []float64, free func(int32) bool, at [2]func(int32) float64, out [2][]float64) {
 	for v := range n {
 		sum := 0.0
 		for k := start[v]; k < start[v+1]; k++ {
@@ -78,35 +89,36 @@ func solve(n int, rings func(func(v int32, ring []int32)), tx, ty []float64, rea
 			weight[k] /= sum
 		}
 	}
-	apply := func(in, out []float64) {
+	apply := func(in, res []float64) {
 		for v := range n {
 			s := in[v]
-			for k := start[v]; k < start[v+1]; k++ {
-				if u := nbr[k]; int(u) < n {
-					s -= float64(weight[k] * in[u])
+			if free(int32(v)) {
+				for k := start[v]; k < start[v+1]; k++ {
+					if u := nbr[k]; free(u) {
+						s -= float64(weight[k] * in[u])
+					}
 				}
 			}
-			out[v] = s
+			res[v] = s
 		}
 	}
-	x, y = make([]float64, n), make([]float64, n)
-	for axis, out := range [2][]float64{x, y} {
-		pos := px
-		if axis == 1 {
-			pos = py
-		}
+	for axis, pos := range out {
 		b := make([]float64, n)
 		for v := range n {
+			if !free(int32(v)) {
+				b[v] = at[axis](int32(v))
+				pos[v] = b[v]
+				continue
+			}
 			for k := start[v]; k < start[v+1]; k++ {
-				if u := nbr[k]; int(u) >= n {
-					b[v] += float64(weight[k] * pos(u))
+				if u := nbr[k]; !free(u) {
+					b[v] += float64(weight[k] * at[axis](u))
 				}
 			}
-			out[v] = pos(int32(v))
+			pos[v] = at[axis](int32(v))
 		}
-		biCGStab(apply, b, out, floaterSweeps, 1e-13)
+		biCGStab(apply, b, pos, floaterSweeps, 1e-13)
 	}
-	return x, y
 }
 
 // biCGStab solves A x = b for the operator apply, from x as given, by the

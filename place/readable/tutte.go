@@ -99,48 +99,19 @@ func convexStart(emb *planarize.Embedding, tx, ty []float64, lengths map[[2]int3
 		}
 		start[v+1] = int32(len(nbr))
 	}
-	for v := range n {
-		sum := 0.0
-		for k := start[v]; k < start[v+1]; k++ {
-			sum += weight[k]
-		}
-		for k := start[v]; k < start[v+1]; k++ {
-			weight[k] /= sum
-		}
-	}
-	apply := func(in, out []float64) {
-		for v := range n {
-			s := in[v]
-			if !fixed[v] {
-				for k := start[v]; k < start[v+1]; k++ {
-					if u := nbr[k]; !fixed[u] {
-						s -= float64(weight[k] * in[u])
-					}
-				}
+	free := func(u int32) bool { return int(u) < n && !fixed[u] }
+	held := func(pos, target []float64) func(int32) float64 {
+		return func(u int32) float64 {
+			switch {
+			case int(u) >= n:
+				return 0 // the hub: never a neighbour of an inner vertex
+			case fixed[u]:
+				return pos[u]
 			}
-			out[v] = s
+			return target[u]
 		}
 	}
-	for axis, pos := range [2][]float64{x, y} {
-		b := make([]float64, n)
-		for v := range n {
-			if fixed[v] {
-				b[v] = pos[v]
-				continue
-			}
-			for k := start[v]; k < start[v+1]; k++ {
-				if u := nbr[k]; fixed[u] {
-					b[v] += float64(weight[k] * pos[u])
-				}
-			}
-			if axis == 0 {
-				pos[v] = tx[v]
-			} else {
-				pos[v] = ty[v]
-			}
-		}
-		biCGStab(apply, b, pos, floaterSweeps, 1e-13)
-	}
+	solveWeighted(n, start, nbr, weight, free, [2]func(int32) float64{held(x, tx), held(y, ty)}, [2][]float64{x, y})
 	return x, y, true
 }
 
