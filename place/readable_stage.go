@@ -149,10 +149,11 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	for i := range local {
 		local[i] = emb.Edge(i)
 	}
-	// An edge may pass a box at half the distance two boxes keep (and no
-	// nearer than the spacing rule's edgeGap): room enough to read, and
-	// far less stretching than the full gap asks where boxes crowd.
-	in := readable.Input{Edges: local, X: make([]float64, k), Y: make([]float64, k), HalfW: make([]float64, k), HalfH: make([]float64, k), Gap: float64(gap), EdgeGap: max(float64(edgeGap), float64(gap)/2), Embedding: emb, KeepOuter: r.outerAsked}
+	// An edge may pass a box at three quarters of the distance two boxes
+	// keep (and no nearer than the spacing rule's edgeGap): room enough to
+	// read, and less stretching than the full gap asks where boxes crowd
+	// (half the gap stretched less still, but bent digraphs' flow).
+	in := readable.Input{Edges: local, X: make([]float64, k), Y: make([]float64, k), HalfW: make([]float64, k), HalfH: make([]float64, k), Gap: float64(gap), EdgeGap: max(float64(edgeGap), float64(gap)*3/4), Embedding: emb, KeepOuter: r.outerAsked}
 	for i, v := range vs {
 		in.X[i], in.Y[i] = float64(sx[v]), float64(sy[v])
 		in.HalfW[i], in.HalfH[i] = float64(hw[v]), float64(hh[v])
