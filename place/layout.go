@@ -6,6 +6,7 @@ import (
 	"slices"
 
 	"github.com/gridwood/gridwood/place/augment"
+	"github.com/gridwood/gridwood/place/convex"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -94,7 +95,7 @@ const (
 	// Convex draws each 3-connected component with every face a convex
 	// polygon, on the (f-1) x (f-1) grid (S. Felsner, "Convex drawings of
 	// planar graphs and the order dimension of 3-polytopes", Order 18,
-	// 2001; see convexDrawing); other components get the Schnyder method
+	// 2001; see package place/convex); other components get the Schnyder method
 	// and are counted in Drawing.NotConvex.
 	Convex
 )
@@ -396,7 +397,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, e
 }
 
 // convexComponent draws the component of emb with vertices vs convex (see
-// convexDrawing), with the face left of emb's dart outer as its outer face;
+// convex.Draw), with the face left of emb's dart outer as its outer face;
 // the coordinates are in the order of vs.
 func convexComponent(emb *planarize.Embedding, vs []int32, outer int32) (x, y []int64, w, h int64, err error) {
 	sub, oldDart := emb.Restrict(vs)
@@ -407,7 +408,7 @@ func convexComponent(emb *planarize.Embedding, vs []int32, outer int32) (x, y []
 			break
 		}
 	}
-	return convexDrawing(sub, inSub)
+	return convex.Draw(sub, inSub)
 }
 
 // pack places component boxes left to right in rows, with one empty grid

@@ -1,4 +1,4 @@
-package place
+package convex
 
 import (
 	"errors"
@@ -13,7 +13,7 @@ import (
 	"github.com/gridwood/gridwood/planarize"
 )
 
-// This file tests convexDrawing. Every drawing goes through the independent
+// This file tests Draw. Every drawing goes through the independent
 // exact checker place/geomcheck and through the exact convexity check
 // below, which walks the faces of the embedding and looks only at the
 // coordinates. Whether a graph is 3-connected is decided here by brute
@@ -146,7 +146,7 @@ func cvxConvexity(emb *planarize.Embedding, outer int32, x, y []int64) string {
 // cvxDraw draws emb with the outer face on the left of outer and checks it.
 func cvxDraw(tb testing.TB, name string, emb *planarize.Embedding, outer int32) bool {
 	tb.Helper()
-	x, y, w, h, err := convexDrawing(emb, outer)
+	x, y, w, h, err := Draw(emb, outer)
 	if err != nil {
 		tb.Errorf("%s, outer dart %d: %v", name, outer, err)
 		return false
@@ -414,7 +414,7 @@ func TestConvexPlatonic(t *testing.T) {
 			t.Fatalf("%s: (V, E, F) = (%d, %d, %d), want (%d, %d, %d)", tc.Name, emb.N(), emb.M(), emb.Faces(), tc.V, tc.E, tc.F)
 		}
 		for d := int32(0); int(d) < 2*emb.M(); d++ {
-			x, y, w, h, err := convexDrawing(emb, d)
+			x, y, w, h, err := Draw(emb, d)
 			if err != nil {
 				t.Fatalf("%s, outer dart %d: %v", tc.Name, d, err)
 			}
@@ -558,7 +558,7 @@ func TestConvexNotTriconnected(t *testing.T) {
 		}
 		emb := mustEmbed(t, g)
 		for d := range int32(2 * emb.M()) {
-			if _, _, _, _, err := convexDrawing(emb, d); !errors.Is(err, errNotTriconnected) {
+			if _, _, _, _, err := Draw(emb, d); !errors.Is(err, errNotTriconnected) {
 				t.Errorf("%s, outer dart %d: error %v, want errNotTriconnected", g.Name, d, err)
 				break
 			}
@@ -566,7 +566,7 @@ func TestConvexNotTriconnected(t *testing.T) {
 	}
 }
 
-// TestConvexDecidesTriconnectivity compares convexDrawing's verdict with
+// TestConvexDecidesTriconnectivity compares Draw's verdict with
 // brute force on random planar graphs near the threshold: triangulations
 // with random edges removed without looking, and random planar subgraphs.
 func TestConvexDecidesTriconnectivity(t *testing.T) {
@@ -591,7 +591,7 @@ func TestConvexDecidesTriconnectivity(t *testing.T) {
 		want := cvxTriconnectedPairs(n, edges)
 		emb := mustEmbed(t, h)
 		d := rng.Int32N(int32(2 * len(edges)))
-		x, y, w, hh, err := convexDrawing(emb, d)
+		x, y, w, hh, err := Draw(emb, d)
 		switch {
 		case want && err != nil:
 			t.Errorf("%s: 3-connected by brute force, but %v", h.Name, err)
@@ -614,7 +614,7 @@ func TestConvexDecidesTriconnectivity(t *testing.T) {
 func TestConvexTriangle(t *testing.T) {
 	emb := mustEmbed(t, graphgen.Cycle(3))
 	for d := range int32(6) {
-		x, y, w, h, err := convexDrawing(emb, d)
+		x, y, w, h, err := Draw(emb, d)
 		if err != nil {
 			t.Fatalf("outer dart %d: %v", d, err)
 		}
@@ -626,27 +626,27 @@ func TestConvexTriangle(t *testing.T) {
 }
 
 // TestConvexBadInput: arguments that are not a plane embedding of a simple
-// graph with one of its darts are refused with errConvexInput.
+// graph with one of its darts are refused with errInput.
 func TestConvexBadInput(t *testing.T) {
 	k4 := mustEmbed(t, graphgen.Tetrahedron())
 	for _, d := range []int32{-1, 12, 1 << 30} {
-		if _, _, _, _, err := convexDrawing(k4, d); !errors.Is(err, errConvexInput) {
-			t.Errorf("K4 with dart %d: error %v, want errConvexInput", d, err)
+		if _, _, _, _, err := Draw(k4, d); !errors.Is(err, errInput) {
+			t.Errorf("K4 with dart %d: error %v, want errInput", d, err)
 		}
 	}
-	if _, _, _, _, err := convexDrawing(nil, 0); !errors.Is(err, errConvexInput) {
-		t.Errorf("nil embedding: error %v, want errConvexInput", err)
+	if _, _, _, _, err := Draw(nil, 0); !errors.Is(err, errInput) {
+		t.Errorf("nil embedding: error %v, want errInput", err)
 	}
-	if _, _, _, _, err := convexDrawing(planarize.NewEmbedding(1), 0); !errors.Is(err, errConvexInput) {
-		t.Errorf("one vertex: error %v, want errConvexInput", err)
+	if _, _, _, _, err := Draw(planarize.NewEmbedding(1), 0); !errors.Is(err, errInput) {
+		t.Errorf("one vertex: error %v, want errInput", err)
 	}
 	// A multigraph: K4 plus a second copy of the edge 0-1.
 	multi := planarize.NewEmbedding(4)
 	for _, e := range [][2]int32{{0, 1}, {0, 2}, {0, 3}, {1, 2}, {1, 3}, {2, 3}, {0, 1}} {
 		multi.AddEdge(-1, -1, e[0], e[1])
 	}
-	if _, _, _, _, err := convexDrawing(multi, 0); !errors.Is(err, errConvexInput) {
-		t.Errorf("K4 with a doubled edge: error %v, want errConvexInput", err)
+	if _, _, _, _, err := Draw(multi, 0); !errors.Is(err, errInput) {
+		t.Errorf("K4 with a doubled edge: error %v, want errInput", err)
 	}
 	// A rotation system of K4 that is not plane: edges added in some order
 	// with every dart appended to its vertex's rotation; search the orders
@@ -661,8 +661,8 @@ func TestConvexBadInput(t *testing.T) {
 		}
 		if !e.IsPlane() {
 			found = true
-			if _, _, _, _, err := convexDrawing(e, 0); !errors.Is(err, errConvexInput) {
-				t.Errorf("non-plane K4: error %v, want errConvexInput", err)
+			if _, _, _, _, err := Draw(e, 0); !errors.Is(err, errInput) {
+				t.Errorf("non-plane K4: error %v, want errInput", err)
 			}
 			break
 		}
@@ -751,7 +751,7 @@ func TestConvexFaceCounts(t *testing.T) {
 	for _, g := range gs {
 		emb := mustEmbed(t, g)
 		for _, outer := range []int32{0, int32(emb.M())} {
-			wood, coord, err := convexSolve(emb, outer)
+			wood, coord, err := solve(emb, outer)
 			if err != nil {
 				t.Fatalf("%s: %v", g.Name, err)
 			}
@@ -838,8 +838,8 @@ func TestConvexDeterministic(t *testing.T) {
 	for d := range before {
 		before[d] = emb.Next(int32(d))
 	}
-	x1, y1, _, _, err1 := convexDrawing(emb, 7)
-	x2, y2, _, _, err2 := convexDrawing(emb, 7)
+	x1, y1, _, _, err1 := Draw(emb, 7)
+	x2, y2, _, _, err2 := Draw(emb, 7)
 	if err1 != nil || err2 != nil {
 		t.Fatal(err1, err2)
 	}
@@ -858,7 +858,7 @@ func TestConvexDeterministic(t *testing.T) {
 func TestConvexCheckerCatchesDefects(t *testing.T) {
 	emb := mustEmbed(t, graphgen.Cube())
 	const outer = 0
-	x, y, _, _, err := convexDrawing(emb, outer)
+	x, y, _, _, err := Draw(emb, outer)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -966,10 +966,28 @@ func BenchmarkConvex(b *testing.B) {
 		}
 		b.Run(g.Name, func(b *testing.B) {
 			for b.Loop() {
-				if _, _, _, _, err := convexDrawing(emb, 0); err != nil {
+				if _, _, _, _, err := Draw(emb, 0); err != nil {
 					b.Fatal(err)
 				}
 			}
 		})
 	}
+}
+
+func mustEmbed(tb testing.TB, g graphgen.Graph) *planarize.Embedding {
+	tb.Helper()
+	emb, ok := planarize.Embed(g.N, g.Edges)
+	if !ok {
+		tb.Fatalf("%s: planarize.Embed calls a planar graph non-planar", g.Name)
+	}
+	return emb
+}
+
+// embeddingEdges lists the edges of emb in index order.
+func embeddingEdges(emb *planarize.Embedding) [][2]int32 {
+	out := make([][2]int32, emb.M())
+	for i := range out {
+		out[i] = emb.Edge(i)
+	}
+	return out
 }

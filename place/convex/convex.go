@@ -1,4 +1,4 @@
-package place
+package convex
 
 import (
 	"errors"
@@ -8,40 +8,33 @@ import (
 	"github.com/gridwood/gridwood/planarize"
 )
 
-// This file draws 3-connected plane graphs with convex faces by face
-// counting in a Schnyder wood: S. Felsner, "Convex drawings of planar graphs
-// and the order dimension of 3-polytopes", Order 18 (2001). The
-// Schnyder wood comes from a canonical ordering of the 3-connected graph
-// (G. Kant, "Drawing planar graphs using the canonical ordering",
-// Algorithmica 16 (1996) 4-32), found by peeling the graph from the top.
-
 var (
 	// errNotTriconnected: the graph has fewer than four vertices (and is
 	// not a triangle), is disconnected, or has a cut vertex or a separation
 	// pair.
-	errNotTriconnected = errors.New("place: the graph is not 3-connected")
-	// errConvexInput: the arguments are not a plane embedding of a simple
+	errNotTriconnected = errors.New("convex: the graph is not 3-connected")
+	// errInput: the arguments are not a plane embedding of a simple
 	// graph together with one of its darts.
-	errConvexInput = errors.New("place: a convex drawing needs a plane embedding of a simple graph and one of its darts")
-	// errConvexInternal: a broken invariant, meaning a bug rather than bad
+	errInput = errors.New("convex: a convex drawing needs a plane embedding of a simple graph and one of its darts")
+	// errInternal: a broken invariant, meaning a bug rather than bad
 	// input; it is returned instead of panicking.
-	errConvexInternal = errors.New("place: internal error in the convex drawing")
+	errInternal = errors.New("convex: internal error in the convex drawing")
 )
 
-// convexHalfEdge marks the outgoing edge of colour i at the outer vertex
+// halfEdge marks the outgoing edge of colour i at the outer vertex
 // a_i: the half-edge into the outer face of Felsner's suspension.
-const convexHalfEdge = -2
+const halfEdge = -2
 
-// convexDrawing draws a 3-connected plane graph with every face a convex
+// Draw draws a 3-connected plane graph with every face a convex
 // polygon on a small integer grid. emb is a plane embedding of a simple
 // 3-connected graph (one connected component covering all of emb's
 // vertices, n >= 4, or a triangle); outer is a dart whose left face is to
 // be the outer face. It returns grid coordinates per vertex and the grid
 // extent (all points in [0,w]x[0,h]). errNotTriconnected if the graph is
-// not 3-connected (detected, not assumed); errConvexInput if emb is not a
+// not 3-connected (detected, not assumed); errInput if emb is not a
 // plane embedding of a simple graph or outer is not one of its darts (so a
-// graph without edges gets errConvexInput); another error, wrapping
-// errConvexInternal, for internal failures -- it never panics.
+// graph without edges gets errInput); another error, wrapping
+// errInternal, for internal failures -- it never panics.
 //
 // Method: face counting in a Schnyder wood, S. Felsner, "Convex drawings
 // of planar graphs and the order dimension of 3-polytopes", Order 18
@@ -69,8 +62,8 @@ const convexHalfEdge = -2
 // and subgraph listing algorithms", SIAM J. Comput. 14 (1985), the peeling
 // keeps per-face counters in the manner of Kant's algorithm, and the face
 // counts are sums of subtree weights along tree paths. Nothing recurses.
-func convexDrawing(emb *planarize.Embedding, outer int32) (x, y []int64, w, h int64, err error) {
-	wood, coord, err := convexSolve(emb, outer)
+func Draw(emb *planarize.Embedding, outer int32) (x, y []int64, w, h int64, err error) {
+	wood, coord, err := solve(emb, outer)
 	if err != nil {
 		return nil, nil, 0, 0, err
 	}
@@ -78,15 +71,15 @@ func convexDrawing(emb *planarize.Embedding, outer int32) (x, y []int64, w, h in
 	return coord[0], coord[1], w, w, nil
 }
 
-// convexSolve does the work of convexDrawing and also returns the Schnyder
+// solve does the work of Draw and also returns the Schnyder
 // wood and all three face counts per vertex, for the tests.
-func convexSolve(emb *planarize.Embedding, outer int32) (*convexWood, [3][]int64, error) {
+func solve(emb *planarize.Embedding, outer int32) (*wood, [3][]int64, error) {
 	var none [3][]int64
 	if emb == nil || outer < 0 || int(outer) >= 2*emb.M() {
-		return nil, none, errConvexInput
+		return nil, none, errInput
 	}
-	if !convexSimple(emb) || !emb.IsPlane() {
-		return nil, none, errConvexInput
+	if !simple(emb) || !emb.IsPlane() {
+		return nil, none, errInput
 	}
 	n := emb.N()
 	if n < 3 || emb.Components() != 1 {
@@ -95,7 +88,7 @@ func convexSolve(emb *planarize.Embedding, outer int32) (*convexWood, [3][]int64
 	if n == 3 && emb.M() != 3 {
 		return nil, none, errNotTriconnected // a path
 	}
-	wood := newConvexWood(emb)
+	wood := newWood(emb)
 	if !wood.facesAreCycles() {
 		return nil, none, errNotTriconnected // a cut vertex
 	}
@@ -118,8 +111,8 @@ func convexSolve(emb *planarize.Embedding, outer int32) (*convexWood, [3][]int64
 	return wood, coord, nil
 }
 
-// convexSimple reports whether emb has no loop and no repeated pair.
-func convexSimple(emb *planarize.Embedding) bool {
+// simple reports whether emb has no loop and no repeated pair.
+func simple(emb *planarize.Embedding) bool {
 	n := emb.N()
 	seen := make([]int32, n)
 	for v := range seen {
@@ -146,8 +139,8 @@ func convexSimple(emb *planarize.Embedding) bool {
 	return true
 }
 
-// convexWood holds the faces of the embedding and the Schnyder wood.
-type convexWood struct {
+// wood holds the faces of the embedding and the Schnyder wood.
+type wood struct {
 	emb  *planarize.Embedding
 	n, m int
 
@@ -158,12 +151,12 @@ type convexWood struct {
 	outerFace int32
 
 	a   [3]int32   // a1, a2, a3: the roots of the three trees
-	out [3][]int32 // out[i][v]: the dart leaving v in colour i+1, or convexHalfEdge
+	out [3][]int32 // out[i][v]: the dart leaving v in colour i+1, or halfEdge
 	lab []int8     // lab[d]: colour (0..2) of the corner between d and Next(d)
 }
 
-func newConvexWood(emb *planarize.Embedding) *convexWood {
-	w := &convexWood{emb: emb, n: emb.N(), m: emb.M()}
+func newWood(emb *planarize.Embedding) *wood {
+	w := &wood{emb: emb, n: emb.N(), m: emb.M()}
 	nd := 2 * w.m
 	w.face = make([]int32, nd)
 	for d := range w.face {
@@ -204,7 +197,7 @@ func newConvexWood(emb *planarize.Embedding) *convexWood {
 	return w
 }
 
-func (w *convexWood) darts(f int32) []int32 {
+func (w *wood) darts(f int32) []int32 {
 	return w.faceDarts[w.faceStart[f]:w.faceStart[f+1]]
 }
 
@@ -212,7 +205,7 @@ func (w *convexWood) darts(f int32) []int32 {
 // once. A connected plane graph on three or more vertices is 2-connected
 // exactly when this holds (common practice: a cut vertex appears twice on
 // the walk of some face).
-func (w *convexWood) facesAreCycles() bool {
+func (w *wood) facesAreCycles() bool {
 	seen := make([]int32, w.n)
 	for v := range seen {
 		seen[v] = -1
@@ -241,7 +234,7 @@ func (w *convexWood) facesAreCycles() bool {
 // and Nishizeki (1985): nodes in order of falling degree, each looking at
 // 2-paths through not yet processed nodes, which costs O(arboricity * edges)
 // = O(m) for this planar graph.
-func (w *convexWood) triconnected() bool {
+func (w *wood) triconnected() bool {
 	emb := w.emb
 	n := int32(w.n)
 	total := int(n) + w.nf
@@ -337,7 +330,7 @@ func (w *convexWood) triconnected() bool {
 // trivialFourCycle reports whether the incidence 4-cycle x, y1, z, y2 is the
 // one around an edge. a1 is the corner x-y1, b1 the corner y1-z, a2 the
 // corner x-y2.
-func (w *convexWood) trivialFourCycle(x, z, a1, b1, a2 int32) bool {
+func (w *wood) trivialFourCycle(x, z, a1, b1, a2 int32) bool {
 	emb := w.emb
 	n := int32(w.n)
 	if x < n {
@@ -356,7 +349,7 @@ func (w *convexWood) trivialFourCycle(x, z, a1, b1, a2 int32) bool {
 		emb.Head(b1) == q && w.face[b1^1] == f
 }
 
-// convexPeel is the state of the canonical-ordering peel. The current graph
+// peeling is the state of the canonical-ordering peel. The current graph
 // H = G_k is 2-connected; its outer cycle is the contour, a path from a1 to
 // a2 over the top, closed by the base edge a2 a1. For every inner face of
 // H it keeps outv (contour vertices on it) and oute (contour edges on it,
@@ -379,8 +372,8 @@ func (w *convexWood) trivialFourCycle(x, z, a1, b1, a2 int32) bool {
 // undone, and Kant (1996) shows that a removable vertex or chain always
 // exists until only the base face is left; should none be found, peel
 // reports an internal error rather than guessing.
-type convexPeel struct {
-	w            *convexWood
+type peeling struct {
+	w            *wood
 	rnext, rprev []int32 // rotation of H: removed darts are unlinked
 	dead         []bool  // face merged into the outer face
 	outv, oute   []int32
@@ -400,8 +393,8 @@ type convexPeel struct {
 	removedCount int
 }
 
-func (w *convexWood) internal(format string, args ...any) error {
-	return fmt.Errorf("%w: "+format, append([]any{errConvexInternal}, args...)...)
+func (w *wood) internal(format string, args ...any) error {
+	return fmt.Errorf("%w: "+format, append([]any{errInternal}, args...)...)
 }
 
 // peel computes a canonical ordering of the 3-connected plane graph with
@@ -416,11 +409,11 @@ func (w *convexWood) internal(format string, args ...any) error {
 // described by Felsner 2001 and in his book "Geometric Graphs and
 // Arrangements", 2004). The half-edges at a1, a2, a3 close the wood; check
 // verifies the result against the axioms instead of trusting this.
-func (w *convexWood) peel(outer int32) error {
+func (w *wood) peel(outer int32) error {
 	emb := w.emb
 	n := w.n
 	nd := 2 * w.m
-	p := &convexPeel{
+	p := &peeling{
 		w:        w,
 		rnext:    make([]int32, nd),
 		rprev:    make([]int32, nd),
@@ -517,12 +510,12 @@ func (w *convexWood) peel(outer int32) error {
 			return err
 		}
 	}
-	w.out[0][a1], w.out[1][a1] = convexHalfEdge, outer^1
-	w.out[0][a2], w.out[1][a2] = outer, convexHalfEdge
+	w.out[0][a1], w.out[1][a1] = halfEdge, outer^1
+	w.out[0][a2], w.out[1][a2] = outer, halfEdge
 	if w.out[2][a3] != -1 {
 		return w.internal("the last vertex has a colour-3 edge")
 	}
-	w.out[2][a3] = convexHalfEdge
+	w.out[2][a3] = halfEdge
 	for i := range w.out {
 		for v, d := range w.out[i] {
 			if d == -1 {
@@ -534,7 +527,7 @@ func (w *convexWood) peel(outer int32) error {
 }
 
 // score computes sc(t) from scratch.
-func (p *convexPeel) score(t int32) int32 {
+func (p *peeling) score(t int32) int32 {
 	d := p.outDart[t]
 	s := int32(0)
 	for range p.deg[t] {
@@ -546,9 +539,9 @@ func (p *convexPeel) score(t int32) int32 {
 	return s
 }
 
-func (p *convexPeel) contrib(f int32) int32 { return min(p.outv[f]-1, 2) }
+func (p *peeling) contrib(f int32) int32 { return min(p.outv[f]-1, 2) }
 
-func (p *convexPeel) singletonFeasible(z int32) bool {
+func (p *peeling) singletonFeasible(z int32) bool {
 	w := p.w
 	if !p.onC[z] || p.removed[z] || z == w.a[0] || z == w.a[1] {
 		return false
@@ -564,7 +557,7 @@ func (p *convexPeel) singletonFeasible(z int32) bool {
 }
 
 // unlink removes dart t from the rotation of its tail.
-func (p *convexPeel) unlink(t int32) {
+func (p *peeling) unlink(t int32) {
 	a, b := p.rprev[t], p.rnext[t]
 	p.rnext[a], p.rprev[b] = b, a
 	y := p.w.emb.Tail(t)
@@ -572,8 +565,8 @@ func (p *convexPeel) unlink(t int32) {
 	p.touched[y] = true
 }
 
-// singleton removes the contour vertex z; see convexPeel.
-func (p *convexPeel) singleton(z int32) error {
+// singleton removes the contour vertex z; see peeling.
+func (p *peeling) singleton(z int32) error {
 	w := p.w
 	emb := w.emb
 	dr := p.outDart[z] // z -> right contact
@@ -615,8 +608,8 @@ func (p *convexPeel) singleton(z int32) error {
 	return p.expose(cp, cq, start)
 }
 
-// chain removes the contour vertices of degree 2 on face f; see convexPeel.
-func (p *convexPeel) chain(f int32) error {
+// chain removes the contour vertices of degree 2 on face f; see peeling.
+func (p *peeling) chain(f int32) error {
 	w := p.w
 	emb := w.emb
 	ds := w.darts(f)
@@ -689,7 +682,7 @@ func (p *convexPeel) chain(f int32) error {
 
 // expose makes the path from cp to cq that starts with dart a and follows
 // the faces just opened the new contour between cp and cq.
-func (p *convexPeel) expose(cp, cq, a int32) error {
+func (p *peeling) expose(cp, cq, a int32) error {
 	w := p.w
 	emb := w.emb
 	p.outDart[cp] = a
@@ -726,7 +719,7 @@ func (p *convexPeel) expose(cp, cq, a int32) error {
 
 // join updates the face counters for x, which has just come onto the
 // contour.
-func (p *convexPeel) join(x int32) {
+func (p *peeling) join(x int32) {
 	w := p.w
 	p.sc[x] = 0
 	d := p.outDart[x]
@@ -753,7 +746,7 @@ func (p *convexPeel) join(x int32) {
 }
 
 // outColour returns i if d is the colour-(i+1) dart of its tail, else -1.
-func (w *convexWood) outColour(d int32) int {
+func (w *wood) outColour(d int32) int {
 	t := w.emb.Tail(d)
 	for i := range 3 {
 		if w.out[i][t] == d {
@@ -772,7 +765,7 @@ func (w *convexWood) outColour(d int32) int {
 // i+1 and i-1; (W3) no inner face is bounded by a directed cycle of one
 // colour. The corner after the colour-(i+1) dart, up to the next outgoing
 // dart, is labelled i+2 (0-based: (i+2)%3), the label of its sector.
-func (w *convexWood) check() error {
+func (w *wood) check() error {
 	emb := w.emb
 	w.lab = make([]int8, 2*w.m)
 	for v := int32(0); int(v) < w.n; v++ {
@@ -780,7 +773,7 @@ func (w *convexWood) check() error {
 			d := w.out[i][v]
 			half := w.a[i] == v
 			switch {
-			case half != (d == convexHalfEdge):
+			case half != (d == halfEdge):
 				return w.internal("vertex %d: half-edge of colour %d misplaced", v, i+1)
 			case !half && (d < 0 || emb.Tail(d) != v):
 				return w.internal("vertex %d: bad dart of colour %d", v, i+1)
@@ -792,7 +785,7 @@ func (w *convexWood) check() error {
 	for v := int32(0); int(v) < w.n; v++ {
 		half := -1
 		for i := range 3 {
-			if w.out[i][v] == convexHalfEdge {
+			if w.out[i][v] == halfEdge {
 				half = i
 			}
 		}
@@ -874,7 +867,7 @@ func (w *convexWood) check() error {
 //	           - sum over such nested b on either path of S_i(b),
 //
 // and each sum is accumulated from the root down along its tree.
-func (w *convexWood) faceCounts() ([3][]int64, error) {
+func (w *wood) faceCounts() ([3][]int64, error) {
 	emb := w.emb
 	n := w.n
 	var coord [3][]int64
@@ -909,7 +902,7 @@ func (w *convexWood) faceCounts() ([3][]int64, error) {
 			}
 		}
 		var ok bool
-		if order[i], ok = convexTreeOrder(parent[i], w.a[i]); !ok {
+		if order[i], ok = treeOrder(parent[i], w.a[i]); !ok {
 			return coord, w.internal("colour %d is not a tree", i+1)
 		}
 	}
@@ -960,10 +953,10 @@ func (w *convexWood) faceCounts() ([3][]int64, error) {
 	return coord, nil
 }
 
-// convexTreeOrder lists the vertices of the tree given by parent (root has
+// treeOrder lists the vertices of the tree given by parent (root has
 // parent -1) from the root down, breadth first; ok is false unless root is
 // the only root and every vertex is reached.
-func convexTreeOrder(parent []int32, root int32) ([]int32, bool) {
+func treeOrder(parent []int32, root int32) ([]int32, bool) {
 	n := len(parent)
 	start := make([]int32, n+1)
 	for v, p := range parent {
@@ -1005,7 +998,7 @@ func convexTreeOrder(parent []int32, root int32) ([]int32, bool) {
 // leaves: every inner face turns only left or straight on, with at least
 // one left turn; the outer face the same with right turns. Signs are
 // exact (128-bit products).
-func (w *convexWood) checkConvex(x, y []int64) error {
+func (w *wood) checkConvex(x, y []int64) error {
 	emb := w.emb
 	for f := int32(0); int(f) < w.nf; f++ {
 		want := 1
