@@ -7,6 +7,7 @@ import (
 
 	"github.com/gridwood/gridwood/place/augment"
 	"github.com/gridwood/gridwood/place/convex"
+	"github.com/gridwood/gridwood/place/schnyder"
 	"github.com/gridwood/gridwood/planarize"
 )
 
@@ -301,7 +302,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, e
 	}
 	d := &Drawing{X: make([]int64, n), Y: make([]int64, n), Barycentric: make([][3]int32, n)}
 	tri := &triangulation{members: members}
-	ww := newWoodWork(n)
+	ww := schnyder.NewWork(n)
 	index := make([]int32, n) // position of a vertex within its component
 	var coord [][3]int32
 	var order []int32
@@ -341,11 +342,11 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, e
 			tri.triOuter[c] = outer
 		}
 		order = append(order[:0], make([]int32, len(vs))...)
-		if err := ww.canonicalOrder(work, outer, order); err != nil {
+		if err := ww.CanonicalOrder(work, outer, order); err != nil {
 			return nil, nil, err
 		}
 		coord = append(coord[:0], make([][3]int32, len(vs))...)
-		ww.barycentric(order, coord, index)
+		ww.Barycentric(order, coord, index)
 		if opt.Smooth > 0 && len(vs) >= 4 && len(vs) <= readableLimit && (convexAlt == nil || convexAlt[c][0] == nil) {
 			// No convex drawing of the input's own faces (not
 			// 3-connected): Felsner's drawing of the triangulation, with

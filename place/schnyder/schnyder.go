@@ -1,4 +1,4 @@
-package place
+package schnyder
 
 import (
 	"errors"
@@ -8,11 +8,12 @@ import (
 
 // errBadTriangulation reports a broken invariant; it means a bug, not bad
 // input, and is returned rather than panicking.
-var errBadTriangulation = errors.New("place: internal error: component is not a triangulation")
+var errBadTriangulation = errors.New("schnyder: internal error: component is not a triangulation")
 
-// woodWork holds per-vertex scratch arrays shared by all components, so
-// that a graph with many small components costs O(n) in total.
-type woodWork struct {
+// Work is the scratch space for Schnyder woods and their coordinates:
+// per-vertex arrays shared by all components of a graph, so that one with
+// many small components costs O(n) in total.
+type Work struct {
 	// The peeling state of each vertex sits in one record: the contour
 	// moves through the graph in no particular numbering, so a vertex
 	// touched costs one cache line instead of seven.
@@ -34,8 +35,9 @@ type peelState struct {
 	newIndex  int32 // its place among the vertices that step uncovered
 }
 
-func newWoodWork(n int) *woodWork {
-	w := &woodWork{peel: make([]peelState, n)}
+// NewWork returns scratch space for graphs of up to n vertices.
+func NewWork(n int) *Work {
+	w := &Work{peel: make([]peelState, n)}
 	for i := range 3 {
 		w.parent[i] = make([]int32, n)
 		w.size[i] = make([]int32, n)
@@ -47,7 +49,7 @@ func newWoodWork(n int) *woodWork {
 	return w
 }
 
-// canonicalOrder computes a canonical ordering (de Fraysseix, Pach and
+// CanonicalOrder computes a canonical ordering (de Fraysseix, Pach and
 // Pollack 1990) of one triangulated component whose outer face is the face
 // on the left of dart outer, and the Schnyder wood it induces (Schnyder
 // 1989). It peels vertices off the top: the current contour is a path from
@@ -57,7 +59,7 @@ func newWoodWork(n int) *woodWork {
 // edges v->wl in tree 1 and v->wr in tree 2, and each neighbour it uncovers
 // gets its outgoing edge of tree 3 towards v. order receives the ordering
 // v1 = a1, v2 = a2, ..., vn = a3 and must have the component's size.
-func (w *woodWork) canonicalOrder(emb *planarize.Embedding, outer int32, order []int32) error {
+func (w *Work) CanonicalOrder(emb *planarize.Embedding, outer int32, order []int32) error {
 	f0 := outer
 	f1 := emb.FaceNext(f0)
 	f2 := emb.FaceNext(f1)
@@ -167,7 +169,7 @@ func (w *woodWork) canonicalOrder(emb *planarize.Embedding, outer int32, order [
 	return nil
 }
 
-// barycentric computes Schnyder's weak barycentric representation by vertex
+// Barycentric computes Schnyder's weak barycentric representation by vertex
 // counts (W. Schnyder, "Embedding planar graphs on the grid", SODA 1990):
 // for an inner vertex v, x_i(v) = |R_i(v)| - |P_{i-1}(v)|, where P_j(v) is
 // the path of tree j from v to its root and R_i(v) the closed region bounded
@@ -179,7 +181,7 @@ func (w *woodWork) canonicalOrder(emb *planarize.Embedding, outer int32, order [
 // and tree-2 parents earlier. The outer vertices get (n-2, 1, 0),
 // (0, n-2, 1) and (1, 0, n-2). The coordinates of every vertex sum to n-1
 // and lie in [0, n-2].
-func (w *woodWork) barycentric(order []int32, coord [][3]int32, index []int32) {
+func (w *Work) Barycentric(order []int32, coord [][3]int32, index []int32) {
 	nc := len(order)
 	for _, v := range order {
 		for i := range 3 {
