@@ -404,33 +404,52 @@ func oppositeOf(m *Mesh, u, a, b int32) int32 {
 
 // side finds the triangle with the side from a to b, counter-clockwise
 // (b follows a in its corner order), and the corner opposite that side;
-// -1 if a and b are not joined.
+// -1 if a and b are not joined. It walks round whichever end has fewer
+// triangles, so that the sides at a hub cost what its neighbours' do.
 func (m *Mesh) side(a, b int32) (int32, int) {
-	t := m.at[a]
+	if m.deg[b] < m.deg[a] {
+		// Round b: the triangle where a comes just before b.
+		t := m.around(b, func(t int32, k int) bool { return m.tri[t][(k+2)%3] == a })
+		if t < 0 {
+			return -1, -1
+		}
+		return t, (m.corner(t, b) + 1) % 3
+	}
+	t := m.around(a, func(t int32, k int) bool { return m.tri[t][(k+1)%3] == b })
+	if t < 0 {
+		return -1, -1
+	}
+	return t, (m.corner(t, a) + 2) % 3
+}
+
+// around returns the first triangle at v, turning round it from m.at[v],
+// for which found(t, v's corner in t) holds; -1 if none.
+func (m *Mesh) around(v int32, found func(t int32, k int) bool) int32 {
+	t := m.at[v]
 	start := t
 	for {
-		k := m.corner(t, a)
-		if m.tri[t][(k+1)%3] == b {
-			return t, (k + 2) % 3
+		k := m.corner(t, v)
+		if found(t, k) {
+			return t
 		}
 		t = m.adj[t][(k+1)%3]
 		if t < 0 || t == start {
 			break
 		}
 	}
-	// a on the frame: its triangles do not close round; walk the other way.
+	// v on the frame: its triangles do not close round; walk the other way.
 	t = start
 	for t >= 0 {
-		k := m.corner(t, a)
-		if m.tri[t][(k+1)%3] == b {
-			return t, (k + 2) % 3
+		k := m.corner(t, v)
+		if found(t, k) {
+			return t
 		}
 		t = m.adj[t][(k+2)%3]
 		if t == start {
 			break
 		}
 	}
-	return -1, -1
+	return -1
 }
 
 // flippable reports whether the side of t opposite corner i can be

@@ -165,6 +165,10 @@ func (m *Mesh) Around(v int32) []int32 {
 	return out
 }
 
+// Spokes is the number of triangles at vertex v: its degree in the
+// triangulation, dummy sides included.
+func (m *Mesh) Spokes(v int32) int { return int(m.deg[v]) }
+
 // Fixed reports whether a and b are joined by a fixed side.
 func (m *Mesh) Fixed(a, b int32) bool {
 	t, i := m.side(a, b)

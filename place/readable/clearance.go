@@ -32,14 +32,22 @@ func (g *guard) findConflicts() {
 		reach = max(reach, g.hw[v]+g.gap, g.hh[v]+g.gap)
 	}
 	grid := newBucketGrid(g.x, g.y, 2*reach)
+	// A vertex lists at most maxConflicts conflicts, and an edge is
+	// looked at for at most that many boxes: where thousands of boxes pile
+	// up (a star's leaves on a small circle) every pair would be
+	// quadratic, and a few per vertex say as much about the crowding.
+	full := func(v int32) bool { return len(g.conflicts[v]) >= maxConflicts }
 	for v := range int32(n) {
 		cx, cy := grid.cellOf(g.x[v], g.y[v])
-		for gx := cx - 1; gx <= cx+1; gx++ {
-			for gy := cy - 1; gy <= cy+1; gy++ {
+		for gx := cx - 1; gx <= cx+1 && !full(v); gx++ {
+			for gy := cy - 1; gy <= cy+1 && !full(v); gy++ {
 				for _, w := range grid.at(gx, gy) {
-					if w > v && g.boxesMeet(v, w, g.x[v], g.y[v]) {
+					if w > v && !full(w) && g.boxesMeet(v, w, g.x[v], g.y[v]) {
 						g.conflicts[v] = append(g.conflicts[v], conflict{w: w})
 						g.conflicts[w] = append(g.conflicts[w], conflict{w: v})
+						if full(v) {
+							break
+						}
 					}
 				}
 			}
@@ -55,21 +63,25 @@ func (g *guard) findConflicts() {
 	}
 	for ei, e := range g.edges {
 		a, b := e[0], e[1]
+		found := 0
 		grid.walk(g.x[a], g.y[a], g.x[b], g.y[b], func(cx, cy int) {
-			for gx := cx - 1; gx <= cx+1; gx++ {
-				for gy := cy - 1; gy <= cy+1; gy++ {
+			for gx := cx - 1; gx <= cx+1 && found < maxConflicts; gx++ {
+				for gy := cy - 1; gy <= cy+1 && found < maxConflicts; gy++ {
 					c := grid.index(gx, gy)
 					if c < 0 || cellStamp[c] == int32(ei) {
 						continue
 					}
 					cellStamp[c] = int32(ei)
 					for _, w := range grid.cell(c) {
-						if w == a || w == b || stamp[w] == int32(ei) {
+						if w == a || w == b || stamp[w] == int32(ei) || full(w) {
 							continue
 						}
 						stamp[w] = int32(ei)
 						if g.edgeMeetsBox(w, g.x[w], g.y[w], a, b) {
 							g.conflicts[w] = append(g.conflicts[w], conflict{w: -1, edge: e})
+							if found++; found == maxConflicts {
+								break
+							}
 						}
 					}
 				}
@@ -77,6 +89,10 @@ func (g *guard) findConflicts() {
 		})
 	}
 }
+
+// maxConflicts bounds the conflicts findConflicts lists per vertex and
+// per edge.
+const maxConflicts = 32
 
 // bucketGrid files points into square cells over their bounding box,
 // counting-sorted so that a cell's points are one slice.

@@ -595,7 +595,7 @@ func (g *guard) boxDistance(v, a int32, ux, uy float64) float64 {
 // mesh.Jump) and v's cost there, its barrier in its new star, is below
 // here, its cost before; else v stays.
 func (g *guard) jump(v int32, px, py, tx, ty, w, here float64) bool {
-	if !g.jumps || !g.mesh.Jump(v, tx, ty) {
+	if !g.jumps || g.nearHub(v) || !g.mesh.Jump(v, tx, ty) {
 		return false
 	}
 	g.x[v], g.y[v] = tx, ty
@@ -609,6 +609,25 @@ func (g *guard) jump(v int32, px, py, tx, ty, w, here float64) bool {
 	}
 	return true // cannot go back (a side exactly in the way): stay there
 }
+
+// nearHub reports whether v or one of its neighbours in the triangulation
+// has more than maxJumpSpokes triangles: a jump walks around each of them,
+// and on a star every leaf trying one would cost the square of the
+// number of leaves.
+func (g *guard) nearHub(v int32) bool {
+	if g.mesh.Spokes(v) > maxJumpSpokes {
+		return true
+	}
+	for _, w := range g.mesh.Around(v) {
+		if g.mesh.Spokes(w) > maxJumpSpokes {
+			return true
+		}
+	}
+	return false
+}
+
+// maxJumpSpokes: see nearHub.
+const maxJumpSpokes = 64
 
 // segmentDistance is the distance from (px, py) to the segment from (ax,
 // ay) to (bx, by).

@@ -8,7 +8,7 @@ import (
 
 // Options tune NewModel. The zero value is the default.
 type Options struct {
-	// FullLimit is the largest graph that keeps every pair (default 1500);
+	// FullLimit is the largest graph that keeps every pair (default 400);
 	// larger ones use the sparse model.
 	FullLimit int
 	// Pivots is the number of pivots of the sparse model and of the
