@@ -204,37 +204,54 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	// more: a drawing that clears its boxes only at poster size is not
 	// readable.
 	limit := maxReadableGrowth * maxReadableGrowth * boxedArea(vs, sx, sy, hw, hh)
-	scale := 1.0
-	for attempt := 0; ; attempt++ {
-		if attempt > maxRoundings {
-			// Some spot of the drawing is crowded past what rounding and
-			// stretching can clear in reasonable size: the component is
-			// spaced from its grid drawing instead.
-			out.Readable--
-			return errCrowded
+	round := func(rx, ry []float64) (x, y []int64, area float64, unchecked, ok bool) {
+		scale := 1.0
+		for range maxRoundings + 1 {
+			fx, fy := make([]float64, k), make([]float64, k)
+			for i, v := range vs {
+				px[v] = int64(math.Round(float64(rx[i] * scale)))
+				py[v] = int64(math.Round(float64(ry[i] * scale)))
+				fx[i], fy[i] = float64(px[v]), float64(py[v])
+			}
+			if area = boxedArea(vs, px, py, hw, hh); area > limit {
+				return nil, nil, 0, false, false
+			}
+			if _, err := mesh.New(fx, fy, local, 0); err != nil {
+				scale *= 2
+				continue
+			}
+			s, checked := clearingStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
+			if s <= 1 {
+				x, y = make([]int64, k), make([]int64, k)
+				for i, v := range vs {
+					x[i], y[i] = px[v], py[v]
+				}
+				return x, y, area, !checked, true
+			}
+			scale *= s * 1.0001
 		}
-		fx, fy := make([]float64, k), make([]float64, k)
-		for i, v := range vs {
-			px[v] = int64(math.Round(float64(res.X[i] * scale)))
-			py[v] = int64(math.Round(float64(res.Y[i] * scale)))
-			fx[i], fy[i] = float64(px[v]), float64(py[v])
+		// Some spot of the drawing is crowded past what rounding and
+		// stretching can clear in reasonable size.
+		return nil, nil, 0, false, false
+	}
+	// Of the drawing after the margins phase and the one before it, the
+	// one that clears its boxes in less area; if neither does, the
+	// component is spaced from its grid drawing instead.
+	x, y, area, unchecked, ok := round(res.X, res.Y)
+	if res.BeforeMarginsX != nil {
+		if x2, y2, area2, unchecked2, ok2 := round(res.BeforeMarginsX, res.BeforeMarginsY); ok2 && (!ok || area2 < area) {
+			x, y, unchecked, ok = x2, y2, unchecked2, true
 		}
-		if boxedArea(vs, px, py, hw, hh) > limit {
-			out.Readable--
-			return errCrowded
-		}
-		if _, err := mesh.New(fx, fy, local, 0); err != nil {
-			scale *= 2
-			continue
-		}
-		s, checked := clearingStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
-		if !checked {
-			out.Unchecked++
-		}
-		if s <= 1 {
-			break
-		}
-		scale *= s * 1.0001
+	}
+	if !ok {
+		out.Readable--
+		return errCrowded
+	}
+	for i, v := range vs {
+		px[v], py[v] = x[i], y[i]
+	}
+	if unchecked {
+		out.Unchecked++
 	}
 	return nil
 }

@@ -52,8 +52,9 @@
 // A last phase ("margins") runs the same descent with each vertex's box
 // conflicts (a box too near another box or an edge) added to its target,
 // and locally inflates crowded spots, so that the boxes part with little
-// uniform stretching. Its result is kept only if, stretched to clear its
-// boxes, it is no larger than the drawing it started from: parting boxes
-// in one spot can press another tighter. Work is bounded in stress terms (Options.Work), and
+// uniform stretching. Parting boxes in one spot can press another
+// tighter, so the drawing from before the phase is returned as well
+// (Output.BeforeMarginsX, Y), for the caller to keep whichever clears its
+// boxes in less area by its own exact check. Work is bounded in stress terms (Options.Work), and
 // every phase by a number of sweeps: the result never depends on a clock.
 package readable

@@ -76,6 +76,9 @@ type Output struct {
 	// Stress is the model's stress of the result (over the model's pairs),
 	// and StartStress that of the rescaled start.
 	Stress, StartStress float64
+	// BeforeMarginsX, BeforeMarginsY are the drawing as it was before the
+	// margins phase (nil if the phase did not run).
+	BeforeMarginsX, BeforeMarginsY []float64
 	// Gain is the model's stress of the result over that of the start,
 	// each at its best scale: below 1 where the result reads better by the
 	// model's own ideal distances (edge extras and groups included).
@@ -302,21 +305,14 @@ func Draw(in Input, opt Options) (*Output, error) {
 	}
 	t = time.Now()
 	// The margins phase can press a knot tighter while parting boxes
-	// elsewhere: its result is kept only if, once stretched to clear its
-	// boxes, it is no larger than the drawing it started from.
-	keepX, keepY := slices.Clone(best.x), slices.Clone(best.y)
-	before := extent(keepX, keepY) * best.stretchNeeded()
+	// elsewhere: the drawing before it is returned too, for the caller to
+	// weigh by its own exact clearance.
+	out.BeforeMarginsX, out.BeforeMarginsY = slices.Clone(best.x), slices.Clone(best.y)
 	best.margins = true
 	k = best.run(min(maxMarginSweeps, sweepsFor(marginShare)), runTolerance)
 	phase("margins", k, best.x, best.y, t)
-	after := best.stretchNeeded()
-	out.Phases[len(out.Phases)-1].Stretch = after
+	out.Phases[len(out.Phases)-1].Stretch = best.stretchNeeded()
 	out.X, out.Y = best.x, best.y
-	if extent(best.x, best.y)*after > before {
-		out.X, out.Y = keepX, keepY
-		out.Phases[len(out.Phases)-1].Name = "margins (undone)"
-	}
-	best.x, best.y = out.X, out.Y
 	out.Stress = model.Stress(best.x, best.y)
 	out.Gain = gain(model, best.x, best.y, in.X, in.Y)
 	return out, nil
