@@ -100,7 +100,7 @@ func checkFile(w io.Writer, f *dotio.File) (int, error) {
 	for gi, g := range f.Graphs {
 		probs := checkGraph(g, gi)
 		for _, p := range probs {
-			fmt.Fprintf(bw, "%s:%d:%d: %s\n", f.Name, p.line, p.col, p.msg)
+			fmt.Fprintf(bw, "%s\n", positioned(f.Name, p.line, p.col, "%s", p.msg))
 		}
 		total += len(probs)
 	}

@@ -130,8 +130,8 @@ func warnClusters(note func(format string, args ...any), name string, g *dotio.G
 		if k > 1 {
 			more = fmt.Sprintf(" (and %d more such in %s)", k-1, g.Describe(gi))
 		}
-		note("gridwood: %s:%d:%d: node %s is in cluster %s (line %d) and in cluster %s, neither inside the other; it stays in the first%s\n",
-			name, dropped.Line, dropped.Col, strconv.Quote(n.Name), strconv.Quote(kept.Name), kept.Line, strconv.Quote(dropped.Name), more)
+		note("gridwood: %s\n", positioned(name, dropped.Line, dropped.Col, "node %s is in cluster %s (line %d) and in cluster %s, neither inside the other; it stays in the first%s",
+			strconv.Quote(n.Name), strconv.Quote(kept.Name), kept.Line, strconv.Quote(dropped.Name), more))
 	}
 	empty, first := 0, -1
 	for c := range set.Clusters {
@@ -148,7 +148,7 @@ func warnClusters(note func(format string, args ...any), name string, g *dotio.G
 		if empty > 1 {
 			more = fmt.Sprintf(" (and %d more in %s)", empty-1, g.Describe(gi))
 		}
-		note("gridwood: %s:%d:%d: cluster %s has no nodes and gets no frame%s\n", name, cl.Line, cl.Col, strconv.Quote(cl.Name), more)
+		note("gridwood: %s\n", positioned(name, cl.Line, cl.Col, "cluster %s has no nodes and gets no frame%s", strconv.Quote(cl.Name), more))
 	}
 }
 

@@ -176,7 +176,7 @@ func process(cfg *config, std *stdStreams) error {
 			step := func(stage string, done float64) {
 				prog.set(drawing+stage, pct(ii, 0.4+0.5*(before+done*share)/float64(totalEdges)))
 			}
-			res, lay, _, gr, err := layoutGraph(cfg, g, gi, fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, g.Describe(gi)), step)
+			res, lay, _, gr, err := layoutGraph(cfg, g, gi, positioned(name, g.Line, g.Col, "%s", g.Describe(gi)), step)
 			if err != nil {
 				return err
 			}
@@ -189,7 +189,7 @@ func process(cfg *config, std *stdStreams) error {
 				if gr.caps.count > 1 {
 					more = fmt.Sprintf(" (and %d more in %s)", gr.caps.count-1, g.Describe(gi))
 				}
-				prog.note("gridwood: %s:%d:%d: node %s: its label needs a box over 1000 inches a side; the box was taken as 1000 inches%s\n", name, n.Line, n.Col, strconv.Quote(n.Name), more)
+				prog.note("gridwood: %s\n", positioned(name, n.Line, n.Col, "node %s: its label needs a box over 1000 inches a side; the box was taken as 1000 inches%s", strconv.Quote(n.Name), more))
 			}
 			layouts[gi], removed[gi] = lay, res.Removed
 			if !cfg.quiet {
@@ -197,7 +197,7 @@ func process(cfg *config, std *stdStreams) error {
 					warnClusters(prog.note, name, g, gi, clusters.set)
 				}
 				if _, value, ok := flowDirection(g); g.Directed && !ok {
-					prog.note("gridwood: %s:%d:%d: %s: rankdir %s is not TB, LR, BT or RL; taken as TB\n", name, g.Line, g.Col, g.Describe(gi), strconv.Quote(value))
+					prog.note("gridwood: %s\n", positioned(name, g.Line, g.Col, "%s: rankdir %s is not TB, LR, BT or RL; taken as TB", g.Describe(gi), strconv.Quote(value)))
 				}
 			}
 			if cfg.svgFile != "" {
@@ -219,7 +219,7 @@ func process(cfg *config, std *stdStreams) error {
 			if len(res.Removed) == 0 {
 				continue
 			}
-			where := fmt.Sprintf("%s:%d:%d: %s", name, g.Line, g.Col, g.Describe(gi))
+			where := positioned(name, g.Line, g.Col, "%s", g.Describe(gi))
 			removedN, edgesN := edgeCounts(g, res.Removed)
 			if cfg.planarOnly {
 				return &exitError{exitNonPlanar, fmt.Sprintf("%s is not planar: %d of %d edges would have to be removed", where, removedN, edgesN)}
@@ -600,7 +600,7 @@ func warnPinned(p *progress, name string, f *dotio.File) {
 			}
 		}
 		if pinned > 0 {
-			p.note("gridwood: %s:%d:%d: %s: %d pinned positions (pos=\"...!\") replaced by the layout\n", name, g.Line, g.Col, g.Describe(gi), pinned)
+			p.note("gridwood: %s\n", positioned(name, g.Line, g.Col, "%s: %d pinned positions (pos=\"...!\") replaced by the layout", g.Describe(gi), pinned))
 		}
 	}
 }
@@ -626,7 +626,14 @@ func warnSizes(p *progress, name string, f *dotio.File) {
 			if count > 1 {
 				more = fmt.Sprintf(" (and %d more sizes in %s)", count-1, g.Describe(gi))
 			}
-			p.note("gridwood: %s:%d:%d: node %s: %s is not a size below 1000 and was taken as the default%s\n", name, n.Line, n.Col, strconv.Quote(n.Name), what, more)
+			p.note("gridwood: %s\n", positioned(name, n.Line, n.Col, "node %s: %s is not a size below 1000 and was taken as the default%s", strconv.Quote(n.Name), what, more))
 		}
 	}
+}
+
+// positioned formats a message at a place in a DOT file as dotio.Error
+// does ("file:line:col: message"), so that every positioned message reads
+// the same.
+func positioned(file string, line, col int, format string, args ...any) string {
+	return (&dotio.Error{File: file, Line: line, Col: col, Msg: fmt.Sprintf(format, args...)}).Error()
 }

@@ -98,7 +98,7 @@ func appendInputPictures(pictures []preview.Graph, f *dotio.File, quiet bool, st
 		pg, why := previewOfInput(g)
 		if why != "" {
 			if !quiet {
-				fmt.Fprintf(stderr, "gridwood: %s:%d:%d: %s: not in the preview: %s\n", f.Name, g.Line, g.Col, g.Describe(gi), why)
+				fmt.Fprintf(stderr, "gridwood: %s\n", positioned(f.Name, g.Line, g.Col, "%s: not in the preview: %s", g.Describe(gi), why))
 			}
 			continue
 		}
