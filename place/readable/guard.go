@@ -610,9 +610,9 @@ func (g *guard) jump(v int32, px, py, tx, ty, w, here float64) bool {
 	return true // cannot go back (a side exactly in the way): stay there
 }
 
-// nearHub reports whether v or one of its neighbours in the triangulation
-// has more than maxJumpSpokes triangles: a jump walks around each of them,
-// and on a star every leaf trying one would cost the square of the
+// nearHub reports whether v or one of its neighbours in the graph has
+// more than maxJumpSpokes triangles around it: a jump walks round each of
+// them, and on a star every leaf trying one would cost the square of the
 // number of leaves.
 func (g *guard) nearHub(v int32) bool {
 	if g.mesh.Spokes(v) > maxJumpSpokes {
