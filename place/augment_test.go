@@ -78,7 +78,7 @@ type augmentCheck struct {
 }
 
 func newAugmentCheck(name string, orig *planarize.Embedding) *augmentCheck {
-	label, members := graphgen.Components(orig.N(), embeddingEdges(orig))
+	label, members := graphgen.Components(orig.N(), orig.Edges())
 	return &augmentCheck{name: name, orig: orig, label: label, members: members}
 }
 
@@ -137,7 +137,7 @@ func (a *augmentCheck) checkCommon(t *testing.T, stage string, work *planarize.E
 // method, run by a different package).
 func (a *augmentCheck) checkBiconnected(t *testing.T, work *planarize.Embedding) {
 	t.Helper()
-	edges := embeddingEdges(work)
+	edges := work.Edges()
 	block, _ := planarize.Blocks(work.N(), edges)
 	compBlock := make([]int, len(a.members))
 	for c := range compBlock {
@@ -242,7 +242,7 @@ func augmented(t *testing.T, name string, emb *planarize.Embedding) *planarize.E
 
 // blockCount returns the number of blocks of emb's graph.
 func blockCount(emb *planarize.Embedding) int {
-	_, count := planarize.Blocks(emb.N(), embeddingEdges(emb))
+	_, count := planarize.Blocks(emb.N(), emb.Edges())
 	return count
 }
 

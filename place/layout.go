@@ -132,10 +132,9 @@ var (
 
 // simpleEdges reports whether no edge is a loop and no pair repeats.
 func simpleEdges(emb *planarize.Embedding) bool {
-	edges := make([][2]int32, emb.M())
-	for i := range edges {
-		edges[i] = emb.Edge(i)
-		if edges[i][0] == edges[i][1] {
+	edges := emb.Edges()
+	for _, e := range edges {
+		if e[0] == e[1] {
 			return false
 		}
 	}

@@ -27,15 +27,6 @@ func mustEmbed(tb testing.TB, g graphgen.Graph) *planarize.Embedding {
 	return emb
 }
 
-// embeddingEdges lists the edges of emb in index order.
-func embeddingEdges(emb *planarize.Embedding) [][2]int32 {
-	out := make([][2]int32, emb.M())
-	for i := range out {
-		out[i] = emb.Edge(i)
-	}
-	return out
-}
-
 func drawingPoints(d *Drawing) []geomcheck.Point {
 	pts := make([]geomcheck.Point, len(d.X))
 	for v := range pts {
@@ -267,7 +258,7 @@ func countFaces(emb *planarize.Embedding, label []int, comps int) []int {
 // them; an isolated vertex has no darts.
 func checkEuler(tb testing.TB, name string, emb *planarize.Embedding) {
 	tb.Helper()
-	edges := embeddingEdges(emb)
+	edges := emb.Edges()
 	label, members := graphgen.Components(emb.N(), edges)
 	faces := countFaces(emb, label, len(members))
 	ecount := make([]int, len(members))
@@ -312,7 +303,7 @@ func layoutEmbeddingAndCheck(tb testing.TB, name string, emb *planarize.Embeddin
 	if after := snapshot(emb); !reflect.DeepEqual(before, after) {
 		tb.Errorf("%s: Layout modified its input embedding", name)
 	}
-	checkDrawing(tb, name, emb.N(), embeddingEdges(emb), d)
+	checkDrawing(tb, name, emb.N(), emb.Edges(), d)
 	return d
 }
 
@@ -326,7 +317,7 @@ type embeddingState struct {
 }
 
 func snapshot(emb *planarize.Embedding) embeddingState {
-	s := embeddingState{N: emb.N(), M: emb.M(), Edges: embeddingEdges(emb)}
+	s := embeddingState{N: emb.N(), M: emb.M(), Edges: emb.Edges()}
 	for d := int32(0); int(d) < 2*emb.M(); d++ {
 		s.Next = append(s.Next, emb.Next(d))
 		s.Prev = append(s.Prev, emb.Prev(d))
@@ -642,7 +633,7 @@ func withNeighbourOrder(tb testing.TB, g graphgen.Graph, order [][]int32) *plana
 // planar when emb is.
 func mirrored(tb testing.TB, emb *planarize.Embedding) *planarize.Embedding {
 	tb.Helper()
-	return withRotation(tb, emb.N(), embeddingEdges(emb), func(v int32, darts []int32) {
+	return withRotation(tb, emb.N(), emb.Edges(), func(v int32, darts []int32) {
 		f := emb.First(v)
 		if f < 0 {
 			return
@@ -776,7 +767,7 @@ func TestLayoutInvalidEmbeddings(t *testing.T) {
 					t.Errorf("%s: Layout panics: %v", c.name, r)
 				}
 			}()
-			edges := embeddingEdges(c.emb)
+			edges := c.emb.Edges()
 			d, err := Layout(c.emb, Options{})
 			if err != nil {
 				return
@@ -873,7 +864,7 @@ func TestCheckersCatchDefects(t *testing.T) {
 	g := graphgen.DisjointUnion(graphgen.RandomMaximalPlanar(30, 1), graphgen.Path(2),
 		graphgen.Graph{N: 1}, graphgen.RandomPlanar(40, 0.7, 2))
 	emb := mustEmbed(t, g)
-	edges := embeddingEdges(emb)
+	edges := emb.Edges()
 	good, err := Layout(emb, Options{})
 	if err != nil {
 		t.Fatal(err)

@@ -145,10 +145,7 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	for i, v := range vs {
 		index[v] = int32(i)
 	}
-	local := make([][2]int32, emb.M())
-	for i := range local {
-		local[i] = emb.Edge(i)
-	}
+	local := emb.Edges()
 	// An edge may pass a box at three quarters of the distance two boxes
 	// keep (and no nearer than the spacing rule's edgeGap): room enough to
 	// read, and less stretching than the full gap asks where boxes crowd

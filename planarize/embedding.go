@@ -1,5 +1,7 @@
 package planarize
 
+import "slices"
+
 // An Embedding is a combinatorial embedding (rotation system) of a simple
 // undirected graph on the vertices 0..N()-1.
 //
@@ -37,6 +39,9 @@ func (e *Embedding) M() int { return len(e.edges) }
 
 // Edge returns the two ends of edge i.
 func (e *Embedding) Edge(i int) [2]int32 { return e.edges[i] }
+
+// Edges returns a copy of the edge list, edge i at index i.
+func (e *Embedding) Edges() [][2]int32 { return slices.Clone(e.edges) }
 
 // Tail returns the vertex dart d leaves.
 func (e *Embedding) Tail(d int32) int32 { return e.edges[d>>1][d&1] }

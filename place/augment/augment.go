@@ -37,11 +37,7 @@ func Biconnect(emb *planarize.Embedding, skip func(int32) bool) {
 // blocks labels every edge of emb with its biconnected component
 // (planarize.Blocks).
 func blocks(emb *planarize.Embedding) []int32 {
-	edges := make([][2]int32, emb.M())
-	for i := range edges {
-		edges[i] = emb.Edge(i)
-	}
-	block, _ := planarize.Blocks(emb.N(), edges)
+	block, _ := planarize.Blocks(emb.N(), emb.Edges())
 	return block
 }
 

@@ -68,7 +68,7 @@ func cvxCheck(tb testing.TB, name string, emb *planarize.Embedding, outer int32,
 		}
 		pts[v] = geomcheck.Point{X: x[v], Y: y[v]}
 	}
-	probs, err := geomcheck.First(pts, embeddingEdges(emb), 1)
+	probs, err := geomcheck.First(pts, emb.Edges(), 1)
 	if err != nil || len(probs) > 0 {
 		tb.Errorf("%s: geomcheck: %v %v", name, probs, err)
 		return false
@@ -651,7 +651,7 @@ func TestConvexBadInput(t *testing.T) {
 	// A rotation system of K4 that is not plane: edges added in some order
 	// with every dart appended to its vertex's rotation; search the orders
 	// for one with the wrong Euler characteristic.
-	edges := embeddingEdges(k4)
+	edges := k4.Edges()
 	found := false
 	perm := []int{0, 1, 2, 3, 4, 5}
 	for !found {
@@ -981,13 +981,4 @@ func mustEmbed(tb testing.TB, g graphgen.Graph) *planarize.Embedding {
 		tb.Fatalf("%s: planarize.Embed calls a planar graph non-planar", g.Name)
 	}
 	return emb
-}
-
-// embeddingEdges lists the edges of emb in index order.
-func embeddingEdges(emb *planarize.Embedding) [][2]int32 {
-	out := make([][2]int32, emb.M())
-	for i := range out {
-		out[i] = emb.Edge(i)
-	}
-	return out
 }

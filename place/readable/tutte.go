@@ -119,10 +119,7 @@ func convexStart(emb *planarize.Embedding, tx, ty []float64, lengths map[[2]int3
 // the left of dart outer and joined to each of that face's corners.
 func addHub(emb *planarize.Embedding, outer int32) (*planarize.Embedding, bool) {
 	n := emb.N()
-	edges := make([][2]int32, emb.M())
-	for i := range edges {
-		edges[i] = emb.Edge(i)
-	}
+	edges := emb.Edges()
 	around := make([][]int32, n+1)
 	for v := range int32(n) {
 		if f := emb.First(v); f >= 0 {
