@@ -613,13 +613,14 @@ func (g *guard) jump(v int32, px, py, tx, ty, w, here float64) bool {
 // nearHub reports whether v or one of its neighbours in the graph has
 // more than maxJumpSpokes triangles around it: a jump walks round each of
 // them, and on a star every leaf trying one would cost the square of the
-// number of leaves.
+// number of leaves. It reads v's star from g.corner, which step has
+// filled.
 func (g *guard) nearHub(v int32) bool {
 	if g.mesh.Spokes(v) > maxJumpSpokes {
 		return true
 	}
-	for _, w := range g.mesh.Around(v) {
-		if g.mesh.Spokes(w) > maxJumpSpokes {
+	for _, c := range g.corner {
+		if c.VA && g.mesh.Spokes(c.A) > maxJumpSpokes {
 			return true
 		}
 	}
