@@ -5,6 +5,16 @@ import "math/bits"
 // CrossSign returns the sign of ax*by - ay*bx, computed exactly in 128
 // bits; |ax|, |ay|, |bx|, |by| must be below 2^62.
 func CrossSign(ax, ay, bx, by int64) int {
+	if small(ax) && small(ay) && small(bx) && small(by) {
+		// Both products below 2^62: their difference fits in int64.
+		switch d := ax*by - ay*bx; {
+		case d > 0:
+			return 1
+		case d < 0:
+			return -1
+		}
+		return 0
+	}
 	h1, l1 := mul128(ax, by)
 	h2, l2 := mul128(ay, bx)
 	switch {
@@ -28,6 +38,9 @@ func CrossSign(ax, ay, bx, by int64) int {
 func OrientInt(px, py, qx, qy, rx, ry int64) int {
 	return CrossSign(qx-px, qy-py, rx-px, ry-py)
 }
+
+// small reports whether |v| < 2^31.
+func small(v int64) bool { return v > -1<<31 && v < 1<<31 }
 
 // mul128 returns a*b as a 128-bit two's-complement number; |a|, |b| <
 // 2^62.

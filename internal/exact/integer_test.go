@@ -6,16 +6,21 @@ import (
 	"testing"
 )
 
-// CrossSign against math/big on random products near 2^124, where int64
-// arithmetic would overflow: the standard library's arbitrary precision
-// integers are the outside reference.
+// CrossSign against math/big, on small values (its int64 path) and on
+// products near 2^124, where int64 arithmetic would overflow: the standard
+// library's arbitrary precision integers are the outside reference.
 func TestCrossSignAgainstBig(t *testing.T) {
 	r := rand.New(rand.NewPCG(1, 2))
 	const limit = 1 << 61
 	for range 20000 {
 		v := [4]int64{}
+		// Half the draws small enough for the int64 path, half not.
+		bound := int64(limit)
+		if r.IntN(2) == 0 {
+			bound = 1 << 31
+		}
 		for i := range v {
-			v[i] = r.Int64N(2*limit) - limit
+			v[i] = r.Int64N(2*bound) - bound
 		}
 		if r.IntN(4) == 0 {
 			v[2], v[3] = v[0], v[1] // equal products: a zero cross product
