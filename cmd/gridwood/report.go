@@ -66,9 +66,6 @@ type graphReport struct {
 	Stress            float64 `json:"stress"`
 	EdgeLengthCV      float64 `json:"edge_length_cv"`
 	AngularResolution float64 `json:"angular_resolution"`
-
-	caps     boxCaps      // for the command's note, not the report
-	clusters *clusterInfo // for the command's notes and the preview
 }
 
 // graphMeasures fills a report record from one laid-out graph.

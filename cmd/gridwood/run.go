@@ -176,18 +176,17 @@ func process(cfg *config, std *stdStreams) error {
 			step := func(stage string, done float64) {
 				prog.set(drawing+stage, pct(ii, 0.4+0.5*(before+done*share)/float64(totalEdges)))
 			}
-			res, lay, _, gr, err := layoutGraph(cfg, g, gi, positioned(name, g.Line, g.Col, "%s", g.Describe(gi)), step)
+			out, err := layoutGraph(cfg, g, gi, positioned(name, g.Line, g.Col, "%s", g.Describe(gi)), step)
 			if err != nil {
 				return err
 			}
-			clusters := gr.clusters
-			gr.clusters = nil // the report keeps figures only
-			rep.Graphs = append(rep.Graphs, gr)
-			if gr.caps.count > 0 && !cfg.quiet {
-				n := g.Nodes[gr.caps.first]
+			res, lay, clusters, caps := out.res, out.lay, out.clusters, out.caps
+			rep.Graphs = append(rep.Graphs, out.report)
+			if caps.count > 0 && !cfg.quiet {
+				n := g.Nodes[caps.first]
 				more := ""
-				if gr.caps.count > 1 {
-					more = fmt.Sprintf(" (and %d more in %s)", gr.caps.count-1, g.Describe(gi))
+				if caps.count > 1 {
+					more = fmt.Sprintf(" (and %d more in %s)", caps.count-1, g.Describe(gi))
 				}
 				prog.note("gridwood: %s\n", positioned(name, n.Line, n.Col, "node %s: its label needs a box over 1000 inches a side; the box was taken as 1000 inches%s", strconv.Quote(n.Name), more))
 			}
@@ -369,9 +368,20 @@ func readInput(in string, stdin io.Reader, stdinUsed *bool) ([]byte, string, err
 	return src, in, nil
 }
 
-// layoutGraph draws one graph, converts grid points to DOT positions, and
-// returns the node boxes it spaced for (the SVG draws the same ones).
-func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(stage string, done float64)) (*place.Result, dotio.Layout, place.Boxes, graphReport, error) {
+// graphLayout is what layoutGraph makes of one graph: the drawing, the
+// layout to write, its report record (empty without --report), the boxes
+// it capped (for a note) and the graph's clusters (for notes and the
+// preview's frames).
+type graphLayout struct {
+	res      *place.Result
+	lay      dotio.Layout
+	report   graphReport
+	caps     boxCaps
+	clusters *clusterInfo
+}
+
+// layoutGraph draws one graph and converts grid points to DOT positions.
+func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(stage string, done float64)) (graphLayout, error) {
 	edges := make([][2]int32, len(g.Edges))
 	for i, e := range g.Edges {
 		edges[i] = [2]int32{e.From, e.To}
@@ -393,10 +403,10 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 		Progress: func(stage string, done float64) { step(stage, 0.85*done) },
 	})
 	if errors.Is(err, place.ErrOuter) {
-		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, &exitError{exitBadInput, fmt.Sprintf("%s: --outer %s: no drawing has all of these nodes on its outer boundary (they may lie in different components, or the planar part keeps them apart)", where, strings.Join(cfg.outer, ","))}
+		return graphLayout{}, &exitError{exitBadInput, fmt.Sprintf("%s: --outer %s: no drawing has all of these nodes on its outer boundary (they may lie in different components, or the planar part keeps them apart)", where, strings.Join(cfg.outer, ","))}
 	}
 	if err != nil {
-		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+		return graphLayout{}, err
 	}
 	boxes, caps := cappedNodeBoxes(g)
 	step("spacing", 0.85)
@@ -407,7 +417,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 		opt := place.ReadableOptions{EdgeExtra: labelRoom(g), Groups: clusterChains(set)}
 		if g.Directed && !cfg.noFlow {
 			if opt.Flow, opt.FlowDir, err = flowPairs(g); err != nil {
-				return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+				return graphLayout{}, err
 			}
 		}
 		sp, err = res.Readable(boxes, opt)
@@ -415,7 +425,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 		sp, err = res.Space(boxes, place.SpaceOptions{Unit: int64(cfg.unit), GridOnly: cfg.gridOnly})
 	}
 	if err != nil {
-		return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+		return graphLayout{}, err
 	}
 	spaceTime := time.Since(spaceStart)
 	var removed []bool
@@ -431,7 +441,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	sym := flow.Identity
 	if g.Directed && !cfg.noFlow {
 		if sym, err = orientFlow(g, removed, res.Kept(), sp, boxes); err != nil {
-			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+			return graphLayout{}, err
 		}
 	}
 	lay := dotio.Layout{X: sp.X, Y: sp.Y, BB: [4]int64{0, 0, sp.Width, sp.Height}, Removed: removed}
@@ -441,7 +451,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	var clusters *clusterInfo
 	if len(set.Clusters) > 0 {
 		if clusters, err = layoutFrames(g, set, &lay, boxes, int64(cfg.unit)); err != nil {
-			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+			return graphLayout{}, err
 		}
 		sp.Width, sp.Height = lay.BB[2], lay.BB[3]
 	}
@@ -465,12 +475,10 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 			gr.GridWidth, gr.GridHeight = gr.GridHeight, gr.GridWidth // the grid as drawn
 		}
 		if err := gr.addStructure(g, lay.Removed, sp, clusters, res); err != nil {
-			return nil, dotio.Layout{}, place.Boxes{}, graphReport{}, err
+			return graphLayout{}, err
 		}
 	}
-	gr.caps = caps
-	gr.clusters = clusters
-	return res, lay, boxes, gr, nil
+	return graphLayout{res: res, lay: lay, report: gr, caps: caps, clusters: clusters}, nil
 }
 
 // When removal is not proved the fewest, standard error suggests
