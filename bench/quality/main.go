@@ -15,7 +15,6 @@ package main
 
 import (
 	"bytes"
-	"encoding/json"
 	"fmt"
 	"math"
 	"math/rand/v2"
@@ -27,6 +26,7 @@ import (
 	"strings"
 	"time"
 
+	"github.com/gridwood/gridwood/cmd/gridwood/report"
 	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/dotio/nodesize"
 	"github.com/gridwood/gridwood/internal/graphgen"
@@ -155,29 +155,6 @@ func delaunay(name string, n int, seed uint64, holes bool) graphgen.Graph {
 	return graphgen.Graph{N: n, Edges: edges, Name: name}
 }
 
-type report struct {
-	Files []struct {
-		Graphs []struct {
-			Graph   string `json:"graph"`
-			Removed int    `json:"removed_edges"`
-			// Structure (README, Clusters and direction).
-			Clusters      int  `json:"clusters"`
-			Intrusions    int  `json:"cluster_intrusions"`
-			FrameOverlaps int  `json:"frame_overlaps"`
-			FlowAlong     *int `json:"flow_along"`
-			FlowAgainst   *int `json:"flow_against"`
-			FlowOnCycles  *int `json:"flow_on_cycles"`
-			Readable      int  `json:"readable_components"`
-			Unrefined     int  `json:"unrefined_components"`
-			Seconds       struct {
-				Planarize float64 `json:"planarize"`
-				Layout    float64 `json:"layout"`
-				Space     float64 `json:"space"`
-			} `json:"seconds"`
-		} `json:"graphs"`
-	} `json:"files"`
-}
-
 // measure lays out one file with the binary (kept edges only), and each of
 // its graphs with the reference.
 func measure(bin, dir, in string) ([]row, error) {
@@ -188,12 +165,12 @@ func measure(bin, dir, in string) ([]row, error) {
 	if err := cmd.Run(); err != nil {
 		return nil, fmt.Errorf("%v: %s", err, errs.String())
 	}
-	var rep report
 	data, err := os.ReadFile(rp)
 	if err != nil {
 		return nil, err
 	}
-	if err := json.Unmarshal(data, &rep); err != nil {
+	rep, err := report.Read(bytes.NewReader(data))
+	if err != nil {
 		return nil, err
 	}
 	f, err := dotio.Read(out.Bytes(), dotio.ReadOptions{Name: in})
@@ -207,13 +184,13 @@ func measure(bin, dir, in string) ([]row, error) {
 			r.name = strings.TrimSuffix(filepath.Base(in), ".dot")
 		}
 		gr := rep.Files[0].Graphs[gi]
-		r.removed = gr.Removed
-		r.clusters, r.intrusions, r.overlaps = gr.Clusters, gr.Intrusions, gr.FrameOverlaps
+		r.removed = gr.RemovedEdges
+		r.clusters, r.intrusions, r.overlaps = gr.Clusters, int(gr.ClusterIntrusions), int(gr.FrameOverlaps)
 		if gr.FlowAlong != nil {
 			r.directed = true
 			r.along, r.against, r.onCycles = *gr.FlowAlong, *gr.FlowAgainst, *gr.FlowOnCycles
 		}
-		r.readable, r.unrefined = gr.Readable, gr.Unrefined
+		r.readable, r.unrefined = gr.ReadableComponents, gr.UnrefinedComponents
 		r.gwSec = gr.Seconds.Planarize + gr.Seconds.Layout + gr.Seconds.Space
 		n := len(g.Nodes)
 		x, y := make([]float64, n), make([]float64, n)

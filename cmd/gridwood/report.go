@@ -1,10 +1,9 @@
 package main
 
 import (
-	"encoding/json"
-	"io"
 	"time"
 
+	"github.com/gridwood/gridwood/cmd/gridwood/report"
 	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/place"
 	"github.com/gridwood/gridwood/place/frame"
@@ -12,65 +11,9 @@ import (
 	"github.com/gridwood/gridwood/place/quality"
 )
 
-// The --report file: JSON, one record per input file with one per graph.
-// README.md ("Quality report") documents every field.
-type fileReport struct {
-	File         string        `json:"file"`
-	ReadSeconds  float64       `json:"read_seconds"`
-	WriteSeconds float64       `json:"write_seconds"`
-	Graphs       []graphReport `json:"graphs"`
-}
-
-type graphReport struct {
-	Graph               string   `json:"graph"`
-	Directed            bool     `json:"directed"`
-	Nodes               int      `json:"nodes"`
-	Edges               int      `json:"edges"`
-	RemovedEdges        int      `json:"removed_edges"`
-	RemovedPairs        int      `json:"removed_pairs"`
-	RemovalOptimal      bool     `json:"removal_optimal"`
-	Method              string   `json:"method"`
-	Components          int      `json:"components"`
-	TutteComponents     int      `json:"tutte_components"`
-	ConvexComponents    int      `json:"convex_components"`
-	TreeComponents      int      `json:"tree_components"`
-	FaceCountComponents int      `json:"face_count_components"`
-	RelaxedComponents   int      `json:"relaxed_components"`
-	UncheckedComponents int      `json:"unchecked_components"`
-	CrowdedComponents   int      `json:"crowded_components"`
-	ReadableComponents  int      `json:"readable_components"`
-	UnrefinedComponents int      `json:"unrefined_components"`
-	GridWidth           int64    `json:"grid_width"`
-	GridHeight          int64    `json:"grid_height"`
-	AreaRatio           float64  `json:"area_ratio"`
-	CompactionSaved     float64  `json:"compaction_saved"`
-	Unit                int64    `json:"unit"`
-	WidthPoints         int64    `json:"width_pt"`
-	HeightPoints        int64    `json:"height_pt"`
-	MinAngle            float64  `json:"min_angle_deg"`
-	EdgeLengthRatio     float64  `json:"edge_length_ratio"`
-	MinVertexEdge       *float64 `json:"min_vertex_edge_distance"`
-	BoxOverlaps         int      `json:"box_overlaps"`
-	EdgesThroughBoxes   int      `json:"edges_through_boxes"`
-	Seconds             struct {
-		Planarize float64 `json:"planarize"`
-		Layout    float64 `json:"layout"`
-		Space     float64 `json:"space"`
-	} `json:"seconds"`
-	Clusters          int     `json:"clusters"`
-	ClusterIntrusions int64   `json:"cluster_intrusions"`
-	FrameOverlaps     int64   `json:"frame_overlaps"`
-	FlowAlong         *int    `json:"flow_along"`
-	FlowAgainst       *int    `json:"flow_against"`
-	FlowOnCycles      *int    `json:"flow_on_cycles"`
-	Stress            float64 `json:"stress"`
-	EdgeLengthCV      float64 `json:"edge_length_cv"`
-	AngularResolution float64 `json:"angular_resolution"`
-}
-
 // graphMeasures fills a report record from one laid-out graph.
-func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp *place.Placed, boxes place.Boxes, spaceTime time.Duration) graphReport {
-	r := graphReport{
+func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp *place.Placed, boxes place.Boxes, spaceTime time.Duration) report.Graph {
+	r := report.Graph{
 		Graph: g.Name, Directed: g.Directed, Nodes: len(g.Nodes), Edges: len(g.Edges),
 		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
 		Method: method, Components: len(res.Components), TutteComponents: sp.Tutte,
@@ -121,7 +64,7 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 // addStructure adds the measures of what the DOT says about structure
 // (clusters, a digraph's flow) and the readability measures of package
 // quality, all on the kept edges.
-func (r *graphReport) addStructure(g *dotio.Graph, removed []bool, sp *place.Placed, ci *clusterInfo, res *place.Result) error {
+func addStructure(r *report.Graph, g *dotio.Graph, removed []bool, sp *place.Placed, ci *clusterInfo, res *place.Result) error {
 	if ci != nil {
 		r.Clusters = len(ci.set.Clusters)
 		c, err := frame.Measure(ci.tree, ci.nodes, ci.frames)
@@ -144,14 +87,6 @@ func (r *graphReport) addStructure(g *dotio.Graph, removed []bool, sp *place.Pla
 	q := quality.Measure(x, y, res.Kept())
 	r.Stress, r.EdgeLengthCV, r.AngularResolution = q.Stress, q.EdgeCV, q.AngularResolution
 	return nil
-}
-
-func writeReport(w io.Writer, files []fileReport) error {
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(struct {
-		Files []fileReport `json:"files"`
-	}{files})
 }
 
 func convexCount(res *place.Result) int {

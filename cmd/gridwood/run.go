@@ -13,6 +13,7 @@ import (
 	"syscall"
 	"time"
 
+	"github.com/gridwood/gridwood/cmd/gridwood/report"
 	"github.com/gridwood/gridwood/dotio"
 	"github.com/gridwood/gridwood/dotio/nodesize"
 	"github.com/gridwood/gridwood/dotio/preview"
@@ -108,7 +109,7 @@ func process(cfg *config, std *stdStreams) error {
 	}
 	var out, removedOut, explainOut, svgOut bytes.Buffer
 	var pictures []preview.Graph
-	var reports []fileReport
+	var reports []report.File
 	prog := newProgress(stderr, cfg.quiet)
 	defer prog.stop()
 	cfg.prog = prog
@@ -160,7 +161,7 @@ func process(cfg *config, std *stdStreams) error {
 		for _, w := range f.Warnings {
 			warn("gridwood: %s\n", w.Error())
 		}
-		rep := fileReport{File: name, ReadSeconds: time.Since(readStart).Seconds()}
+		rep := report.File{File: name, ReadSeconds: time.Since(readStart).Seconds()}
 		layouts := make([]dotio.Layout, len(f.Graphs))
 		removed := make([][]int, len(f.Graphs))
 		results := make([]*place.Result, len(f.Graphs))
@@ -276,7 +277,7 @@ func process(cfg *config, std *stdStreams) error {
 	// All inputs succeeded: commit every output (output.go).
 	if o := cfg.sideFile("--report"); o != nil {
 		var buf bytes.Buffer
-		if err := writeReport(&buf, reports); err != nil {
+		if err := report.Write(&buf, report.Document{Files: reports}); err != nil {
 			return err
 		}
 		o.data = buf.Bytes()
@@ -375,7 +376,7 @@ func readInput(in string, stdin io.Reader, stdinUsed *bool) ([]byte, string, err
 type graphLayout struct {
 	res      *place.Result
 	lay      dotio.Layout
-	report   graphReport
+	report   report.Graph
 	caps     boxCaps
 	clusters *clusterInfo
 }
@@ -464,7 +465,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	if sp.Unrefined > 0 && !cfg.quiet {
 		cfg.prog.note("gridwood: %s: %s\n", where, unrefinedText(sp.Unrefined))
 	}
-	var gr graphReport
+	var gr report.Graph
 	if cfg.reportFile != "" {
 		name := "schnyder"
 		if cfg.method == place.Convex {
@@ -474,7 +475,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 		if sym.SwapsAxes() {
 			gr.GridWidth, gr.GridHeight = gr.GridHeight, gr.GridWidth // the grid as drawn
 		}
-		if err := gr.addStructure(g, lay.Removed, sp, clusters, res); err != nil {
+		if err := addStructure(&gr, g, lay.Removed, sp, clusters, res); err != nil {
 			return graphLayout{}, err
 		}
 	}
