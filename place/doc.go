@@ -42,7 +42,7 @@
 //     command uses 18 points), so boxes on distinct grid points never
 //     overlap.
 //  2. A drawing is stretched by the least factor that keeps every edge
-//     edgeGap (4) points clear of the boxes of the nodes it passes, also
+//     spacing.EdgeGap (4) points clear of the boxes of the nodes it passes, also
 //     where a wide box reaches over the end of an edge, and boxes apart by
 //     the gap, however big that makes the drawing: up to maxExtent (2^29)
 //     points across, where the exact integer tests stop; a component that
@@ -57,7 +57,7 @@
 //     (100) vertices, since inside a triangle it crowds the corners; it is
 //     preferred to the grid unless it needs more than
 //     tutteAreaAllowance (2) times the grid's area, and past
-//     gridCompareLimit (2,000) vertices it is taken without comparing.
+//     spacing.GridCompareLimit (2,000) vertices it is taken without comparing.
 //     Felsner's face-count drawing is made of the input's own faces when
 //     the component is 3-connected (every face convex; Placed.Convex), else
 //     of the triangulation behind the Schnyder drawing (Placed.FaceCounts);
@@ -91,7 +91,7 @@
 //
 // SpaceOptions.Unit skips all of this and puts node centres on a grid of
 // that many points; SpaceOptions.GridOnly keeps steps 1, 2 and 5 only.
-// Components of more than readableLimit (5,000) vertices keep the grid
+// Components of more than spacing.ReadableLimit (5,000) vertices keep the grid
 // drawing at the base unit, unchecked (boxes never overlap, an edge may
 // pass through a box; Placed.Unchecked), and are neither compacted nor
 // refined, so that from there up the cost per edge stays flat. On smaller
