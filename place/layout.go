@@ -42,8 +42,8 @@ type triangulation struct {
 	aug      *planarize.Embedding // the input with its dummy edges
 	triOuter []int32              // each Schnyder drawing's outer triangle (a dart of aug), -1 if none
 	// outer is each component's outer region (nil where no Tutte drawing
-	// was made), and tutteX, tutteY Tutte's drawing in a frame of side
-	// fineSpan (nil if none was made).
+	// was made), and tutteX, tutteY Tutte's drawing in the frame
+	// spacing.Tutte rounds into (nil if none was made).
 	outer          []*spacing.Outer
 	tutteX, tutteY []int64
 	// convexAlt holds, per component (nil if none), a face-count drawing
@@ -81,9 +81,10 @@ type Options struct {
 	// Method chooses how components are drawn; see Method.
 	Method Method
 	// Smooth, if positive, also computes for every component of 4 to
-	// spacing.ReadableLimit vertices Tutte's barycentric drawing with its outer face
-	// on a convex polygon, solving for at most that many conjugate-gradient
-	// steps (see tutteDrawing); Space uses it where the grid crowds.
+	// spacing.ReadableLimit vertices Tutte's barycentric drawing with its
+	// outer face on a convex polygon, solving for at most that many
+	// conjugate-gradient steps (see spacing.Tutte); Space uses it where the
+	// grid crowds.
 	Smooth int
 }
 

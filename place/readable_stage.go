@@ -148,9 +148,10 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	}
 	local := emb.Edges()
 	// An edge may pass a box at three quarters of the distance two boxes
-	// keep (and no nearer than the spacing rule's spacing.EdgeGap): room enough to
-	// read, and less stretching than the full gap asks where boxes crowd
-	// (half the gap stretched less still, but bent digraphs' flow).
+	// keep (and no nearer than the spacing rule's spacing.EdgeGap): room
+	// enough to read, and less stretching than the full gap asks where
+	// boxes crowd (half the gap stretched less still, but bent digraphs'
+	// flow).
 	in := readable.Input{Edges: local, X: make([]float64, k), Y: make([]float64, k), HalfW: make([]float64, k), HalfH: make([]float64, k), Gap: float64(gap), EdgeGap: max(float64(spacing.EdgeGap), float64(gap)*3/4), Embedding: emb, KeepOuter: r.outerAsked}
 	for i, v := range vs {
 		in.X[i], in.Y[i] = float64(sx[v]), float64(sy[v])

@@ -70,12 +70,13 @@ func checkSpaced(t *testing.T, name string, sp *Placed, b Boxes, edges [][2]int3
 }
 
 // TestReadableLimit checks both sides of spacing.ReadableLimit on Space: a
-// component of spacing.ReadableLimit vertices gets the clearance check (no node box
-// overlaps another, no edge passes through a box it does not end at, found
-// by geomcheck), one of spacing.ReadableLimit+1 is counted Unchecked and keeps
-// disjoint boxes; both drawings pass the crossing checker. The graphs are
-// the 50 x 100 grid and the same with a pendant vertex: drawings that need
-// stretching (or refinement) to clear their boxes, and can be cleared.
+// component of spacing.ReadableLimit vertices gets the clearance check (no
+// node box overlaps another, no edge passes through a box it does not end
+// at, found by geomcheck), one of spacing.ReadableLimit+1 is counted
+// Unchecked and keeps disjoint boxes; both drawings pass the crossing
+// checker. The graphs are the 50 x 100 grid and the same with a pendant
+// vertex: drawings that need stretching (or refinement) to clear their
+// boxes, and can be cleared.
 func TestReadableLimit(t *testing.T) {
 	for _, tc := range []struct {
 		n         int

@@ -12,10 +12,10 @@ import (
 
 // TestRelaxKeepsTriangulationPlane relaxes the Schnyder drawing of whole
 // augmented triangulations, dummy edges included, and checks the result
-// with geomcheck, the independent crossing checker: relax's moves are
-// judged by orientation tests alone (moveGuard), and this checks that
-// argument on every edge of the triangulation, not only on the kept ones.
-// It also checks that relax moved something.
+// with geomcheck, the independent crossing checker: spacing.Relax's moves
+// are judged by orientation tests alone (spacing's moveGuard), and this
+// checks that argument on every edge of the triangulation, not only on the
+// kept ones. It also checks that relax moved something.
 func TestRelaxKeepsTriangulationPlane(t *testing.T) {
 	for _, g := range []graphgen.Graph{
 		graphgen.RandomMaximalPlanar(60, 1),

@@ -39,13 +39,13 @@ type Placed struct {
 	// rather than the grid.
 	Tutte int
 	// Unchecked counts components too big for the box-clearance check
-	// (more than spacing.ReadableLimit vertices, or past its work bound), spaced by Unit
-	// alone: their node boxes never overlap, but an edge may pass through
-	// a box.
+	// (more than spacing.ReadableLimit vertices, or past its work bound),
+	// spaced by Unit alone: their node boxes never overlap, but an edge may
+	// pass through a box.
 	Unchecked int
 	// Crowded counts checked components that would need a stretch beyond
-	// maxExtent to clear every box: stretched to that extent, some edge
-	// may still pass through a box.
+	// 2^29 points across (spacing's maxExtent) to clear every box:
+	// stretched to that extent, some edge may still pass through a box.
 	Crowded int
 	// Convex counts the components of the Schnyder method drawn from their
 	// convex drawing instead, which needed less area (Method Convex's own
@@ -54,7 +54,7 @@ type Placed struct {
 	// 3-connected, so their own faces need not be convex).
 	Convex, FaceCounts int
 	// Trees counts the components of three or more vertices that are
-	// trees, drawn in layers (see layeredTree) rather than on the grid.
+	// trees, drawn in layers (see spacing.Tree) rather than on the grid.
 	Trees int
 	// Readable counts the components drawn by the readable stage
 	// (Result.Readable), and Unrefined those it left with their spaced
@@ -62,7 +62,7 @@ type Placed struct {
 	// stretching clear in reasonable size.
 	Readable, Unrefined int
 	// Relaxed counts the components whose drawing was then relaxed,
-	// nodes moved one at a time to where they have more room (see relax),
+	// nodes moved one at a time to where they have more room (see spacing.Relax),
 	// which needed less area; they are counted here only.
 	Relaxed int
 }
@@ -79,9 +79,9 @@ const tutteAreaAllowance = 2.0
 var errBoxes = errors.New("place: box sizes do not match the vertices")
 
 // maxBoxHalf is the largest half box side and gap Space takes, in points
-// (about 910 inches): with it a component of spacing.ReadableLimit vertices at the
-// base unit stays below 2^30 points across, where the orientation tests
-// of the spacing checks are exact.
+// (about 910 inches): with it a component of spacing.ReadableLimit vertices
+// at the base unit stays below 2^30 points across, where the orientation
+// tests of the spacing checks are exact.
 const maxBoxHalf = 1 << 16
 
 var errBoxSize = errors.New("place: a box half size or the gap is over 65,536 points")
@@ -96,20 +96,20 @@ func tooBig(half int64) bool { return half > maxBoxHalf }
 //     distinct grid points never overlap;
 //   - each candidate drawing (the grid drawing at the base unit; with
 //     Options.Smooth, Tutte's barycentric drawing and Felsner's face-count
-//     drawing; for trees, the layered drawing) is refined (refine) and
+//     drawing; for trees, the layered drawing) is refined (spacing.Refine) and
 //     stretched by the least factor that keeps every edge off the boxes of
 //     the nodes it does not end at, computed per vertex-edge pair near
 //     each other; the one needing the least area wins (the Tutte
 //     drawing unless it needs more than twice the grid's area);
 //   - the winner is stretched, shrunk while it stays clear (to no less
-//     than a quarter), then relaxed (relax) and kept relaxed when that
+//     than a quarter), then relaxed (spacing.Relax) and kept relaxed when that
 //     needs less area;
-//   - stretching stops at maxExtent points across (Placed.Crowded counts
+//   - stretching stops at 2^29 points across (Placed.Crowded counts
 //     the components that needed more); a rounded stretch is checked
 //     exactly to stay plane, else an integer one, which keeps every
 //     orientation, is used, so no crossing can appear;
-//   - components of more than spacing.ReadableLimit (5000) vertices keep the base
-//     unit, unchecked.
+//   - components of more than spacing.ReadableLimit (5000) vertices keep
+//     the base unit, unchecked.
 //
 // Components are then packed in rows, one base unit apart.
 func (r *Result) Space(b Boxes, opt SpaceOptions) (*Placed, error) {

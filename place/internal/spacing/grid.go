@@ -16,10 +16,15 @@ const (
 // Meter counts down the cell visits a component's spacing may make.
 type Meter struct{ left int }
 
+// NewMeter is the work one candidate drawing of a component with that many
+// edges may take: spacePerEdge cell visits per edge plus spaceFloor, at
+// most spaceWork.
 func NewMeter(edges int) *Meter {
 	return &Meter{left: min(spaceWork, spaceFloor+spacePerEdge*edges)}
 }
 
+// spend takes k visits off the meter and reports whether it has not run
+// out.
 func (m *Meter) spend(k int) bool {
 	m.left -= k
 	return m.left >= 0

@@ -322,12 +322,12 @@ func Relax(emb *planarize.Embedding, vs []int32, outer *Outer, edges [][2]int32,
 // percentile, the percentile as well, so that a few big nodes (a long
 // label, a legend) need not set every other node's room and blow the
 // drawing up around them; the final stretch still clears the big boxes.
-// Space relaxes with each and keeps the smaller drawing: neither wins
-// everywhere. Measured on a 100-node random planar graph with one
-// 52-character label: 9,624 x 8,898 points, against 23,317 x 20,726 with
-// the largest box only; relaxing by the percentile alone, the shipped
-// campus example, whose labels vary less, came out 472 x 414 instead of
-// 428 x 369 (bench/RESULTS.md has the corpus figures).
+// The spacing rule (place.Result.Space) relaxes with each and keeps the
+// smaller drawing: neither wins everywhere. Measured on a 100-node random
+// planar graph with one 52-character label: 9,624 x 8,898 points, against
+// 23,317 x 20,726 with the largest box only; relaxing by the percentile
+// alone, the shipped campus example, whose labels vary less, came out
+// 472 x 414 instead of 428 x 369 (bench/RESULTS.md has the corpus figures).
 func Reaches(vs []int32, hw, hh []int64, gap int64) [][2]int64 {
 	rx, ry := make([]int64, len(vs)), make([]int64, len(vs))
 	for i, v := range vs {

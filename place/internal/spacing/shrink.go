@@ -13,7 +13,7 @@ const (
 	// (the caller counts it).
 	maxExtent = 1 << 29
 	// GridCompareLimit is the largest component whose grid drawing is
-	// compared with its Tutte drawing, shrunk (Shrink) and relaxed.
+	// compared with its Tutte drawing, and the largest Shrink shrinks.
 	GridCompareLimit = 2000
 )
 

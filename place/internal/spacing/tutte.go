@@ -21,7 +21,7 @@ const ReadableLimit = 5000
 
 // Outer describes a component's outer face F as the layout chose it:
 // its darts in face order (F on their left) and the dummy edges that
-// triangulated F, numbered lo..hi-1 (none when F was a triangle).
+// triangulated F, numbered Lo..Hi-1 (none when F was a triangle).
 type Outer struct {
 	Face   []int32
 	Lo, Hi int
