@@ -11,7 +11,7 @@ import (
 
 // TestAllPairsMatchesEveryPair checks allPairs against its definition,
 // written out as a plain double loop: the same vertex-edge pairs, and for
-// each vertex its edges in the order of edges (refine adds up pushes per
+// each vertex its edges in the order of edges (Refine adds up pushes per
 // vertex, so that order reaches the output). Coordinates are drawn from a
 // small range so that many vertices share an x, and the reach r runs from
 // none to more than the drawing.
