@@ -4,6 +4,7 @@ import (
 	"slices"
 
 	"github.com/gridwood/gridwood/internal/exact"
+	"github.com/gridwood/gridwood/place/internal/spacing"
 )
 
 // compactPairLimit bounds the vertex-edge pairs one compaction check may
@@ -25,7 +26,7 @@ const (
 // orientation tests. The gaps to close are chosen greedily with adaptive
 // group tests (all at once first). It returns the new extent.
 func compact(x, y []int64, edges [][2]int32) (w, h int64) {
-	for round := 0; round < 2 && len(x) <= readableLimit; round++ {
+	for round := 0; round < 2 && len(x) <= spacing.ReadableLimit; round++ {
 		cx := compactAxis(x, y, edges)
 		cy := compactAxis(y, x, edges)
 		if !cx && !cy {

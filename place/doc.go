@@ -27,7 +27,8 @@
 // drawings, refining and relaxing them (after F. Bertault, "A
 // force-directed algorithm that preserves edge-crossing properties",
 // Inform. Process. Lett. 74, 2000); every step that moves vertices off the
-// grid is checked exactly to keep the drawing plane. Result.Readable runs
+// grid is checked exactly to keep the drawing plane. The geometry of these
+// steps is in package place/internal/spacing. Result.Readable runs
 // Space and then the readable stage (package place/readable) on each
 // component. DrawGraph does the same for any gonum graph.
 //
@@ -42,11 +43,11 @@
 //     command uses 18 points), so boxes on distinct grid points never
 //     overlap.
 //  2. A drawing is stretched by the least factor that keeps every edge
-//     edgeGap (4) points clear of the boxes of the nodes it passes, also
-//     where a wide box reaches over the end of an edge, and boxes apart by
-//     the gap, however big that makes the drawing: up to maxExtent (2^29)
-//     points across, where the exact integer tests stop; a component that
-//     would need more is stretched that far and counted in
+//     spacing.EdgeGap (4) points clear of the boxes of the nodes it passes,
+//     also where a wide box reaches over the end of an edge, and boxes
+//     apart by the gap, however big that makes the drawing: up to spacing's
+//     maxExtent (2^29) points across, where the exact integer tests stop; a
+//     component that would need more is stretched that far and counted in
 //     Placed.Crowded.
 //  3. Other drawings are weighed against the grid's (Schnyder's vertex
 //     counts crowd), each refined and stretched as in step 2, and the one
@@ -57,50 +58,51 @@
 //     (100) vertices, since inside a triangle it crowds the corners; it is
 //     preferred to the grid unless it needs more than
 //     tutteAreaAllowance (2) times the grid's area, and past
-//     gridCompareLimit (2,000) vertices it is taken without comparing.
+//     spacing.GridCompareLimit (2,000) vertices it is taken without
+//     comparing.
 //     Felsner's face-count drawing is made of the input's own faces when
 //     the component is 3-connected (every face convex; Placed.Convex), else
 //     of the triangulation behind the Schnyder drawing (Placed.FaceCounts);
 //     it spreads vertices far better than Schnyder's vertex counts. A tree
-//     is drawn in layers (layeredTree, after E. Reingold and J. Tilford,
+//     is drawn in layers (spacing.Tree, after E. Reingold and J. Tilford,
 //     "Tidier drawings of trees", 1981): rooted at a centre, leaves in
 //     consecutive columns, every other vertex over its middle children,
 //     layers made taller until no edge passes a box; that drawing wins
 //     unless the grid's clears its boxes in less area (Placed.Trees).
-//     Refinement (refine, after Bertault 2000) pushes crowded vertices
-//     apart, every move checked exactly, in integers, so that the whole
-//     triangulation behind the drawing stays plane. A component of up to
-//     2,000 vertices that then has room to spare is scaled down by the
+//     Refinement (spacing.Refine, after Bertault 2000) pushes crowded
+//     vertices apart, every move checked exactly, in integers, so that the
+//     whole triangulation behind the drawing stays plane. A component of up
+//     to 2,000 vertices that then has room to spare is scaled down by the
 //     least factor, to no less than a quarter, at which it still rounds to
-//     a plane drawing and clears every box (shrinkComponent).
-//  4. The winner is relaxed (relax; components of 4 to 2,000 vertices with
-//     a plane triangulation behind them, trees excepted): an outer triangle
-//     is first mapped onto an equilateral one, then one vertex at a time
-//     moves to where the least room around it (the smallest height of a
-//     triangle at it, in box sizes) is largest, trying the centroid of its
-//     neighbours and then eight directions, for up to relaxRounds (20)
-//     rounds, each move checked exactly; boundary vertices stay within the
-//     bounding box and keep the boundary convex. The relaxed drawing is
-//     stretched and shrunk the same way and kept when it needs less area
-//     (Placed.Relaxed). Room is measured in the component's largest box;
-//     when that is over relaxOutlier (2) times the 90th percentile (a long
-//     label, a legend node), relaxation is tried once more with the
-//     percentile and the smaller result stays, so that one big node does
-//     not spread all the others.
+//     a plane drawing and clears every box (spacing.Shrink).
+//  4. The winner is relaxed (spacing.Relax; components of 4 to 2,000
+//     vertices with a plane triangulation behind them, trees excepted): an
+//     outer triangle is first mapped onto an equilateral one, then one
+//     vertex at a time moves to where the least room around it (the
+//     smallest height of a triangle at it, in box sizes) is largest, trying
+//     the centroid of its neighbours and then eight directions, for up to
+//     spacing's relaxRounds (20) rounds, each move checked exactly;
+//     boundary vertices stay within the bounding box and keep the boundary
+//     convex. The relaxed drawing is stretched and shrunk the same way and
+//     kept when it needs less area (Placed.Relaxed). Room is measured in
+//     the component's largest box; when that is over spacing's relaxOutlier
+//     (2) times the 90th percentile (a long label, a legend node),
+//     relaxation is tried once more with the percentile and the smaller
+//     result stays, so that one big node does not spread all the others.
 //  5. Components are packed in rows, one base unit apart.
 //
 // SpaceOptions.Unit skips all of this and puts node centres on a grid of
 // that many points; SpaceOptions.GridOnly keeps steps 1, 2 and 5 only.
-// Components of more than readableLimit (5,000) vertices keep the grid
-// drawing at the base unit, unchecked (boxes never overlap, an edge may
-// pass through a box; Placed.Unchecked), and are neither compacted nor
+// Components of more than spacing.ReadableLimit (5,000) vertices keep the
+// grid drawing at the base unit, unchecked (boxes never overlap, an edge
+// may pass through a box; Placed.Unchecked), and are neither compacted nor
 // refined, so that from there up the cost per edge stays flat. On smaller
-// components the work of steps 2 to 4 is bounded per edge (spacePerEdge),
-// so spacing stays linear in the size of the graph; when walking the cells
-// of long edges runs out of that work, the check tries every vertex against
-// every edge instead, up to checkAllPairs (80 million) pairs, and a
-// component whose check still runs out is spaced as in step 1 only
-// (Placed.Unchecked).
+// components the work of steps 2 to 4 is bounded per edge (spacing's
+// spacePerEdge), so spacing stays linear in the size of the graph; when
+// walking the cells of long edges runs out of that work, the check tries
+// every vertex against every edge instead, up to spacing's checkAllPairs
+// (80 million) pairs, and a component whose check still runs out is spaced
+// as in step 1 only (Placed.Unchecked).
 //
 // Every grid method spreads n vertices over about n grid lines each way,
 // so these drawings grow with n, not with its square root; the readable

@@ -7,6 +7,7 @@ import (
 
 	"github.com/gridwood/gridwood/place/augment"
 	"github.com/gridwood/gridwood/place/convex"
+	"github.com/gridwood/gridwood/place/internal/spacing"
 	"github.com/gridwood/gridwood/place/schnyder"
 	"github.com/gridwood/gridwood/planarize"
 )
@@ -41,9 +42,9 @@ type triangulation struct {
 	aug      *planarize.Embedding // the input with its dummy edges
 	triOuter []int32              // each Schnyder drawing's outer triangle (a dart of aug), -1 if none
 	// outer is each component's outer region (nil where no Tutte drawing
-	// was made), and tutteX, tutteY Tutte's drawing in a frame of side
-	// fineSpan (nil if none was made).
-	outer          []*outerRegion
+	// was made), and tutteX, tutteY Tutte's drawing in the frame
+	// spacing.Tutte rounds into (nil if none was made).
+	outer          []*spacing.Outer
 	tutteX, tutteY []int64
 	// convexAlt holds, per component (nil if none), a face-count drawing
 	// to weigh against the Schnyder one: x and y in the order of members;
@@ -80,9 +81,10 @@ type Options struct {
 	// Method chooses how components are drawn; see Method.
 	Method Method
 	// Smooth, if positive, also computes for every component of 4 to
-	// readableLimit vertices Tutte's barycentric drawing with its outer face
-	// on a convex polygon, solving for at most that many conjugate-gradient
-	// steps (see tutteDrawing); Space uses it where the grid crowds.
+	// spacing.ReadableLimit vertices Tutte's barycentric drawing with its
+	// outer face on a convex polygon, solving for at most that many
+	// conjugate-gradient steps (see spacing.Tutte); Space uses it where the
+	// grid crowds.
 	Smooth int
 }
 
@@ -141,6 +143,10 @@ func simpleEdges(emb *planarize.Embedding) bool {
 	simple, _ := planarize.Simplify(emb.N(), edges)
 	return len(simple) == len(edges)
 }
+
+// tutteTriangleLimit is the largest component given Tutte's drawing when
+// its outer face is a triangle.
+const tutteTriangleLimit = 100
 
 // layout is Layout on an embedding it may change; it also returns what
 // spacing needs of the triangulation behind the drawing.
@@ -206,7 +212,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, e
 	}
 	if opt.Smooth > 0 && opt.Method == Schnyder {
 		for c, vs := range members {
-			if len(vs) < 4 || len(vs) > readableLimit || chosen[c] < 0 {
+			if len(vs) < 4 || len(vs) > spacing.ReadableLimit || chosen[c] < 0 {
 				continue
 			}
 			if x, y, _, _, err := convexComponent(work, vs, chosen[c]); err == nil {
@@ -260,7 +266,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, e
 	// outer face of the final drawing, once the dummy edges are gone.
 	wanted := make([]bool, 2*work.M())
 	outerDart := make([]int32, len(members))
-	regions := make([]*outerRegion, len(members))
+	regions := make([]*spacing.Outer, len(members))
 	for c, d := range chosen {
 		outerDart[c] = d
 		if d >= 0 {
@@ -269,9 +275,9 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, e
 				// The face after biconnection: a simple cycle (the input's
 				// face may pass a cut vertex twice), cut from the chosen
 				// one by the biconnecting edges only.
-				r := &outerRegion{}
+				r := &spacing.Outer{}
 				for x := d; ; {
-					r.face = append(r.face, x)
+					r.Face = append(r.Face, x)
 					if x = work.FaceNext(x); x == d {
 						break
 					}
@@ -287,7 +293,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, e
 				outerDart[c] = tri
 				if r := regions[c]; r != nil {
 					// This face's dummies were the last len(face)-3 edges.
-					r.lo, r.hi = work.M()-(len(face)-3), work.M()
+					r.Lo, r.Hi = work.M()-(len(face)-3), work.M()
 				}
 				return
 			}
@@ -346,7 +352,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, e
 		}
 		coord = append(coord[:0], make([][3]int32, len(vs))...)
 		ww.Barycentric(order, coord, index)
-		if opt.Smooth > 0 && len(vs) >= 4 && len(vs) <= readableLimit && (convexAlt == nil || convexAlt[c][0] == nil) {
+		if opt.Smooth > 0 && len(vs) >= 4 && len(vs) <= spacing.ReadableLimit && (convexAlt == nil || convexAlt[c][0] == nil) {
 			// No convex drawing of the input's own faces (not
 			// 3-connected): Felsner's drawing of the triangulation, with
 			// the same outer triangle, is a candidate still; its face
@@ -358,12 +364,12 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, e
 		// Tutte's drawing inside a triangle squeezes a big triangulation's
 		// interior exponentially; it is worth computing for a larger
 		// outer face, or for small components.
-		if r := regions[c]; r != nil && len(vs) >= 4 && len(vs) <= readableLimit && (len(r.face) > 3 || len(vs) <= tutteTriangleLimit) {
+		if r := regions[c]; r != nil && len(vs) >= 4 && len(vs) <= spacing.ReadableLimit && (len(r.Face) > 3 || len(vs) <= tutteTriangleLimit) {
 			if tri.tutteX == nil {
 				tri.tutteX, tri.tutteY = make([]int64, n), make([]int64, n)
-				tri.outer = make([]*outerRegion, len(members))
+				tri.outer = make([]*spacing.Outer, len(members))
 			}
-			tutteDrawing(work, vs, r, tri.tutteX, tri.tutteY, opt.Smooth)
+			spacing.Tutte(work, vs, r, tri.tutteX, tri.tutteY, opt.Smooth)
 			tri.outer[c] = r
 		}
 		var w, h int64
@@ -373,7 +379,7 @@ func layout(work *planarize.Embedding, opt Options) (*Drawing, *triangulation, e
 			w, h = max(w, d.X[v]), max(h, d.Y[v])
 		}
 		fw, fh := w, h
-		if opt.Compact && len(vs) <= readableLimit {
+		if opt.Compact && len(vs) <= spacing.ReadableLimit {
 			w, h = compactComponent(work, d, vs, index, origEdges[c])
 		}
 		boxes[c] = Component{Vertices: len(vs), W: w, H: h, Barycentre: true, FullW: fw, FullH: fh, FellBack: fellBack[c]}
@@ -539,7 +545,7 @@ func edgesByComponent(emb *planarize.Embedding, comp []int32, members [][]int32,
 	out := make([][]int32, len(members))
 	for e := range m {
 		c := comp[emb.Edge(e)[0]]
-		if len(members[c]) <= readableLimit {
+		if len(members[c]) <= spacing.ReadableLimit {
 			out[c] = append(out[c], int32(e))
 		}
 	}

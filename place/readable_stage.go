@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 
+	"github.com/gridwood/gridwood/place/internal/spacing"
 	"github.com/gridwood/gridwood/place/mesh"
 	"github.com/gridwood/gridwood/place/readable"
 )
@@ -147,10 +148,11 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	}
 	local := emb.Edges()
 	// An edge may pass a box at three quarters of the distance two boxes
-	// keep (and no nearer than the spacing rule's edgeGap): room enough to
-	// read, and less stretching than the full gap asks where boxes crowd
-	// (half the gap stretched less still, but bent digraphs' flow).
-	in := readable.Input{Edges: local, X: make([]float64, k), Y: make([]float64, k), HalfW: make([]float64, k), HalfH: make([]float64, k), Gap: float64(gap), EdgeGap: max(float64(edgeGap), float64(gap)*3/4), Embedding: emb, KeepOuter: r.outerAsked}
+	// keep (and no nearer than the spacing rule's spacing.EdgeGap): room
+	// enough to read, and less stretching than the full gap asks where
+	// boxes crowd (half the gap stretched less still, but bent digraphs'
+	// flow).
+	in := readable.Input{Edges: local, X: make([]float64, k), Y: make([]float64, k), HalfW: make([]float64, k), HalfH: make([]float64, k), Gap: float64(gap), EdgeGap: max(float64(spacing.EdgeGap), float64(gap)*3/4), Embedding: emb, KeepOuter: r.outerAsked}
 	for i, v := range vs {
 		in.X[i], in.Y[i] = float64(sx[v]), float64(sy[v])
 		in.HalfW[i], in.HalfH[i] = float64(hw[v]), float64(hh[v])
@@ -217,7 +219,7 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 				scale *= 2
 				continue
 			}
-			s, checked := clearingStretch(vs, edges, px, py, hw, hh, gap, stamp, newWorkMeter(len(edges)), true)
+			s, checked := spacing.ClearingStretch(vs, edges, px, py, hw, hh, gap, stamp, spacing.NewMeter(len(edges)), true)
 			if s <= 1 {
 				x, y = make([]int64, k), make([]int64, k)
 				for i, v := range vs {

@@ -7,6 +7,7 @@ import (
 
 	"github.com/gridwood/gridwood/internal/graphgen"
 	"github.com/gridwood/gridwood/place/geomcheck"
+	"github.com/gridwood/gridwood/place/internal/spacing"
 )
 
 // equalBoxes gives n nodes boxes of half sizes hw x hh points, 18 points
@@ -68,20 +69,21 @@ func checkSpaced(t *testing.T, name string, sp *Placed, b Boxes, edges [][2]int3
 	}
 }
 
-// TestReadableLimit checks both sides of readableLimit on Space: a
-// component of readableLimit vertices gets the clearance check (no node box
-// overlaps another, no edge passes through a box it does not end at, found
-// by geomcheck), one of readableLimit+1 is counted Unchecked and keeps
-// disjoint boxes; both drawings pass the crossing checker. The graphs are
-// the 50 x 100 grid and the same with a pendant vertex: drawings that need
-// stretching (or refinement) to clear their boxes, and can be cleared.
+// TestReadableLimit checks both sides of spacing.ReadableLimit on Space: a
+// component of spacing.ReadableLimit vertices gets the clearance check (no
+// node box overlaps another, no edge passes through a box it does not end
+// at, found by geomcheck), one of spacing.ReadableLimit+1 is counted
+// Unchecked and keeps disjoint boxes; both drawings pass the crossing
+// checker. The graphs are the 50 x 100 grid and the same with a pendant
+// vertex: drawings that need stretching (or refinement) to clear their
+// boxes, and can be cleared.
 func TestReadableLimit(t *testing.T) {
 	for _, tc := range []struct {
 		n         int
 		unchecked int
 	}{
-		{readableLimit, 0},
-		{readableLimit + 1, 1},
+		{spacing.ReadableLimit, 0},
+		{spacing.ReadableLimit + 1, 1},
 	} {
 		g := graphgen.Grid(50, 100)
 		if tc.n > g.N {

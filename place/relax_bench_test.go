@@ -4,6 +4,7 @@ import (
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/internal/spacing"
 )
 
 // BenchmarkSpaceSmall measures Space alone, with and without relaxation,
@@ -19,7 +20,7 @@ func BenchmarkSpaceSmall(b *testing.B) {
 		for _, mode := range []struct {
 			name  string
 			limit int
-		}{{"relaxed", gridCompareLimit}, {"unrelaxed", 0}} {
+		}{{"relaxed", spacing.GridCompareLimit}, {"unrelaxed", 0}} {
 			b.Run(g.Name+"/"+mode.name, func(b *testing.B) {
 				defer func(limit int) { relaxLimit = limit }(relaxLimit)
 				relaxLimit = mode.limit

@@ -4,17 +4,18 @@ import (
 	"math"
 	"testing"
 
+	"github.com/gridwood/gridwood/internal/exact"
 	"github.com/gridwood/gridwood/internal/graphgen"
 	"github.com/gridwood/gridwood/place/geomcheck"
-	"github.com/gridwood/gridwood/planarize"
+	"github.com/gridwood/gridwood/place/internal/spacing"
 )
 
 // TestRelaxKeepsTriangulationPlane relaxes the Schnyder drawing of whole
 // augmented triangulations, dummy edges included, and checks the result
-// with geomcheck, the independent crossing checker: relax's moves are
-// judged by orientation tests alone (moveGuard), and this checks that
-// argument on every edge of the triangulation, not only on the kept ones.
-// It also checks that relax moved something.
+// with geomcheck, the independent crossing checker: spacing.Relax's moves
+// are judged by orientation tests alone (spacing's moveGuard), and this
+// checks that argument on every edge of the triangulation, not only on the
+// kept ones. It also checks that relax moved something.
 func TestRelaxKeepsTriangulationPlane(t *testing.T) {
 	for _, g := range []graphgen.Graph{
 		graphgen.RandomMaximalPlanar(60, 1),
@@ -36,7 +37,7 @@ func TestRelaxKeepsTriangulationPlane(t *testing.T) {
 			}
 			f0 := d.triOuter[c]
 			f1 := d.aug.FaceNext(f0)
-			region := &outerRegion{face: []int32{f0, f1, d.aug.FaceNext(f1)}}
+			region := &spacing.Outer{Face: []int32{f0, f1, d.aug.FaceNext(f1)}}
 			n := d.aug.N()
 			x, y := make([]int64, n), make([]int64, n)
 			for _, v := range vs {
@@ -55,7 +56,7 @@ func TestRelaxKeepsTriangulationPlane(t *testing.T) {
 					edges = append(edges, e)
 				}
 			}
-			if !relax(d.aug, vs, region, edges, x, y, b.HalfW, b.HalfH, b.Gap, relaxReaches(vs, b.HalfW, b.HalfH, b.Gap)[0], make([]bool, 2*d.aug.M()), make([]int32, n)) {
+			if !spacing.Relax(d.aug, vs, region, edges, x, y, b.HalfW, b.HalfH, b.Gap, spacing.Reaches(vs, b.HalfW, b.HalfH, b.Gap)[0], make([]bool, 2*d.aug.M()), make([]int32, n)) {
 				t.Fatalf("%s: relax did not run on component %d", g.Name, c)
 			}
 			relaxed++
@@ -135,7 +136,7 @@ func TestRelaxShrinksDrawings(t *testing.T) {
 	relaxed := 0
 	for _, g := range gs {
 		b := equalBoxes(g.N, 27, 18)
-		relaxLimit = gridCompareLimit
+		relaxLimit = spacing.GridCompareLimit
 		res, on := drawSpaced(t, g, b, SpaceOptions{})
 		checkSpaced(t, g.Name+" relaxed", on, b, res.Kept(), true)
 		relaxLimit = 0
@@ -170,116 +171,6 @@ func TestRelaxShrinksDrawings(t *testing.T) {
 	t.Logf("relaxation saved %.0f%% of the area; %d of %d graphs relaxed", 100*(1-with/without), relaxed, len(gs))
 }
 
-// TestPlaneDrawingRejectsStarBoundary draws a wheel's rim as a convex
-// pentagon and as a pentagram: both turn the same way at every corner,
-// but only the pentagon is a simple polygon (the pentagram winds round
-// twice), so planeDrawing, the exact check every relaxed or refined
-// drawing passes, must take the one and refuse the other, whatever the hub's
-// place.
-func TestPlaneDrawingRejectsStarBoundary(t *testing.T) {
-	emb, hub, region, vs := wheelRim(t)
-	face := region.face
-	g := graphgen.Wheel(5)
-	seen := make([]bool, 2*emb.M())
-	for _, tc := range []struct {
-		name  string
-		step  int // rim vertex i goes to the point at angle 2*pi*step*i/5
-		plane bool
-	}{{"pentagon", 1, true}, {"pentagram", 2, false}} {
-		for _, sign := range []float64{1, -1} {
-			x, y := make([]int64, g.N), make([]int64, g.N)
-			for i, d := range face {
-				a := sign * 2 * math.Pi * float64(tc.step*i) / 5
-				x[emb.Tail(d)] = int64(math.Round(1000 * math.Cos(a)))
-				y[emb.Tail(d)] = int64(math.Round(1000 * math.Sin(a)))
-			}
-			// The hub at the centre, or off it: never a plane drawing of
-			// the pentagram.
-			for _, h := range [][2]int64{{0, 0}, {100, -50}} {
-				x[hub], y[hub] = h[0], h[1]
-				if got := planeDrawing(emb, vs, region, x, y, seen); got != tc.plane {
-					t.Errorf("%s (turning %v, hub at %v): planeDrawing %v, want %v", tc.name, sign, h, got, tc.plane)
-				}
-			}
-		}
-	}
-}
-
-// wheelRim embeds the wheel on five rim vertices and returns it with its
-// hub and the rim face (the face not at the hub) as the outer region.
-func wheelRim(t *testing.T) (*planarize.Embedding, int32, *outerRegion, []int32) {
-	t.Helper()
-	g := graphgen.Wheel(5)
-	emb, ok := planarize.Embed(g.N, g.Edges)
-	if !ok {
-		t.Fatal("wheel not planar")
-	}
-	hub := int32(0)
-	for v := range int32(g.N) {
-		if emb.Degree(v) == 5 {
-			hub = v
-		}
-	}
-	var face []int32
-	for d := int32(0); int(d) < 2*emb.M() && face == nil; d++ {
-		if emb.Tail(d) == hub || emb.Head(d) == hub {
-			continue
-		}
-		f := []int32{d}
-		for e := emb.FaceNext(d); e != d; e = emb.FaceNext(e) {
-			f = append(f, e)
-		}
-		if len(f) == 5 {
-			face = f
-		}
-	}
-	if face == nil {
-		t.Fatal("no rim face")
-	}
-	vs := make([]int32, g.N)
-	for v := range vs {
-		vs[v] = int32(v)
-	}
-	return emb, hub, &outerRegion{face: face}, vs
-}
-
-// TestMoveGuardBoundary checks moveGuard on a boundary vertex of a wheel
-// drawn with its rim as a regular pentagon round the hub: moving a rim
-// vertex along its ray keeps both of its triangles turning the same way
-// until it reaches the hub, so only the boundary's convexity can refuse it,
-// and it must once the vertex passes the chord between its neighbours
-// (at cos 72 degrees, 0.309 of the radius, in a regular pentagon).
-func TestMoveGuardBoundary(t *testing.T) {
-	emb, _, region, vs := wheelRim(t)
-	x, y := make([]int64, len(vs)), make([]int64, len(vs))
-	for i, d := range region.face {
-		a := 2 * math.Pi * float64(i) / 5
-		x[emb.Tail(d)] = int64(math.Round(10000 * math.Cos(a)))
-		y[emb.Tail(d)] = int64(math.Round(10000 * math.Sin(a)))
-	}
-	if !planeDrawing(emb, vs, region, x, y, make([]bool, 2*emb.M())) {
-		t.Fatal("the pentagon drawing is not plane")
-	}
-	guard, ok := newMoveGuard(emb, vs, region, x, y)
-	if !ok {
-		t.Fatal("no guard")
-	}
-	v := emb.Tail(region.face[0])
-	for _, tc := range []struct {
-		radius float64
-		ok     bool
-	}{{1.1, true}, {0.5, true}, {0.35, true}, {0.28, false}, {0.1, false}} {
-		px, py := int64(math.Round(10000*tc.radius)), int64(0)
-		if got := guard.allows(v, px, py); got != tc.ok {
-			t.Errorf("rim vertex to %.2f of the radius: allowed %v, want %v", tc.radius, got, tc.ok)
-		}
-	}
-	// Past the hub the triangles flip too.
-	if guard.allows(v, -100, 0) {
-		t.Error("rim vertex moved past the hub: allowed")
-	}
-}
-
 // TestEquilateral maps Schnyder drawings of triangulations, whose outer
 // triangle has a right angle, onto an equilateral outer triangle, and
 // checks that the corners end up equally far apart (up to rounding), that
@@ -295,7 +186,7 @@ func TestEquilateral(t *testing.T) {
 		vs := d.members[0]
 		f0 := d.triOuter[0]
 		f1 := d.aug.FaceNext(f0)
-		region := &outerRegion{face: []int32{f0, f1, d.aug.FaceNext(f1)}}
+		region := &spacing.Outer{Face: []int32{f0, f1, d.aug.FaceNext(f1)}}
 		corners := [3]int32{d.aug.Tail(f0), d.aug.Tail(f1), d.aug.Tail(d.aug.FaceNext(f1))}
 		n := d.aug.N()
 		x, y := make([]int64, n), make([]int64, n)
@@ -303,18 +194,23 @@ func TestEquilateral(t *testing.T) {
 			x[v], y[v] = res.local.X[v]*1000, res.local.Y[v]*1000
 		}
 		seen := make([]bool, 2*d.aug.M())
-		turn := triangleSign(d.aug, f0, x, y)
+		// The turn of the outer triangle, the one on the left of f0.
+		outerTurn := func() int {
+			a, b, c := corners[0], corners[1], corners[2]
+			return exact.OrientInt(x[a], y[a], x[b], y[b], x[c], y[c])
+		}
+		turn := outerTurn()
 		before := cornerCoordinates(vs, corners, x, y)
-		equilateral(d.aug, vs, region, x, y, seen)
+		spacing.Equilateral(d.aug, vs, region, x, y, seen)
 		side := func(a, b int32) float64 { return math.Hypot(float64(x[b]-x[a]), float64(y[b]-y[a])) }
 		s01, s12, s20 := side(corners[0], corners[1]), side(corners[1], corners[2]), side(corners[2], corners[0])
-		if math.Abs(s01-relaxFrame) > 2 || math.Abs(s12-relaxFrame) > 2 || math.Abs(s20-relaxFrame) > 2 {
-			t.Errorf("%s: outer sides %.1f, %.1f, %.1f, want %d", g.Name, s01, s12, s20, relaxFrame)
+		if math.Abs(s01-spacing.RelaxFrame) > 2 || math.Abs(s12-spacing.RelaxFrame) > 2 || math.Abs(s20-spacing.RelaxFrame) > 2 {
+			t.Errorf("%s: outer sides %.1f, %.1f, %.1f, want %d", g.Name, s01, s12, s20, spacing.RelaxFrame)
 		}
-		if got := triangleSign(d.aug, f0, x, y); got != turn {
+		if got := outerTurn(); got != turn {
 			t.Errorf("%s: outer triangle turns %d, was %d", g.Name, got, turn)
 		}
-		if !planeDrawing(d.aug, vs, region, x, y, seen) {
+		if !spacing.Plane(d.aug, vs, region, x, y, seen) {
 			t.Errorf("%s: not a plane drawing after the map", g.Name)
 		}
 		after := cornerCoordinates(vs, corners, x, y)

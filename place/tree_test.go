@@ -6,7 +6,7 @@ import (
 	"github.com/gridwood/gridwood/internal/graphgen"
 )
 
-// TestLayeredTrees checks trees drawn in layers (layeredTree, spaceTree)
+// TestLayeredTrees checks trees drawn in layers (spacing.Tree)
 // with geomcheck, the independent crossing checker: on 300 seeded random
 // trees of 3 to 600 vertices, stars, paths and a forest, with boxes of
 // varied widths, no two edges cross or touch, no node lies on an edge,

@@ -1,4 +1,62 @@
-package place
+package spacing
+
+// Tree draws a tree component in layers (see layeredTree) into x, y:
+// columns one box width plus the gap apart, layers one box height plus
+// twice the gap. Then the layers are pulled apart by the least factor
+// (found by doubling and halving) that keeps every edge off the boxes it
+// passes: only a shallow edge can pass a box, always one in a layer it
+// ends in, and taller layers make every edge steeper, so widening the
+// drawing never helps. Any such scaling keeps the drawing plane once
+// rounded: the proof needs only the order of the layers and of the
+// vertices within each.
+//
+// It reports how it ended: cleared, crowded (clearing would need more
+// than maxExtent points), or unchecked (the clearance check ran out of
+// work).
+func Tree(vs []int32, edges [][2]int32, hw, hh []int64, gap int64, x, y []int64, stamp []int32) (crowded, unchecked bool) {
+	var w, h int64
+	for _, v := range vs {
+		w, h = max(w, hw[v]), max(h, hh[v])
+	}
+	column := 2*w + gap
+	column += column & 1 // even: half columns are whole points
+	layer := max(1, 2*h+2*gap)
+	layeredTree(vs, edges, max(2, column), layer, x, y)
+	top := int64(0)
+	for _, v := range vs {
+		top = max(top, y[v])
+	}
+	depth := top / layer // layers below the root
+	clear := func(l int64) bool {
+		for _, v := range vs {
+			y[v] = y[v] / layer * l
+		}
+		layer = l
+		s, checked := ClearingStretch(vs, edges, x, y, hw, hh, gap, stamp, NewMeter(len(edges)), true)
+		unchecked = !checked
+		return checked && s <= 1
+	}
+	lo, hi := layer, layer
+	for !clear(hi) {
+		if unchecked {
+			return false, true
+		}
+		lo, hi = hi, 2*hi
+		if hi*max(1, depth) > maxExtent {
+			return true, false // too tall to clear: the last try stands
+		}
+	}
+	for hi-lo > max(1, lo/64) { // within 1/64 of the least
+		mid := lo + (hi-lo)/2
+		if clear(mid) {
+			hi = mid
+		} else {
+			lo = mid
+		}
+	}
+	clear(hi)
+	return false, false
+}
 
 // layeredTree draws a tree component in layers, in the manner of the tidy
 // drawings of E. Reingold and J. Tilford ("Tidier drawings of trees", IEEE

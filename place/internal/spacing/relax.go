@@ -1,4 +1,4 @@
-package place
+package spacing
 
 import (
 	"math"
@@ -8,44 +8,43 @@ import (
 	"github.com/gridwood/gridwood/planarize"
 )
 
-// Bounds of relax.
+// Bounds of Relax.
 const (
 	// relaxRounds bounds the rounds over the vertices; most of the gain
 	// comes in the first ten.
 	relaxRounds = 20
-	// relaxFrame is the extent, in integer steps, the drawing is scaled
+	// RelaxFrame is the extent, in integer steps, the drawing is scaled
 	// up to before it is relaxed, so that small moves are possible; well
 	// below 2^30, where orientation tests stop being exact.
-	relaxFrame = 1 << 27
+	RelaxFrame = 1 << 27
 	// relaxEdgeUnits is the median edge length, in grown half boxes, the
 	// relaxed drawing is scaled to for the clearance check.
 	relaxEdgeUnits = 4
 	// relaxOutlier: a largest box more than this times the 90th
-	// percentile's gets a second try without it (see relaxReaches).
+	// percentile's gets a second try without it (see Reaches).
 	relaxOutlier = 2
 )
 
-// relaxLimit is the largest component relaxed; a variable so that tests
-// can compare spacing without relaxation.
-var relaxLimit = gridCompareLimit
+// RelaxLimit is the largest component relaxed.
+const RelaxLimit = GridCompareLimit
 
-// relaxDirections are the directions relax tries a vertex in.
+// relaxDirections are the directions Relax tries a vertex in.
 var relaxDirections = [...][2]float64{{1, 0}, {0.7071, 0.7071}, {0, 1}, {-0.7071, 0.7071}, {-1, 0}, {-0.7071, -0.7071}, {0, -1}, {0.7071, -0.7071}}
 
-// relax evens out a plane drawing of a component of the augmented
-// triangulation (see planeDrawing) by moving one vertex at a time to
+// Relax evens out a plane drawing of a component of the augmented
+// triangulation (see Plane) by moving one vertex at a time to
 // where the room around it is largest: the combination of Laplacian and
 // optimization-based smoothing used on triangle meshes (L. A. Freitag,
 // "On combining Laplacian and optimization-based mesh smoothing
 // techniques", ASME AMD 220, 1997; cited from memory), with the exact guard
 // of F. Bertault's planarity-preserving refinement in place of his movement
-// zones (see refine).
+// zones (see Refine).
 //
 // The room at a vertex is the least height of a triangle at it (any of its
 // three vertices over the opposite side) and half the larger axis distance
 // to a neighbour, measured in grown half boxes (x in units of reach[0], y
 // of reach[1]: the widest box's half width and the tallest's half height,
-// each plus the gap, or typical ones, see relaxReaches), so that it evens
+// each plus the gap, or typical ones, see Reaches), so that it evens
 // out the room boxes need. The least height over all triangles
 // bounds every distance from a vertex to an edge it does not end at (the
 // segment between them leaves the vertex's star through one of its far
@@ -56,18 +55,18 @@ var relaxDirections = [...][2]float64{{1, 0}, {0.7071, 0.7071}, {0, 1}, {-0.7071
 // way the inner faces do (moveGuard's test), so the drawing stays plane
 // throughout. Boundary vertices move too, within the drawing's bounding
 // box and keeping the boundary strictly convex; an outer triangle is first
-// mapped onto an equilateral one (see equilateral).
+// mapped onto an equilateral one (see Equilateral).
 //
 // local is scratch of one entry per vertex of the whole graph.
 //
 // On return x, y hold the relaxed drawing scaled so that its median input
 // edge is relaxEdgeUnits grown half boxes long, rounded and checked to be
-// a plane drawing (or at a larger scale where it rounds to one), and relax
+// a plane drawing (or at a larger scale where it rounds to one), and Relax
 // reports true; when it cannot run, or its result is not a plane drawing,
 // it reports false and x, y are unusable.
-func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, reach [2]int64, seen []bool, local []int32) bool {
+func Relax(emb *planarize.Embedding, vs []int32, outer *Outer, edges [][2]int32, x, y, hw, hh []int64, gap int64, reach [2]int64, seen []bool, local []int32) bool {
 	n := len(vs)
-	if n < 4 || n > relaxLimit || len(edges) == 0 || !planeDrawing(emb, vs, outer, x, y, seen) {
+	if n < 4 || n > RelaxLimit || len(edges) == 0 || !Plane(emb, vs, outer, x, y, seen) {
 		return false
 	}
 	reachX, reachY := reach[0], reach[1]
@@ -80,12 +79,12 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 	}
 	// Scale up by a whole factor, which keeps every orientation, and move
 	// the corner to the origin.
-	k := max(1, relaxFrame/max(1, maxX-minX, maxY-minY))
+	k := max(1, RelaxFrame/max(1, maxX-minX, maxY-minY))
 	for _, v := range vs {
 		x[v], y[v] = (x[v]-minX)*k, (y[v]-minY)*k
 	}
-	if len(outer.face) == 3 {
-		equilateral(emb, vs, outer, x, y, seen)
+	if len(outer.Face) == 3 {
+		Equilateral(emb, vs, outer, x, y, seen)
 	}
 	guard, ok := newMoveGuard(emb, vs, outer, x, y)
 	if !ok {
@@ -306,7 +305,7 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 			x[v] = int64(math.Round(float64(big[i][0]) * f))
 			y[v] = int64(math.Round(float64(big[i][1]) * f))
 		}
-		if planeDrawing(emb, vs, outer, x, y, seen) {
+		if Plane(emb, vs, outer, x, y, seen) {
 			return true
 		}
 	}
@@ -315,21 +314,21 @@ func relax(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]
 	}
 	// Every move was checked locally; the whole is checked once more, as
 	// local checks on the boundary cannot see it wind round twice.
-	return planeDrawing(emb, vs, outer, x, y, seen)
+	return Plane(emb, vs, outer, x, y, seen)
 }
 
-// relaxReaches are the grown half boxes relax measures room in, per axis:
+// Reaches are the grown half boxes Relax measures room in, per axis:
 // the largest, and, when that is more than relaxOutlier times the 90th
 // percentile, the percentile as well, so that a few big nodes (a long
 // label, a legend) need not set every other node's room and blow the
 // drawing up around them; the final stretch still clears the big boxes.
-// Space relaxes with each and keeps the smaller drawing: neither wins
-// everywhere. Measured on a 100-node random planar graph with one
-// 52-character label: 9,624 x 8,898 points, against 23,317 x 20,726 with
-// the largest box only; relaxing by the percentile alone, the shipped
-// campus example, whose labels vary less, came out 472 x 414 instead of
-// 428 x 369 (bench/RESULTS.md has the corpus figures).
-func relaxReaches(vs []int32, hw, hh []int64, gap int64) [][2]int64 {
+// The spacing rule (place.Result.Space) relaxes with each and keeps the
+// smaller drawing: neither wins everywhere. Measured on a 100-node random
+// planar graph with one 52-character label: 9,624 x 8,898 points, against
+// 23,317 x 20,726 with the largest box only; relaxing by the percentile
+// alone, the shipped campus example, whose labels vary less, came out
+// 472 x 414 instead of 428 x 369 (bench/RESULTS.md has the corpus figures).
+func Reaches(vs []int32, hw, hh []int64, gap int64) [][2]int64 {
 	rx, ry := make([]int64, len(vs)), make([]int64, len(vs))
 	for i, v := range vs {
 		rx[i], ry[i] = hw[v]+gap, hh[v]+gap
@@ -349,17 +348,17 @@ func relaxReaches(vs []int32, hw, hh []int64, gap int64) [][2]int64 {
 	return [][2]int64{widest, typical}
 }
 
-// equilateral maps a plane drawing whose outer face is a triangle
+// Equilateral maps a plane drawing whose outer face is a triangle
 // affinely onto one whose outer face is an equilateral triangle of side
-// relaxFrame, turning the same way, and keeps it if it rounds to a plane
+// RelaxFrame, turning the same way, and keeps it if it rounds to a plane
 // drawing. The Schnyder and face-count drawings put the outer triangle on
 // a right angle and two half right angles; the vertices whose edges fan
-// out in a narrow corner are where a drawing crowds, and relax moves the
+// out in a narrow corner are where a drawing crowds, and Relax moves the
 // corners only within the drawing's bounding box. An equilateral outer triangle took a fifth to two
 // thirds of the area off relaxed random triangulations and random planar
 // graphs of 100 to 1,000 nodes (see bench/RESULTS.md).
-func equilateral(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y []int64, seen []bool) {
-	a, b, c := emb.Tail(outer.face[0]), emb.Tail(outer.face[1]), emb.Tail(outer.face[2])
+func Equilateral(emb *planarize.Embedding, vs []int32, outer *Outer, x, y []int64, seen []bool) {
+	a, b, c := emb.Tail(outer.Face[0]), emb.Tail(outer.Face[1]), emb.Tail(outer.Face[2])
 	ax, ay := float64(x[a]), float64(y[a])
 	bx, by := float64(x[b])-ax, float64(y[b])-ay
 	cx, cy := float64(x[c])-ax, float64(y[c])-ay
@@ -368,7 +367,7 @@ func equilateral(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y 
 		return
 	}
 	// The corners' new places, turning as a, b, c did.
-	side := float64(relaxFrame)
+	side := float64(RelaxFrame)
 	height := math.Sqrt(0.75) * side
 	qbx, qby, qcx, qcy := side, 0.0, side/2, height
 	if det < 0 {
@@ -384,9 +383,38 @@ func equilateral(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y 
 		x[v] = int64(math.Round(float64(s*qbx) + float64(t*qcx)))
 		y[v] = int64(math.Round(float64(s*qby) + float64(t*qcy)))
 	}
-	if !planeDrawing(emb, vs, outer, x, y, seen) {
+	if !Plane(emb, vs, outer, x, y, seen) {
 		for i, v := range vs {
 			x[v], y[v] = old[i][0], old[i][1]
 		}
 	}
+}
+
+// RelaxWins relaxes a copy of the finished drawing in px, py (see Relax),
+// stretches and shrinks it as spacing does, and when it then clears every
+// box in less area than px, py writes it to px, py and reports true. tx,
+// ty, lx, ly are scratch; stamp is Relax's and the clearance passes'.
+func RelaxWins(aug *planarize.Embedding, vs []int32, region *Outer, edges [][2]int32, px, py, tx, ty, lx, ly, hw, hh []int64, gap int64, reach [2]int64, seen []bool, stamp []int32) bool {
+	if len(vs) > RelaxLimit {
+		return false
+	}
+	for _, v := range vs {
+		tx[v], ty[v] = px[v], py[v]
+	}
+	if !Relax(aug, vs, region, edges, tx, ty, hw, hh, gap, reach, seen, stamp) {
+		return false
+	}
+	s, ok := ClearingStretch(vs, edges, tx, ty, hw, hh, gap, stamp, NewMeter(len(edges)), true)
+	if !ok || s > StretchLimit(vs, tx, ty, hw, hh) {
+		return false
+	}
+	Stretch(aug, vs, region, tx, ty, s, lx, ly, seen)
+	Shrink(aug, vs, region, edges, tx, ty, hw, hh, gap, lx, ly, seen, stamp)
+	if ClearedArea(vs, tx, ty, 1, hw, hh) >= ClearedArea(vs, px, py, 1, hw, hh) {
+		return false
+	}
+	for _, v := range vs {
+		px[v], py[v] = tx[v], ty[v]
+	}
+	return true
 }

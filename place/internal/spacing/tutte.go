@@ -1,4 +1,4 @@
-package place
+package spacing
 
 import (
 	"github.com/gridwood/gridwood/internal/exact"
@@ -11,29 +11,25 @@ import (
 // tests on its coordinates stay exact in int64.
 const fineSpan = 1 << 30
 
-// readableLimit is the largest component given the passes that are there
+// ReadableLimit is the largest component given the passes that are there
 // only for the picture: Tutte's drawing, compaction, refinement and the
 // clearance check. A component this big is hardly read as a picture, and
 // above it every component goes through the same linear passes, so the
 // cost per edge stays flat from 10^4 vertices up (bench/RESULTS.md, The
-// usual traps). tutteTriangleLimit is the largest component given Tutte's
-// drawing when its outer face is a triangle.
-const (
-	readableLimit      = 5000
-	tutteTriangleLimit = 100
-)
+// usual traps).
+const ReadableLimit = 5000
 
-// outerRegion describes a component's outer face F as the layout chose it:
+// Outer describes a component's outer face F as the layout chose it:
 // its darts in face order (F on their left) and the dummy edges that
-// triangulated F, numbered lo..hi-1 (none when F was a triangle).
-type outerRegion struct {
-	face   []int32
-	lo, hi int
+// triangulated F, numbered Lo..Hi-1 (none when F was a triangle).
+type Outer struct {
+	Face   []int32
+	Lo, Hi int
 }
 
-func (o *outerRegion) isDummy(e int32) bool { return int(e) >= o.lo && int(e) < o.hi }
+func (o *Outer) isDummy(e int32) bool { return int(e) >= o.Lo && int(e) < o.Hi }
 
-// tutteDrawing computes W. T. Tutte's barycentric drawing ("How to draw a
+// Tutte computes W. T. Tutte's barycentric drawing ("How to draw a
 // graph", Proc. London Math. Soc. 13, 1963) of one component of the
 // augmented triangulation, with the outer face F pinned to a convex polygon
 // and F's own dummy edges left out: every other vertex sits at the average
@@ -42,15 +38,15 @@ func (o *outerRegion) isDummy(e int32) bool { return int(e) >= o.lo && int(e) < 
 // rounded into the frame [0, fineSpan]^2. A triangulated disk with a
 // convex boundary drawn this way is a plane drawing (Tutte's theorem, and
 // for triangulations Floater 2003), but rounding and an unfinished solve
-// could spoil it, so the caller checks it exactly with planeDrawing. x, y
+// could spoil it, so the caller checks it exactly with Plane. x, y
 // receive the coordinates of the component's vertices.
-func tutteDrawing(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y []int64, iters int) {
-	k := len(outer.face)
+func Tutte(emb *planarize.Embedding, vs []int32, outer *Outer, x, y []int64, iters int) {
+	k := len(outer.Face)
 	onOuter := make(map[int32]bool, k)
 	// The polygon: F is walked with the outer face on its left, which is
 	// clockwise in the final picture, so place its vertices clockwise.
 	half := float64(fineSpan / 2)
-	for i, d := range outer.face {
+	for i, d := range outer.Face {
 		v := emb.Tail(d)
 		onOuter[v] = true
 		c, s := circlePoint(i, k)
@@ -184,16 +180,16 @@ func triangleSign(emb *planarize.Embedding, d int32, x, y []int64) int {
 // and each full round passes the direction of the positive x axis once.
 // Only 1 makes a simple, hence convex, polygon; all turns one way alone
 // would also let a star polygon such as the pentagram through.
-func boundaryWinding(emb *planarize.Embedding, outer *outerRegion, x, y []int64, turn int) int {
+func boundaryWinding(emb *planarize.Embedding, outer *Outer, x, y []int64, turn int) int {
 	// upper: the direction's angle lies in [0, pi).
 	upper := func(d int32) bool {
 		dx, dy := x[emb.Head(d)]-x[emb.Tail(d)], y[emb.Head(d)]-y[emb.Tail(d)]
 		return dy > 0 || dy == 0 && dx > 0
 	}
-	k := len(outer.face)
+	k := len(outer.Face)
 	rounds := 0
-	for i, d := range outer.face {
-		now, next := upper(d), upper(outer.face[(i+1)%k])
+	for i, d := range outer.Face {
+		now, next := upper(d), upper(outer.Face[(i+1)%k])
 		// Turning left, a round ends where the direction passes from the
 		// lower half to the upper one; turning right, the other way.
 		if turn > 0 && !now && next || turn < 0 && now && !next {
@@ -203,7 +199,7 @@ func boundaryWinding(emb *planarize.Embedding, outer *outerRegion, x, y []int64,
 	return rounds
 }
 
-// planeDrawing reports, exactly, whether the component's drawing in the
+// Plane reports, exactly, whether the component's drawing in the
 // frame x, y is a plane drawing of the triangulation minus the outer
 // region: the outer face F is a strictly convex polygon and every other
 // face is a triangle turning the opposite way. Then each point inside the
@@ -211,15 +207,15 @@ func boundaryWinding(emb *planarize.Embedding, outer *outerRegion, x, y []int64,
 // degree one and preserves orientation everywhere), so the drawing has no
 // crossing or touching, and neither has any subgraph's. seen is scratch,
 // all false, of one entry per dart; it is left all false.
-func planeDrawing(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y []int64, seen []bool) bool {
-	k := len(outer.face)
+func Plane(emb *planarize.Embedding, vs []int32, outer *Outer, x, y []int64, seen []bool) bool {
+	k := len(outer.Face)
 	if k < 3 {
 		return false
 	}
 	turn := 0
-	for i, d := range outer.face {
+	for i, d := range outer.Face {
 		a, b := emb.Tail(d), emb.Head(d)
-		c := emb.Head(outer.face[(i+1)%k])
+		c := emb.Head(outer.Face[(i+1)%k])
 		t := exact.OrientInt(x[a], y[a], x[b], y[b], x[c], y[c])
 		if t == 0 || turn != 0 && t != turn {
 			return false
@@ -235,7 +231,7 @@ func planeDrawing(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y
 		seen[d] = true
 		marked = append(marked, d)
 	}
-	for _, d := range outer.face {
+	for _, d := range outer.Face {
 		mark(d)
 	}
 	for _, v := range vs {

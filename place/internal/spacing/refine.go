@@ -1,16 +1,15 @@
-package place
+package spacing
 
 import (
 	"math"
 
-	"github.com/gridwood/gridwood/internal/exact"
 	"github.com/gridwood/gridwood/planarize"
 )
 
-// refineRounds bounds the push rounds of refine.
+// refineRounds bounds the push rounds of Refine.
 const refineRounds = 16
 
-// refine pushes vertices away from what crowds them, in the spirit of
+// Refine pushes vertices away from what crowds them, in the spirit of
 // F. Bertault's planarity-preserving force-directed refinement ("A
 // force-directed algorithm that preserves edge-crossing properties",
 // Inform. Process. Lett. 74, 2000), but with an exact guard instead of
@@ -20,15 +19,15 @@ const refineRounds = 16
 // the orientation of the inner faces (tested in integers), halving the
 // step until it does. Boundary vertices move only as far as the boundary
 // stays a strictly convex polygon. So a drawing that starts plane (see
-// planeDrawing; refine checks it first, since the argument needs it) stays
+// Plane; Refine checks it first, since the argument needs it) stays
 // plane after every move, while the need to stretch the whole drawing to
-// clear its boxes shrinks. seen is planeDrawing's scratch, push scratch of
+// clear its boxes shrinks. seen is Plane's scratch, push scratch of
 // one entry per vertex of the whole graph.
-func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, seen []bool, push [][2]float64, meter *workMeter) {
-	if len(vs) < 4 || len(vs) > readableLimit {
+func Refine(emb *planarize.Embedding, vs []int32, outer *Outer, edges [][2]int32, x, y, hw, hh []int64, gap int64, stamp []int32, seen []bool, push [][2]float64, meter *Meter) {
+	if len(vs) < 4 || len(vs) > ReadableLimit {
 		return // big components keep their drawing: many rounds would dominate the run
 	}
-	if !planeDrawing(emb, vs, outer, x, y, seen) {
+	if !Plane(emb, vs, outer, x, y, seen) {
 		return // not the triangulation's plane drawing: moves could not be judged locally
 	}
 	guard, ok := newMoveGuard(emb, vs, outer, x, y)
@@ -55,7 +54,7 @@ func refine(emb *planarize.Embedding, vs []int32, outer *outerRegion, edges [][2
 		// Every move was checked locally; the whole is checked once
 		// more, as local checks on the boundary cannot see it wind round
 		// twice. Failing that, the drawing is left as it came.
-		if !planeDrawing(emb, vs, outer, x, y, seen) {
+		if !Plane(emb, vs, outer, x, y, seen) {
 			for i, v := range vs {
 				x[v], y[v] = startX[i], startY[i]
 			}
@@ -161,96 +160,4 @@ func sign64(d int64, tie bool) int64 {
 		return 1
 	}
 	return -1
-}
-
-// moveGuard judges, exactly, single-vertex moves in a plane drawing of a
-// component of the augmented triangulation (see planeDrawing): a vertex
-// may move where every triangle at it keeps the orientation of the inner
-// faces, and, on the outer face, where the boundary stays a strictly
-// convex polygon turning the same way. Each allowed move keeps the drawing
-// plane, so any sequence of them does.
-type moveGuard struct {
-	emb          *planarize.Embedding
-	outer        *outerRegion
-	x, y         []int64
-	pos          map[int32]int // boundary vertex -> its place on the outer face
-	outerDart    map[int32]bool
-	boundaryTurn int
-	innerSign    int
-}
-
-// newMoveGuard sets up the guard for the drawing in x, y, which must be a
-// plane drawing; ok is false when the drawing has no inner vertex or a
-// degenerate boundary to take the orientations from.
-func newMoveGuard(emb *planarize.Embedding, vs []int32, outer *outerRegion, x, y []int64) (*moveGuard, bool) {
-	g := &moveGuard{emb: emb, outer: outer, x: x, y: y,
-		pos: make(map[int32]int, len(outer.face)), outerDart: make(map[int32]bool, len(outer.face))}
-	for i, d := range outer.face {
-		g.pos[emb.Tail(d)] = i
-		g.outerDart[d] = true
-	}
-	g.boundaryTurn = g.turnAt(0, -1, 0, 0)
-	for _, v := range vs {
-		if _, on := g.pos[v]; !on {
-			g.innerSign = triangleSign(emb, emb.First(v), x, y)
-			break
-		}
-	}
-	return g, g.innerSign != 0 && g.boundaryTurn != 0
-}
-
-// at is the vertex at place i (mod k) of the outer face.
-func (g *moveGuard) at(i int) int32 {
-	k := len(g.outer.face)
-	return g.emb.Tail(g.outer.face[((i%k)+k)%k])
-}
-
-// turnAt is the boundary's turn at place i with v moved to (px, py).
-func (g *moveGuard) turnAt(i int, v int32, px, py int64) int {
-	x, y := g.x, g.y
-	a, b, c := g.at(i-1), g.at(i), g.at(i+1)
-	ax, ay, bx, by, cx, cy := x[a], y[a], x[b], y[b], x[c], y[c]
-	switch v {
-	case a:
-		ax, ay = px, py
-	case b:
-		bx, by = px, py
-	case c:
-		cx, cy = px, py
-	}
-	return exact.OrientInt(ax, ay, bx, by, cx, cy)
-}
-
-// regionCorner reports whether the triangle on the left of dart h is
-// outside the drawn region: the outer face, or a triangle of its dummies.
-func (g *moveGuard) regionCorner(h int32) bool {
-	if g.outerDart[h] {
-		return true
-	}
-	emb := g.emb
-	f1 := emb.FaceNext(h)
-	return g.outer.isDummy(h>>1) || g.outer.isDummy(f1>>1) || g.outer.isDummy(emb.FaceNext(f1)>>1)
-}
-
-// allows reports whether v may move to (px, py).
-func (g *moveGuard) allows(v int32, px, py int64) bool {
-	if i, on := g.pos[v]; on {
-		for j := i - 1; j <= i+1; j++ {
-			if g.turnAt(j, v, px, py) != g.boundaryTurn {
-				return false
-			}
-		}
-	}
-	emb, x, y := g.emb, g.x, g.y
-	h := emb.First(v)
-	for range emb.Degree(v) {
-		if !g.regionCorner(h) {
-			a, b := emb.Head(h), emb.Head(emb.Next(h))
-			if exact.OrientInt(px, py, x[a], y[a], x[b], y[b]) != g.innerSign {
-				return false
-			}
-		}
-		h = emb.Next(h)
-	}
-	return true
 }
