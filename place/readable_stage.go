@@ -188,10 +188,7 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	if err != nil {
 		return err
 	}
-	// Kept only if it reads no worse than the spaced drawing by the
-	// stress model's own measure, at the best scale of each (stretching
-	// does not change it).
-	if res.Crowded || res.Gain > maxReadableStressShare {
+	if res.Crowded {
 		return errCrowded
 	}
 	out.Readable++
@@ -233,14 +230,25 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 		// stretching can clear in reasonable size.
 		return nil, nil, 0, false, false
 	}
-	// Of the drawing after the margins phase and the one before it, the
-	// one that clears its boxes in less area; if neither does, the
-	// component is spaced from its grid drawing instead.
-	x, y, area, unchecked, ok := round(res.X, res.Y)
-	if res.BeforeMarginsX != nil {
-		if x2, y2, area2, unchecked2, ok2 := round(res.BeforeMarginsX, res.BeforeMarginsY); ok2 && (!ok || area2 < area) {
-			x, y, unchecked, ok = x2, y2, unchecked2, true
+	// Of the drawing after the margins phase and its alternatives, those
+	// that read no worse than the spaced drawing by the stress model's own
+	// measure (at the best scale of each: stretching does not change it)
+	// compete, and the one that clears its boxes in the least area wins;
+	// if none does, the component is spaced from its grid drawing instead.
+	var x, y []int64
+	var area float64
+	var unchecked, ok bool
+	try := func(rx, ry []float64, gain float64) {
+		if gain > maxReadableStressShare {
+			return
 		}
+		if x2, y2, area2, unchecked2, ok2 := round(rx, ry); ok2 && (!ok || area2 < area) {
+			x, y, area, unchecked, ok = x2, y2, area2, unchecked2, true
+		}
+	}
+	try(res.X, res.Y, res.Gain)
+	for _, a := range res.Alternatives {
+		try(a.X, a.Y, a.Gain)
 	}
 	if !ok {
 		out.Readable--

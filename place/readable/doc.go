@@ -53,8 +53,13 @@
 // conflicts (a box too near another box or an edge) added to its target,
 // and locally inflates crowded spots, so that the boxes part with little
 // uniform stretching. Parting boxes in one spot can press another
-// tighter, so the drawing from before the phase is returned as well
-// (Output.BeforeMarginsX, Y), for the caller to keep whichever clears its
-// boxes in less area by its own exact check. Work is bounded in stress terms (Options.Work), and
-// every phase by a number of sweeps: the result never depends on a clock.
+// tighter, and parting boxes pressed all over can wreck the drawing's
+// shape, so Output.Alternatives holds the drawing from before the phase
+// and, where the best candidate's boxes needed more than twice its size
+// to clear, the phase run with boxes loosened by the square root of that
+// (parting them half way, the rest left to an even stretch), for the
+// caller to keep whichever reads no worse than its start and clears its
+// boxes in the least area by its own exact check. Work is bounded in
+// stress terms (Options.Work), and every phase by a number of sweeps: the
+// result never depends on a clock.
 package readable

@@ -76,13 +76,23 @@ type Output struct {
 	// Stress is the model's stress of the result (over the model's pairs),
 	// and StartStress that of the rescaled start.
 	Stress, StartStress float64
-	// BeforeMarginsX, BeforeMarginsY are the drawing as it was before the
-	// margins phase (nil if the phase did not run).
-	BeforeMarginsX, BeforeMarginsY []float64
+	// Alternatives are other drawings of the same run, plane too, for the
+	// caller to weigh by its own exact clearance (none if the margins phase
+	// did not run): the drawing as it was before the margins phase, and
+	// where boxes were much pressed, the margins phase run on it with
+	// loosened boxes (see loosenedBoxes).
+	Alternatives []Alternative
 	// Gain is the model's stress of the result over that of the start,
 	// each at its best scale: below 1 where the result reads better by the
 	// model's own ideal distances (edge extras and groups included).
 	Gain float64
+}
+
+// Alternative is a drawing Draw returns beside its result.
+type Alternative struct {
+	Name string // "before margins" or "loose margins"
+	X, Y []float64
+	Gain float64 // as Output.Gain
 }
 
 // Phase is one phase of Draw: the sweeps it made, the model's stress
@@ -307,9 +317,31 @@ func Draw(in Input, opt Options) (*Output, error) {
 	// The margins phase can press a knot tighter while parting boxes
 	// elsewhere: the drawing before it is returned too, for the caller to
 	// weigh by its own exact clearance.
-	out.BeforeMarginsX, out.BeforeMarginsY = slices.Clone(best.x), slices.Clone(best.y)
+	bx, by := slices.Clone(best.x), slices.Clone(best.y)
+	out.Alternatives = append(out.Alternatives, Alternative{Name: "before margins", X: bx, Y: by, Gain: gain(model, bx, by, in.X, in.Y)})
+	marginSweeps := min(maxMarginSweeps, sweepsFor(marginShare))
+	if bestStretch > loosenAbove {
+		// Boxes pressed all over: parting them in full can wreck the
+		// drawing's shape. The same phase with boxes loosened by the
+		// square root of that pressure parts them half way and keeps the
+		// shape; rounding stretches the rest evenly.
+		t = time.Now()
+		lx, ly := slices.Clone(bx), slices.Clone(by)
+		if m, err := mesh.New(lx, ly, in.Edges, reach); err == nil {
+			c := 1 / math.Sqrt(bestStretch)
+			loose := newGuard(m, lx, ly)
+			loose.hw, loose.hh = scaled(hw, c), scaled(hh, c)
+			loose.gap, loose.edgeGap = c*in.Gap, c*in.EdgeGap
+			loose.margins = true
+			k = loose.run(marginSweeps, runTolerance)
+			phase("loose margins", k, lx, ly, t)
+			out.Phases[len(out.Phases)-1].Stretch = loose.stretchNeeded()
+			out.Alternatives = append(out.Alternatives, Alternative{Name: "loose margins", X: lx, Y: ly, Gain: gain(model, lx, ly, in.X, in.Y)})
+		}
+		t = time.Now()
+	}
 	best.margins = true
-	k = best.run(min(maxMarginSweeps, sweepsFor(marginShare)), runTolerance)
+	k = best.run(marginSweeps, runTolerance)
 	phase("margins", k, best.x, best.y, t)
 	out.Phases[len(out.Phases)-1].Stretch = best.stretchNeeded()
 	out.X, out.Y = best.x, best.y
@@ -367,6 +399,10 @@ const (
 	hopelessStretch = 1000
 	// crowdedShare: see guard.boxCrowding.
 	crowdedShare = 0.02
+	// loosenAbove: a best candidate whose boxes need more stretching than
+	// this also gets a margins phase with loosened boxes (see
+	// Output.Alternatives).
+	loosenAbove = 2
 )
 
 // small places one vertex at the origin, or two side by side at their
@@ -432,4 +468,13 @@ func minHeights(n int, edges [][2]int32, lengths []float64) []float64 {
 		}
 	}
 	return h
+}
+
+// scaled returns a copy of v with every element times c.
+func scaled(v []float64, c float64) []float64 {
+	out := make([]float64, len(v))
+	for i, x := range v {
+		out[i] = float64(c * x)
+	}
+	return out
 }

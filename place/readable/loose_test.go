@@ -1,0 +1,87 @@
+package readable_test
+
+import (
+	"math"
+	"testing"
+
+	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place"
+	"github.com/gridwood/gridwood/place/geomcheck"
+	"github.com/gridwood/gridwood/place/quality"
+	"github.com/gridwood/gridwood/place/readable"
+)
+
+// TestLooseMarginsAlternative: where the best candidate's boxes are
+// pressed (the icosahedron's, drawn plane, nest three deep), Draw offers
+// the drawing from before the margins phase and the one parted with
+// loosened boxes beside its result; where they are not (a square grid
+// drawn near its stress optimum), only the first. Each drawing is plane
+// by geomcheck, the independent exact checker, at a fine integer scale.
+func TestLooseMarginsAlternative(t *testing.T) {
+	for _, tc := range []struct {
+		g     graphgen.Graph
+		loose bool
+	}{{graphgen.Icosahedron(), true}, {graphgen.Grid(6, 6), false}} {
+		g := tc.g
+		t.Run(g.Name, func(t *testing.T) {
+			res, err := place.Draw(g.N, g.Edges, place.DrawOptions{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			n := g.N
+			x, y := make([]float64, n), make([]float64, n)
+			hw, hh := make([]float64, n), make([]float64, n)
+			for i := range x {
+				x[i], y[i] = float64(res.X[i]), float64(res.Y[i])
+				hw[i], hh[i] = 27, 18
+			}
+			kept := res.Kept()
+			out, err := readable.Draw(readable.Input{Edges: kept, X: x, Y: y, HalfW: hw, HalfH: hh, Gap: 18, EdgeGap: 13.5}, readable.Options{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			names := map[string]readable.Alternative{}
+			for _, a := range out.Alternatives {
+				names[a.Name] = a
+			}
+			_, before := names["before margins"]
+			_, loose := names["loose margins"]
+			if !before || loose != tc.loose || len(out.Alternatives) != len(names) {
+				t.Fatalf("%d alternatives (before margins %v, loose margins %v), want loose margins %v", len(out.Alternatives), before, loose, tc.loose)
+			}
+			if problems := crossings(t, out.X, out.Y, kept); problems > 0 {
+				t.Errorf("result: %d crossings or touchings", problems)
+			}
+			for _, a := range out.Alternatives {
+				if problems := crossings(t, a.X, a.Y, kept); problems > 0 {
+					t.Errorf("%s: %d crossings or touchings", a.Name, problems)
+				}
+				if !(a.Gain > 0) || math.IsInf(a.Gain, 0) {
+					t.Errorf("%s: gain %v", a.Name, a.Gain)
+				}
+				s, _ := quality.Stress(a.X, a.Y, kept)
+				t.Logf("%s: normalized stress %.4f, gain %.3f", a.Name, s, a.Gain)
+			}
+		})
+	}
+}
+
+// crossings counts the problems geomcheck finds in the drawing scaled so
+// that its extent is about 2^30 and rounded to integers.
+func crossings(t *testing.T, x, y []float64, edges [][2]int32) int {
+	t.Helper()
+	ext := 0.0
+	for i := range x {
+		ext = max(ext, math.Abs(x[i]), math.Abs(y[i]))
+	}
+	s := float64(1<<30) / ext
+	pts := make([]geomcheck.Point, len(x))
+	for i := range x {
+		pts[i] = geomcheck.Point{X: int64(math.Round(x[i] * s)), Y: int64(math.Round(y[i] * s))}
+	}
+	problems, err := geomcheck.Check(pts, edges)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return len(problems)
+}
