@@ -4,6 +4,7 @@ import (
 	"cmp"
 	"slices"
 
+	"github.com/gridwood/gridwood/internal/disjoint"
 	"github.com/gridwood/gridwood/internal/exact"
 	"github.com/gridwood/gridwood/place/mesh"
 	"github.com/gridwood/gridwood/planarize"
@@ -113,7 +114,10 @@ func followOnce(x, y []float64, sorted [][2]int32, doubtful, first []bool) (*pla
 	if !ok || !emb.IsPlane() {
 		return nil, nil, false
 	}
-	comp := newComponents(n, keptEdges)
+	comp := disjoint.New(n)
+	for _, e := range keptEdges {
+		comp.Union(e[0], e[1])
+	}
 	var failed []int
 	for pass := range 3 {
 		for i, e := range sorted {
@@ -161,40 +165,16 @@ func segmentsCross(x, y []float64, a, b, c, d int32) bool {
 	return true
 }
 
-// components tracks which vertices are joined, by union-find.
-type components struct{ parent []int32 }
-
-func newComponents(n int, edges [][2]int32) *components {
-	c := &components{parent: make([]int32, n)}
-	for v := range c.parent {
-		c.parent[v] = int32(v)
-	}
-	for _, e := range edges {
-		c.join(e[0], e[1])
-	}
-	return c
-}
-
-func (c *components) find(v int32) int32 {
-	for c.parent[v] != v {
-		c.parent[v] = c.parent[c.parent[v]]
-		v = c.parent[v]
-	}
-	return v
-}
-
-func (c *components) join(u, v int32) { c.parent[c.find(u)] = c.find(v) }
-
 // addFollowing adds edge u-v to the embedding where the drawing points it:
 // at u after the dart whose counter-clockwise sector holds the direction
 // to v, likewise at v, provided those two corners lie on one face (or u
 // and v lie in different components). Failing that, into any face the two
 // share. It reports false if they share none.
-func addFollowing(emb *planarize.Embedding, comp *components, x, y []float64, u, v int32) bool {
+func addFollowing(emb *planarize.Embedding, comp *disjoint.Sets, x, y []float64, u, v int32) bool {
 	a, b := sectorDart(emb, x, y, u, v), sectorDart(emb, x, y, v, u)
-	if comp.find(u) != comp.find(v) {
+	if comp.Find(u) != comp.Find(v) {
 		emb.AddEdge(a, b, u, v)
-		comp.join(u, v)
+		comp.Union(u, v)
 		return true
 	}
 	if a >= 0 && b >= 0 && onFace(emb, a, b) {
