@@ -120,7 +120,7 @@ func Layout(emb *planarize.Embedding, opt Options) (*Drawing, error) {
 	if !emb.IsPlane() {
 		return nil, errNotPlane
 	}
-	if !simpleEdges(emb) {
+	if !emb.IsSimple() {
 		return nil, errNotSimple
 	}
 	d, _, err := layout(emb.Clone(), opt)
@@ -131,18 +131,6 @@ var (
 	errNotPlane  = errors.New("place: the rotation system is not a plane embedding")
 	errNotSimple = errors.New("place: the embedding has a loop or a repeated edge")
 )
-
-// simpleEdges reports whether no edge is a loop and no pair repeats.
-func simpleEdges(emb *planarize.Embedding) bool {
-	edges := emb.Edges()
-	for _, e := range edges {
-		if e[0] == e[1] {
-			return false
-		}
-	}
-	simple, _ := planarize.Simplify(emb.N(), edges)
-	return len(simple) == len(edges)
-}
 
 // tutteTriangleLimit is the largest component given Tutte's drawing when
 // its outer face is a triangle.

@@ -81,3 +81,25 @@ func Simplify(n int, raw [][2]int32) (simple [][2]int32, index []int32) {
 	}
 	return simple, index
 }
+
+// IsSimple reports whether the embedding has no loop and no two edges
+// joining the same pair, in O(n + m).
+func (e *Embedding) IsSimple() bool {
+	n := e.N()
+	seen := make([]int32, n) // seen[u] == v: u is already a neighbour of v
+	for v := range seen {
+		seen[v] = -1
+	}
+	for v := int32(0); int(v) < n; v++ {
+		d := e.First(v)
+		for range e.Degree(v) {
+			u := e.Head(d)
+			if u == v || seen[u] == v {
+				return false
+			}
+			seen[u] = v
+			d = e.Next(d)
+		}
+	}
+	return true
+}

@@ -103,3 +103,34 @@ func TestSimplifyRandom(t *testing.T) {
 		}
 	}
 }
+
+// TestIsSimple: a loop or a repeated pair makes an embedding non-simple,
+// whatever else it holds (the definition of a simple graph, common
+// practice).
+func TestIsSimple(t *testing.T) {
+	for _, tc := range []struct {
+		name  string
+		n     int
+		edges [][2]int32
+		want  bool
+	}{
+		{"empty", 3, nil, true},
+		{"triangle", 3, [][2]int32{{0, 1}, {1, 2}, {2, 0}}, true},
+		{"loop", 2, [][2]int32{{0, 1}, {1, 1}}, false},
+		{"repeated pair", 3, [][2]int32{{0, 1}, {1, 2}, {1, 0}}, false},
+		{"repeated pair far apart", 4, [][2]int32{{2, 3}, {0, 1}, {1, 2}, {3, 2}}, false},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			e := NewEmbedding(tc.n)
+			for _, ed := range tc.edges {
+				// Each edge after the last dart at each end: any rotation
+				// will do, simplicity does not depend on it.
+				a, b := e.First(ed[0]), e.First(ed[1])
+				e.AddEdge(a, b, ed[0], ed[1])
+			}
+			if got := e.IsSimple(); got != tc.want {
+				t.Errorf("IsSimple() = %v, want %v", got, tc.want)
+			}
+		})
+	}
+}

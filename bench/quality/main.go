@@ -35,6 +35,7 @@ import (
 	"github.com/gridwood/gridwood/place/quality"
 	"github.com/gridwood/gridwood/place/readable"
 	"github.com/gridwood/gridwood/place/stress"
+	"github.com/gridwood/gridwood/planarize"
 )
 
 // boxGap is the command's clear space between boxes, in points.
@@ -225,19 +226,15 @@ func measure(bin, dir, in string) ([]row, error) {
 	return rows, nil
 }
 
-// simple returns the distinct non-loop pairs of the edges.
+// simple returns the distinct non-loop pairs of the edges, in the order
+// of their first occurrence (planarize.Simplify).
 func simple(n int, es []dotio.Edge) [][2]int32 {
-	seen := map[[2]int32]bool{}
-	var out [][2]int32
-	for _, e := range es {
-		a, b := min(e.From, e.To), max(e.From, e.To)
-		if a == b || seen[[2]int32{a, b}] {
-			continue
-		}
-		seen[[2]int32{a, b}] = true
-		out = append(out, [2]int32{a, b})
+	raw := make([][2]int32, len(es))
+	for i, e := range es {
+		raw[i] = [2]int32{e.From, e.To}
 	}
-	return out
+	pairs, _ := planarize.Simplify(n, raw)
+	return pairs
 }
 
 // reference lays out every component by full stress majorization from a

@@ -78,7 +78,7 @@ func solve(emb *planarize.Embedding, outer int32) (*wood, [3][]int64, error) {
 	if emb == nil || outer < 0 || int(outer) >= 2*emb.M() {
 		return nil, none, errInput
 	}
-	if !simple(emb) || !emb.IsPlane() {
+	if !emb.IsSimple() || !emb.IsPlane() {
 		return nil, none, errInput
 	}
 	n := emb.N()
@@ -109,34 +109,6 @@ func solve(emb *planarize.Embedding, outer int32) (*wood, [3][]int64, error) {
 		return nil, none, err
 	}
 	return wood, coord, nil
-}
-
-// simple reports whether emb has no loop and no repeated pair.
-func simple(emb *planarize.Embedding) bool {
-	n := emb.N()
-	seen := make([]int32, n)
-	for v := range seen {
-		seen[v] = -1
-	}
-	for v := int32(0); int(v) < n; v++ {
-		f := emb.First(v)
-		if f < 0 {
-			continue
-		}
-		d := f
-		for range emb.Degree(v) {
-			u := emb.Head(d)
-			if u == v || seen[u] == v {
-				return false
-			}
-			seen[u] = v
-			d = emb.Next(d)
-		}
-		if d != f {
-			return false // the rotation does not close up
-		}
-	}
-	return true
 }
 
 // wood holds the faces of the embedding and the Schnyder wood.
