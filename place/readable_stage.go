@@ -199,7 +199,8 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	// area of the spaced drawing it replaces (boxes included), and no
 	// more: a drawing that clears its boxes only at poster size is not
 	// readable.
-	limit := maxReadableGrowth * maxReadableGrowth * boxedArea(vs, sx, sy, hw, hh)
+	spacedArea := boxedArea(vs, sx, sy, hw, hh)
+	limit := maxReadableGrowth * maxReadableGrowth * spacedArea
 	round := func(rx, ry []float64) (x, y []int64, area float64, unchecked, ok bool) {
 		scale := 1.0
 		for range maxRoundings + 1 {
@@ -242,7 +243,11 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 		if gain > maxReadableStressShare {
 			return
 		}
-		if x2, y2, area2, unchecked2, ok2 := round(rx, ry); ok2 && (!ok || area2 < area) {
+		x2, y2, area2, unchecked2, ok2 := round(rx, ry)
+		if ok2 && area2 > spacedArea && gain > largerReadableShare {
+			return // larger than the spaced drawing, and hardly better
+		}
+		if ok2 && (!ok || area2 < area) {
 			x, y, area, unchecked, ok = x2, y2, area2, unchecked2, true
 		}
 	}
@@ -264,8 +269,12 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 }
 
 // maxReadableStressShare is the most stress a readable drawing may have
-// as a share of the spaced drawing's it replaces (readable.Output.Gain).
-const maxReadableStressShare = 1.0
+// as a share of the spaced drawing's it replaces (readable.Output.Gain),
+// and largerReadableShare the most where it takes more area than that.
+const (
+	maxReadableStressShare = 1.0
+	largerReadableShare    = 0.9
+)
 
 // boxedArea is the area of the bounding box of the vertices vs at x, y
 // with their boxes of half sizes hw, hh.

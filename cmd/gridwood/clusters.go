@@ -33,15 +33,28 @@ type clusterInfo struct {
 // clusterFrames computes the frames of g's clusters for nodes at (x, y)
 // with half boxes hw x hh, all in units of 1/unit point (1 for a layout,
 // 10^d for --check): the margin and label sizes are scaled to match.
+func clusterFrames(g *dotio.Graph, set *dotio.ClusterSet, x, y, hw, hh []int64, unit int64) (*clusterInfo, error) {
+	in := frameInput(set, x, y, hw, hh, unit)
+	ci := &clusterInfo{set: set, tree: in.Clusters, nodes: in.Nodes}
+	frames, err := frame.Frames(in)
+	if err != nil {
+		return nil, err
+	}
+	ci.frames = frames
+	return ci, nil
+}
+
+// frameInput is what package frame needs to frame set's clusters round
+// nodes at (x, y) with half boxes hw x hh, in units of 1/unit point.
 // Labels are sized as the preview draws them (nodesize), up to the
 // largest box side.
-func clusterFrames(g *dotio.Graph, set *dotio.ClusterSet, x, y, hw, hh []int64, unit int64) (*clusterInfo, error) {
-	ci := &clusterInfo{set: set, nodes: frame.Nodes{X: x, Y: y, HalfW: hw, HalfH: hh}}
-	ci.tree.Home = set.Home
-	ci.tree.Parent = make([]int32, len(set.Clusters))
-	labels := make([]frame.Label, len(set.Clusters))
+func frameInput(set *dotio.ClusterSet, x, y, hw, hh []int64, unit int64) frame.Input {
+	in := frame.Input{Nodes: frame.Nodes{X: x, Y: y, HalfW: hw, HalfH: hh}, Margin: frameMargin * unit}
+	in.Home = set.Home
+	in.Parent = make([]int32, len(set.Clusters))
+	in.Labels = make([]frame.Label, len(set.Clusters))
 	for c, cl := range set.Clusters {
-		ci.tree.Parent[c] = int32(cl.Parent)
+		in.Parent[c] = int32(cl.Parent)
 		if !cl.LabelSet {
 			continue
 		}
@@ -50,14 +63,32 @@ func clusterFrames(g *dotio.Graph, set *dotio.ClusterSet, x, y, hw, hh []int64, 
 			continue
 		}
 		side := func(v float64) int64 { return int64(math.Ceil(min(v, maxBoxSide))) * unit }
-		labels[c] = frame.Label{W: side(l.W), H: side(l.H), Bottom: strings.EqualFold(strings.TrimSpace(cl.LabelLoc), "b")}
+		in.Labels[c] = frame.Label{W: side(l.W), H: side(l.H), Bottom: strings.EqualFold(strings.TrimSpace(cl.LabelLoc), "b")}
 	}
-	frames, err := frame.Frames(frame.Input{Clusters: ci.tree, Nodes: ci.nodes, Margin: frameMargin * unit, Labels: labels})
-	if err != nil {
-		return nil, err
+	return in
+}
+
+// separateClusters moves whole clusters of a readable drawing apart where
+// their frames overlap or hold foreign nodes (frame.Separate), across x
+// first unless a digraph flows along x, and writes the new positions into
+// sp.
+func separateClusters(set *dotio.ClusterSet, sp *place.Placed, boxes place.Boxes, kept [][2]int32, alongX bool) error {
+	in := frame.SeparateInput{Input: frameInput(set, sp.X, sp.Y, boxes.HalfW, boxes.HalfH, 1), Edges: kept, Gap: boxes.Gap, Across: !alongX}
+	x, y, moves, err := frame.Separate(in)
+	if err != nil || moves == 0 {
+		return err
 	}
-	ci.frames = frames
-	return ci, nil
+	// Back to the origin, as the spacing stage leaves a drawing.
+	minX, minY, maxX, maxY := int64(math.MaxInt64), int64(math.MaxInt64), int64(math.MinInt64), int64(math.MinInt64)
+	for v := range x {
+		minX, minY = min(minX, x[v]-boxes.HalfW[v]), min(minY, y[v]-boxes.HalfH[v])
+		maxX, maxY = max(maxX, x[v]+boxes.HalfW[v]), max(maxY, y[v]+boxes.HalfH[v])
+	}
+	for v := range x {
+		sp.X[v], sp.Y[v] = x[v]-minX, y[v]-minY
+	}
+	sp.Width, sp.Height = maxX-minX, maxY-minY
+	return nil
 }
 
 // layoutFrames frames the clusters of a laid-out graph and writes their

@@ -445,6 +445,19 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 			return graphLayout{}, err
 		}
 	}
+	// Clusters whose frames overlap or hold foreign nodes move apart
+	// whole, sideways to the flow (README, "Clusters and direction").
+	if readable && len(set.Clusters) > 0 {
+		alongX := false
+		if g.Directed && !cfg.noFlow {
+			d, _, _ := flowDirection(g)
+			dx, _ := d.Axis()
+			alongX = dx != 0
+		}
+		if err := separateClusters(set, sp, boxes, res.Kept(), alongX); err != nil {
+			return graphLayout{}, err
+		}
+	}
 	lay := dotio.Layout{X: sp.X, Y: sp.Y, BB: [4]int64{0, 0, sp.Width, sp.Height}, Removed: removed}
 	// Cluster frames (README, "What the output contains"): the drawing
 	// moves, whole grid steps under --unit, so that it starts at 0,0

@@ -55,7 +55,7 @@
 // uniform stretching. Parting boxes in one spot can press another
 // tighter, and parting boxes pressed all over can wreck the drawing's
 // shape, so Output.Alternatives holds the drawing from before the phase
-// and, where the best candidate's boxes needed more than twice its size
+// and, where the best candidate's boxes needed two to six times its size
 // to clear, the phase run with boxes loosened by the square root of that
 // (parting them half way, the rest left to an even stretch), for the
 // caller to keep whichever reads no worse than its start and clears its

@@ -320,7 +320,10 @@ func Draw(in Input, opt Options) (*Output, error) {
 	bx, by := slices.Clone(best.x), slices.Clone(best.y)
 	out.Alternatives = append(out.Alternatives, Alternative{Name: "before margins", X: bx, Y: by, Gain: gain(model, bx, by, in.X, in.Y)})
 	marginSweeps := min(maxMarginSweeps, sweepsFor(marginShare))
-	if bestStretch > loosenAbove {
+	if bestStretch > loosenAbove && bestStretch <= loosenBelow {
+		// Two runs share the phase's budget: measured on meshes, half
+		// the sweeps each leaves every drawing as it was with the whole.
+		marginSweeps = max(minSweeps, marginSweeps/2)
 		// Boxes pressed all over: parting them in full can wreck the
 		// drawing's shape. The same phase with boxes loosened by the
 		// square root of that pressure parts them half way and keeps the
@@ -399,10 +402,14 @@ const (
 	hopelessStretch = 1000
 	// crowdedShare: see guard.boxCrowding.
 	crowdedShare = 0.02
-	// loosenAbove: a best candidate whose boxes need more stretching than
-	// this also gets a margins phase with loosened boxes (see
-	// Output.Alternatives).
+	// loosenAbove, loosenBelow: a best candidate whose boxes need more
+	// stretching than loosenAbove, and at most loosenBelow, also gets a
+	// margins phase with loosened boxes (see Output.Alternatives). Above
+	// loosenBelow the loosened phase was measured to lose to the full one
+	// (a 1,000-node tree, nested triangles, a county map) or both to the
+	// start, and it costs as much again.
 	loosenAbove = 2
+	loosenBelow = 6
 )
 
 // small places one vertex at the origin, or two side by side at their
