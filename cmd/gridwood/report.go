@@ -34,7 +34,7 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 		r.CompactionSaved = 1 - float64(compacted)/float64(full)
 	}
 	kept := res.Kept()
-	q := place.Measure(sp.X, sp.Y, kept)
+	q := quality.MeasureExtremes(sp.X, sp.Y, kept)
 	r.MinAngle, r.EdgeLengthRatio = q.MinAngle, q.EdgeRatio
 	if q.MinVertexEdge >= 0 {
 		d := q.MinVertexEdge / float64(sp.Unit)

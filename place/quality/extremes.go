@@ -1,12 +1,14 @@
-package place
+package quality
 
 import (
 	"math"
 	"slices"
 )
 
-// Quality holds readability measures of a straight-line drawing.
-type Quality struct {
+// Extremes are the worst spots of a straight-line drawing on integer
+// points: what --report calls min_angle_deg, edge_length_ratio and
+// min_vertex_edge_distance.
+type Extremes struct {
 	// MinAngle is the smallest angle, in degrees, between two edges at a
 	// common vertex (180 when no vertex has two edges).
 	MinAngle float64
@@ -19,13 +21,13 @@ type Quality struct {
 	MinVertexEdge float64
 }
 
-// qualityWork bounds the vertex-edge pairs Measure looks at.
-const qualityWork = 50_000_000
+// extremesWork bounds the vertex-edge pairs MeasureExtremes looks at.
+const extremesWork = 50_000_000
 
-// Measure computes the Quality of the drawing with vertices at x, y and
-// the given edges (loops ignored).
-func Measure(x, y []int64, edges [][2]int32) Quality {
-	q := Quality{MinAngle: 180, EdgeRatio: 1, MinVertexEdge: -1}
+// MeasureExtremes computes the Extremes of the drawing with vertices at
+// x, y and the given edges (loops ignored).
+func MeasureExtremes(x, y []int64, edges [][2]int32) Extremes {
+	q := Extremes{MinAngle: 180, EdgeRatio: 1, MinVertexEdge: -1}
 	n := len(x)
 	dirs := make([][]float64, n)
 	shortest, longest := math.Inf(1), 0.0
@@ -54,7 +56,7 @@ func Measure(x, y []int64, edges [][2]int32) Quality {
 		}
 		q.MinAngle = min(q.MinAngle, gap*180/math.Pi)
 	}
-	if int64(n)*int64(len(edges)) > qualityWork {
+	if int64(n)*int64(len(edges)) > extremesWork {
 		return q
 	}
 	best := math.Inf(1)
