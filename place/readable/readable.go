@@ -80,7 +80,7 @@ type Output struct {
 	// caller to weigh by its own exact clearance (none if the margins phase
 	// did not run): the drawing as it was before the margins phase, and
 	// where boxes were much pressed, the margins phase run on it with
-	// loosened boxes (see loosenedBoxes).
+	// loosened boxes (see loosenAbove).
 	Alternatives []Alternative
 	// Gain is the model's stress of the result over that of the start,
 	// each at its best scale: below 1 where the result reads better by the
