@@ -45,8 +45,8 @@ func orientations(x, y []int64, edges [][2]int32) []int {
 // drawings: 43% to 92%). TestCompactExact has small cases worked by hand.
 func TestCompact(t *testing.T) {
 	for _, g := range []graphgen.Graph{
-		graphgen.RandomMaximalPlanar(40, 1),
-		graphgen.RandomMaximalPlanar(200, 2),
+		graphgen.RandomTriangulation(40, 1),
+		graphgen.RandomTriangulation(200, 2),
 		graphgen.NestedTriangles(15),
 		graphgen.TriangulatedGrid(8, 9),
 		graphgen.Grid(7, 7),

@@ -45,7 +45,7 @@ func faceTurns(emb *planarize.Embedding, x, y []int64) [][]int {
 func TestDrawConvexMethod(t *testing.T) {
 	for _, g := range []graphgen.Graph{
 		graphgen.Tetrahedron(), graphgen.Cube(), graphgen.Octahedron(), graphgen.Dodecahedron(), graphgen.Icosahedron(),
-		graphgen.Wheel(7), graphgen.Wheel(30), graphgen.RandomMaximalPlanar(60, 3),
+		graphgen.Wheel(7), graphgen.Wheel(30), graphgen.RandomTriangulation(60, 3),
 	} {
 		res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Method: Convex, Compact: true, Smooth: 400}})
 		if err != nil {

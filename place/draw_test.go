@@ -322,7 +322,7 @@ func TestDrawMultigraphsPlanar(t *testing.T) {
 	for i, g := range []graphgen.Graph{
 		graphgen.Path(50), graphgen.Star(40), graphgen.Cycle(30), graphgen.Wheel(20), graphgen.Grid(10, 10),
 		graphgen.Icosahedron(), graphgen.NestedTrianglesPlain(30), graphgen.NestedTriangles(30),
-		graphgen.RandomMaximalPlanar(300, 4), graphgen.RandomPlanar(300, 0.5, 5), graphgen.RandomTree(200, 6),
+		graphgen.RandomTriangulation(300, 4), graphgen.RandomPlanar(300, 0.5, 5), graphgen.RandomTree(200, 6),
 		graphgen.DisjointUnion(graphgen.Cube(), graphgen.Graph{N: 3}, graphgen.Path(2), graphgen.Octahedron()),
 	} {
 		add(g.Name+"-multi", g.N, multigraph(g, uint64(i)))

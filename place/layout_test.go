@@ -447,9 +447,9 @@ func TestLayoutWorkedExamples(t *testing.T) {
 	}
 }
 
-// TestLayoutRandomMaximalPlanar draws 1000 random maximal planar graphs
+// TestLayoutRandomTriangulation draws 1000 random maximal planar graphs
 // with n spread over 4..500, and a random edge subset of each.
-func TestLayoutRandomMaximalPlanar(t *testing.T) {
+func TestLayoutRandomTriangulation(t *testing.T) {
 	const count = 1000
 	keeps := []float64{0.1, 0.35, 0.6, 0.85, 0.97}
 	var ran atomic.Int64
@@ -464,7 +464,7 @@ func TestLayoutRandomMaximalPlanar(t *testing.T) {
 			for i := half; i < count; i += 2 {
 				n := 4 + i*497/count // 4 .. 500
 				seed := uint64(7000 + i)
-				g := graphgen.RandomMaximalPlanar(n, seed)
+				g := graphgen.RandomTriangulation(n, seed)
 				// Euler: a maximal planar graph on n >= 3 vertices has 3n-6 edges.
 				if len(g.Edges) != 3*n-6 {
 					t.Fatalf("%s: %d edges, Euler wants %d", g.Name, len(g.Edges), 3*n-6)
@@ -510,7 +510,7 @@ func TestLayoutKeepsEmbedding(t *testing.T) {
 func TestLayoutOtherRotations(t *testing.T) {
 	for _, g := range []graphgen.Graph{
 		graphgen.Octahedron(), graphgen.Grid(9, 6), graphgen.NestedTrianglesPlain(12),
-		graphgen.RandomPlanar(200, 0.6, 21), graphgen.RandomMaximalPlanar(150, 22),
+		graphgen.RandomPlanar(200, 0.6, 21), graphgen.RandomTriangulation(150, 22),
 		graphgen.TriangulatedGrid(6, 6), graphgen.Wheel(9),
 	} {
 		emb := mustEmbed(t, g)
@@ -687,7 +687,7 @@ func fromPoints(tb testing.TB, g graphgen.Graph, pts []geomcheck.Point) *planari
 // (RULES: output is deterministic).
 func TestLayoutDeterministic(t *testing.T) {
 	for _, g := range []graphgen.Graph{
-		graphgen.RandomMaximalPlanar(400, 1), graphgen.RandomPlanar(400, 0.4, 2),
+		graphgen.RandomTriangulation(400, 1), graphgen.RandomPlanar(400, 0.4, 2),
 		graphgen.Grid(20, 20), graphgen.NestedTrianglesPlain(50),
 		graphgen.DisjointUnion(graphgen.Star(20), graphgen.Graph{N: 5}, graphgen.RandomTree(80, 3), graphgen.Cube()),
 	} {
@@ -738,7 +738,7 @@ func TestLayoutInvalidEmbeddings(t *testing.T) {
 	// Random rotation systems of planar graphs: most have higher genus.
 	for i, g := range []graphgen.Graph{
 		graphgen.Tetrahedron(), graphgen.Octahedron(), graphgen.Cube(), graphgen.Icosahedron(),
-		graphgen.RandomMaximalPlanar(12, 3), graphgen.Grid(3, 4), graphgen.Wheel(6),
+		graphgen.RandomTriangulation(12, 3), graphgen.Grid(3, 4), graphgen.Wheel(6),
 		graphgen.Complete(5), graphgen.CompleteBipartite(3, 3), graphgen.Petersen(),
 	} {
 		for j := range 6 {
@@ -805,9 +805,9 @@ func BenchmarkLayout(b *testing.B) {
 		name string
 		gen  func() graphgen.Graph
 	}{
-		{"maximal-1e4", func() graphgen.Graph { return graphgen.RandomMaximalPlanar(10_000, 1) }},
-		{"maximal-1e5", func() graphgen.Graph { return graphgen.RandomMaximalPlanar(100_000, 1) }},
-		{"maximal-1e6", func() graphgen.Graph { return graphgen.RandomMaximalPlanar(1_000_000, 1) }},
+		{"maximal-1e4", func() graphgen.Graph { return graphgen.RandomTriangulation(10_000, 1) }},
+		{"maximal-1e5", func() graphgen.Graph { return graphgen.RandomTriangulation(100_000, 1) }},
+		{"maximal-1e6", func() graphgen.Graph { return graphgen.RandomTriangulation(1_000_000, 1) }},
 		{"grid-1000x1000", func() graphgen.Graph { return graphgen.Grid(1000, 1000) }},
 		{"star-1e6", func() graphgen.Graph { return graphgen.Star(1_000_000) }},
 		{"path-1e6", func() graphgen.Graph { return graphgen.Path(1_000_000) }},
@@ -861,7 +861,7 @@ func rejects(t *testing.T, check func(tb testing.TB)) (bool, string) {
 // makes sure checkDrawing notices each one, so that the checks above are
 // not vacuous.
 func TestCheckersCatchDefects(t *testing.T) {
-	g := graphgen.DisjointUnion(graphgen.RandomMaximalPlanar(30, 1), graphgen.Path(2),
+	g := graphgen.DisjointUnion(graphgen.RandomTriangulation(30, 1), graphgen.Path(2),
 		graphgen.Graph{N: 1}, graphgen.RandomPlanar(40, 0.7, 2))
 	emb := mustEmbed(t, g)
 	edges := emb.Edges()

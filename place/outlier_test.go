@@ -40,7 +40,7 @@ func TestSpacingOutlierBoxes(t *testing.T) {
 		n := 8 + int(seed%12)*4
 		graphs = append(graphs,
 			graphgen.RandomPlanar(n, 0.6, seed),
-			graphgen.RandomMaximalPlanar(n, seed),
+			graphgen.RandomTriangulation(n, seed),
 			graphgen.RandomTree(n, seed))
 	}
 	graphs = append(graphs, graphgen.Grid(5, 6))

@@ -147,7 +147,7 @@ func TestReadablePlaneOnRandomInputs(t *testing.T) {
 			graphgen.RandomPlanar(20+int(seed)*7, 0.5, seed),
 			graphgen.RandomTree(10+int(seed)*9, seed),
 			graphgen.PlanarPlusExtra(30+int(seed)*5, 4, seed),
-			graphgen.RandomMaximalPlanar(15+int(seed)*4, seed),
+			graphgen.RandomTriangulation(15+int(seed)*4, seed),
 		} {
 			name := fmt.Sprintf("%s seed %d", g.Name, seed)
 			b := variedBoxes(g.N)

@@ -110,7 +110,7 @@ func TestReadableLimit(t *testing.T) {
 // only exercised on equal boxes.
 func TestSpacingRule(t *testing.T) {
 	for _, g := range []graphgen.Graph{
-		graphgen.RandomMaximalPlanar(300, 1),
+		graphgen.RandomTriangulation(300, 1),
 		graphgen.TriangulatedGrid(30, 30),
 		graphgen.Grid(50, 50),
 		graphgen.RandomPlanar(300, 0.6, 2),
@@ -137,10 +137,10 @@ func TestSpacingRule(t *testing.T) {
 // Spacing). Every drawing still passes geomcheck and clears every box.
 func TestDrawingSizeBound(t *testing.T) {
 	for _, g := range []graphgen.Graph{
-		graphgen.RandomMaximalPlanar(300, 1),
+		graphgen.RandomTriangulation(300, 1),
 		graphgen.RandomPlanar(300, 0.6, 1),
 		graphgen.NestedTriangles(100),
-		graphgen.RandomMaximalPlanar(1000, 2),
+		graphgen.RandomTriangulation(1000, 2),
 	} {
 		b := equalBoxes(g.N, 27, 18)
 		res, sp := drawSpaced(t, g, b, SpaceOptions{})
@@ -159,7 +159,7 @@ func TestDrawingSizeBound(t *testing.T) {
 // exact arithmetic and could pass crossing drawings), and at the bound the
 // drawings still pass geomcheck and clear their boxes.
 func TestSpaceBoxLimit(t *testing.T) {
-	for _, g := range []graphgen.Graph{graphgen.RandomMaximalPlanar(50, 3), graphgen.NestedTriangles(12), graphgen.Grid(6, 7)} {
+	for _, g := range []graphgen.Graph{graphgen.RandomTriangulation(50, 3), graphgen.NestedTriangles(12), graphgen.Grid(6, 7)} {
 		res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
 		if err != nil {
 			t.Fatal(err)

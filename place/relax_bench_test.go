@@ -11,7 +11,7 @@ import (
 // on drawings of the sizes documentation builds draw by the hundred: the
 // cost relaxation adds, as a ratio within one run.
 func BenchmarkSpaceSmall(b *testing.B) {
-	for _, g := range []graphgen.Graph{graphgen.RandomPlanar(50, 0.6, 1), graphgen.RandomPlanar(200, 0.6, 1), graphgen.RandomMaximalPlanar(100, 1), graphgen.RandomMaximalPlanar(1000, 1)} {
+	for _, g := range []graphgen.Graph{graphgen.RandomPlanar(50, 0.6, 1), graphgen.RandomPlanar(200, 0.6, 1), graphgen.RandomTriangulation(100, 1), graphgen.RandomTriangulation(1000, 1)} {
 		res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
 		if err != nil {
 			b.Fatal(err)

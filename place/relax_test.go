@@ -18,8 +18,8 @@ import (
 // kept ones. It also checks that relax moved something.
 func TestRelaxKeepsTriangulationPlane(t *testing.T) {
 	for _, g := range []graphgen.Graph{
-		graphgen.RandomMaximalPlanar(60, 1),
-		graphgen.RandomMaximalPlanar(300, 2),
+		graphgen.RandomTriangulation(60, 1),
+		graphgen.RandomTriangulation(300, 2),
 		graphgen.RandomPlanar(200, 0.5, 3),
 		graphgen.NestedTriangles(30),
 		graphgen.Wheel(30),
@@ -123,7 +123,7 @@ func TestRelaxShrinksDrawings(t *testing.T) {
 	var gs []graphgen.Graph
 	for seed := uint64(1); seed <= 4; seed++ {
 		for _, n := range []int{30, 100, 300} {
-			gs = append(gs, graphgen.RandomMaximalPlanar(n, seed), graphgen.RandomPlanar(n, 0.6, seed))
+			gs = append(gs, graphgen.RandomTriangulation(n, seed), graphgen.RandomPlanar(n, 0.6, seed))
 		}
 	}
 	// Meshes whose Tutte drawing wins and relaxing it does not: the
@@ -177,7 +177,7 @@ func TestRelaxShrinksDrawings(t *testing.T) {
 // every vertex keeps its place relative to the corners (an affine map),
 // and that the result is still a plane drawing turning the same way.
 func TestEquilateral(t *testing.T) {
-	for _, g := range []graphgen.Graph{graphgen.RandomMaximalPlanar(50, 1), graphgen.RandomMaximalPlanar(300, 2), graphgen.NestedTriangles(20)} {
+	for _, g := range []graphgen.Graph{graphgen.RandomTriangulation(50, 1), graphgen.RandomTriangulation(300, 2), graphgen.NestedTriangles(20)} {
 		res, err := Draw(g.N, g.Edges, DrawOptions{Layout: Options{Compact: true, Smooth: 400}})
 		if err != nil {
 			t.Fatal(err)

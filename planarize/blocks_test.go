@@ -258,7 +258,7 @@ func TestBlockCounts(t *testing.T) {
 		{graphgen.Wheel(8), 1},
 		{graphgen.Grid(20, 30), 1},
 		{graphgen.Petersen(), 1},
-		{graphgen.RandomMaximalPlanar(500, 3), 1},
+		{graphgen.RandomTriangulation(500, 3), 1},
 		// A shared cut vertex separates the two triangles; a bridge is a
 		// block of its own (by the definition of a block).
 		{bowtie, 2},

@@ -286,7 +286,7 @@ func TestFindKuratowskiKnown(t *testing.T) {
 			// The obstruction hidden in a planar graph: glued at a vertex
 			// to a grid and a triangulation (every Kuratowski subgraph
 			// lies in one block, and the others are planar).
-			big := joinAt(joinAt(subdivide(g, random), 0, graphgen.TriangulatedGrid(8, 8)), 1, graphgen.RandomMaximalPlanar(60, uint64(s)))
+			big := joinAt(joinAt(subdivide(g, random), 0, graphgen.TriangulatedGrid(8, 8)), 1, graphgen.RandomTriangulation(60, uint64(s)))
 			tests = append(tests, testCase{graphgen.Relabel(big, uint64(s)), kind, false})
 		}
 	}
@@ -419,7 +419,7 @@ func TestFindKuratowskiPlanar(t *testing.T) {
 	k5, k33 := graphgen.Complete(5), graphgen.CompleteBipartite(3, 3)
 	gs := []graphgen.Graph{
 		{Name: "empty"}, {N: 4, Name: "isolated"}, graphgen.Cube(), graphgen.Grid(6, 7),
-		graphgen.RandomMaximalPlanar(300, 1), graphgen.RandomTree(50, 2), graphgen.Wheel(9),
+		graphgen.RandomTriangulation(300, 1), graphgen.RandomTree(50, 2), graphgen.Wheel(9),
 		{N: 5, Edges: k5.Edges[1:], Name: "K5-minus-edge"},
 		{N: 6, Edges: k33.Edges[:8], Name: "K3,3-minus-edge"},
 	}

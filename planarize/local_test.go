@@ -21,8 +21,8 @@ func TestLocalProofSound(t *testing.T) {
 		g         graphgen.Graph
 		minProved float64 // the least share of non-planar candidates proved
 	}{
-		{graphgen.RandomMaximalPlanar(3000, 1), 0.95},
-		{graphgen.RandomMaximalPlanar(500, 2), 0.95},
+		{graphgen.RandomTriangulation(3000, 1), 0.95},
+		{graphgen.RandomTriangulation(500, 2), 0.95},
 		{graphgen.RandomPlanar(3000, 0.6, 3), 0},
 		{graphgen.Grid(40, 40), 0},
 	} {
@@ -68,7 +68,7 @@ func TestLocalProofSound(t *testing.T) {
 // gives up instead of proving: a triangulation plus a pair, with a bound
 // too small to reach from one end to the other.
 func TestLocalProofWorkBound(t *testing.T) {
-	g := graphgen.RandomMaximalPlanar(2000, 4)
+	g := graphgen.RandomTriangulation(2000, 4)
 	edges, _ := Simplify(g.N, g.Edges)
 	adjacent := map[[2]int32]bool{}
 	for _, e := range edges {

@@ -448,7 +448,7 @@ func planarFamilies(short bool) []graphgen.Graph {
 	gs = append(gs, graphgen.Grid(1, 500), graphgen.Grid(3, 200), graphgen.TriangulatedGrid(2, 300))
 	for seed := range uint64(10) {
 		for _, n := range []int{4, 5, 6, 7, 8, 9, 10, 11, 12, 16, 20, 32, 50, 64, 100, 200, 500, 1000, 2000} {
-			gs = append(gs, graphgen.RandomMaximalPlanar(n, seed))
+			gs = append(gs, graphgen.RandomTriangulation(n, seed))
 		}
 		for _, n := range []int{2, 3, 10, 100, 1000} {
 			gs = append(gs, graphgen.RandomTree(n, seed))
@@ -461,12 +461,12 @@ func planarFamilies(short bool) []graphgen.Graph {
 		graphgen.RandomTree(100000, 1),
 		graphgen.Relabel(graphgen.Path(100000), 1),
 		graphgen.Relabel(graphgen.Star(100000), 1),
-		graphgen.DisjointUnion(graphgen.RandomMaximalPlanar(300, 1), graphgen.RandomMaximalPlanar(200, 2), graphgen.Cycle(9)),
-		graphgen.Relabel(graphgen.DisjointUnion(graphgen.RandomMaximalPlanar(300, 3), graphgen.Grid(10, 10), graphgen.Star(20)), 5),
+		graphgen.DisjointUnion(graphgen.RandomTriangulation(300, 1), graphgen.RandomTriangulation(200, 2), graphgen.Cycle(9)),
+		graphgen.Relabel(graphgen.DisjointUnion(graphgen.RandomTriangulation(300, 3), graphgen.Grid(10, 10), graphgen.Star(20)), 5),
 		graphgen.Relabel(graphgen.NestedTriangles(1000), 1),
 		graphgen.Relabel(graphgen.TriangulatedGrid(40, 40), 2),
 		graphgen.Relabel(graphgen.Icosahedron(), 3),
-		graphgen.RandomMaximalPlanar(50000, 11),
+		graphgen.RandomTriangulation(50000, 11),
 	)
 	return gs
 }
@@ -561,7 +561,7 @@ func TestHugePathAndStar(t *testing.T) {
 // planar with 2n-4 faces (Euler for 3n-6 edges).
 func TestSimplifyThenEmbed(t *testing.T) {
 	for seed := range uint64(5) {
-		g := graphgen.RandomMaximalPlanar(400, seed)
+		g := graphgen.RandomTriangulation(400, seed)
 		rng := rand.New(rand.NewPCG(seed, 2))
 		raw := append([][2]int32(nil), g.Edges...)
 		for range 300 {
@@ -827,7 +827,7 @@ func BenchmarkEmbed(b *testing.B) {
 		})
 	}
 	for _, n := range []int{10000, 100000, 1000000} {
-		run(fmt.Sprintf("maxplanar-%d", n), graphgen.RandomMaximalPlanar(n, 1))
+		run(fmt.Sprintf("maxplanar-%d", n), graphgen.RandomTriangulation(n, 1))
 	}
 	grid := graphgen.TriangulatedGrid(1000, 1000)
 	run("trigrid-1000x1000", grid)

@@ -85,7 +85,7 @@ func TestSkeletonSparseGraphs(t *testing.T) {
 	for _, n := range []int{8, 30, 200, 1000} {
 		for _, share := range []float64{0, 0.02, 0.1, 0.3, 1} {
 			for seed := range uint64(3) {
-				tri := graphgen.RandomMaximalPlanar(n, seed+1)
+				tri := graphgen.RandomTriangulation(n, seed+1)
 				rng := rand.New(rand.NewPCG(seed, uint64(n)))
 				g := graphgen.DisjointUnion(tri, graphgen.RandomTree(n/4+2, seed), graphgen.Cycle(5))
 				edges, _ := Simplify(g.N, g.Edges)
@@ -176,7 +176,7 @@ func TestSkeletonKeepsResults(t *testing.T) {
 // degree below 3, so its skeleton is itself and is refused; a spanning
 // tree plus a few edges has a small one.
 func TestSkeletonSize(t *testing.T) {
-	g := graphgen.RandomMaximalPlanar(2000, 5)
+	g := graphgen.RandomTriangulation(2000, 5)
 	edges, _ := Simplify(g.N, g.Edges)
 	s := newSkeleton(g.N, edges)
 	if s.build(identity(len(edges)), g.N+len(edges)) {

@@ -308,7 +308,7 @@ func TestMaximalPlanarDense(t *testing.T) {
 // (the dense-first order alone) removed 503 edges here, the mesh-first
 // order 193 (measured when written); the check allows 5% over the bound.
 func TestMaximalPlanarMeshWithCluster(t *testing.T) {
-	g := graphgen.RandomMaximalPlanar(3000, 2)
+	g := graphgen.RandomTriangulation(3000, 2)
 	raw := append([][2]int32(nil), g.Edges...)
 	for i := range int32(20) {
 		for j := i + 1; j < 20; j++ {
@@ -379,7 +379,7 @@ func TestMaximalPlanarComposite(t *testing.T) {
 		{bridged, 2},
 		{graphgen.DisjointUnion(pet, pet, pet, k5), 7},
 		{joinAt(joinAt(k5, 0, k5), 0, k5), 3},
-		{graphgen.DisjointUnion(k5, graphgen.RandomMaximalPlanar(200, 1), k33, graphgen.Path(10)), 2},
+		{graphgen.DisjointUnion(k5, graphgen.RandomTriangulation(200, 1), k33, graphgen.Path(10)), 2},
 		{graphgen.Relabel(graphgen.DisjointUnion(graphgen.Complete(7), graphgen.CompleteBipartite(4, 4), graphgen.Grid(5, 5)), 3), 6 + 4},
 	}
 	for _, tt := range tests {
@@ -398,7 +398,7 @@ func TestMaximalPlanarComposite(t *testing.T) {
 func TestMaximalPlanarPlanarInput(t *testing.T) {
 	for _, g := range []graphgen.Graph{
 		{Name: "empty"}, {N: 3, Name: "isolated"}, graphgen.Complete(4), graphgen.Grid(30, 30),
-		graphgen.RandomMaximalPlanar(3000, 2), graphgen.NestedTriangles(500), graphgen.RandomTree(100, 1),
+		graphgen.RandomTriangulation(3000, 2), graphgen.NestedTriangles(500), graphgen.RandomTree(100, 1),
 	} {
 		res := MaximalPlanar(g.N, g.Edges, SubgraphOptions{Effort: 2})
 		if len(res.Removed) != 0 || !res.Optimal || res.LowerBound != 0 {
@@ -472,7 +472,7 @@ func BenchmarkMaximalPlanar(b *testing.B) {
 	// PlanarPlusExtra(100000, 10, seed) is this triangulation plus ten
 	// edges: the ratio of the two lines is the cost of planarizing over
 	// plain embedding.
-	g := graphgen.RandomMaximalPlanar(100000, seed)
+	g := graphgen.RandomTriangulation(100000, seed)
 	b.Run("embed-"+g.Name, func(b *testing.B) {
 		for b.Loop() {
 			Embed(g.N, g.Edges)

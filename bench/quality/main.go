@@ -100,7 +100,7 @@ func corpus(dir string) []string {
 		graphgen.Wheel(20), graphgen.Dodecahedron(), graphgen.Icosahedron(),
 		graphgen.RandomTree(50, 1), graphgen.RandomTree(300, 2), graphgen.RandomTree(1000, 3),
 		graphgen.RandomPlanar(200, 0.6, 1), graphgen.RandomPlanar(1000, 0.5, 2),
-		graphgen.RandomMaximalPlanar(100, 1), graphgen.RandomMaximalPlanar(500, 2),
+		graphgen.RandomTriangulation(100, 1), graphgen.RandomTriangulation(500, 2),
 		graphgen.NestedTriangles(10), graphgen.RandomGnm(60, 150, 1),
 		delaunay("delaunay-100", 100, 1, false), delaunay("delaunay-1000", 1000, 2, false),
 		delaunay("mesh-holes-300", 300, 3, true), delaunay("mesh-holes-1500", 1500, 4, true),

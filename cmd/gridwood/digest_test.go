@@ -50,7 +50,7 @@ func TestLayoutDigests(t *testing.T) {
 	}
 	for _, g := range []graphgen.Graph{
 		graphgen.Grid(10, 10), graphgen.RandomTree(300, 2), graphgen.RandomPlanar(200, 0.6, 1),
-		graphgen.RandomMaximalPlanar(100, 1), graphgen.RandomGnm(60, 150, 1),
+		graphgen.RandomTriangulation(100, 1), graphgen.RandomGnm(60, 150, 1),
 	} {
 		var buf bytes.Buffer
 		if err := graphgen.WriteDOT(&buf, g); err != nil {

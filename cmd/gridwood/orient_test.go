@@ -66,7 +66,7 @@ func TestFlowOrientation(t *testing.T) {
 	var flowShares []float64
 	for seed := uint64(1); seed <= 6; seed++ {
 		for _, n := range []int{12, 40} {
-			g := graphgen.RandomMaximalPlanar(n, seed)
+			g := graphgen.RandomTriangulation(n, seed)
 			undirected := writeGraph("graph", "--", g.N, g.Edges, nil)
 			code, uOut, errs := runCmd(t, undirected, "-q")
 			if code != exitOK {

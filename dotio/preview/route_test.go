@@ -39,7 +39,7 @@ func routeInputs(t *testing.T) map[string]string {
 	for _, g := range []graphgen.Graph{
 		graphgen.Petersen(), graphgen.CompleteBipartite(3, 5), graphgen.Complete(8),
 		graphgen.WithStrays(graphgen.RandomPlanar(40, 0.6, 3), 12, 3),
-		graphgen.WithStrays(graphgen.RandomMaximalPlanar(30, 5), 8, 5),
+		graphgen.WithStrays(graphgen.RandomTriangulation(30, 5), 8, 5),
 		graphgen.RandomGnm(25, 60, 9),
 	} {
 		var b bytes.Buffer

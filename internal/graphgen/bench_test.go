@@ -5,11 +5,11 @@ import (
 	"testing"
 )
 
-func BenchmarkRandomMaximalPlanar(b *testing.B) {
+func BenchmarkRandomTriangulation(b *testing.B) {
 	for _, n := range []int{1000, 100000, 1000000} {
 		b.Run(fmt.Sprintf("n=%d", n), func(b *testing.B) {
 			for i := 0; b.Loop(); i++ {
-				if g := RandomMaximalPlanar(n, uint64(i)); len(g.Edges) != 3*n-6 {
+				if g := RandomTriangulation(n, uint64(i)); len(g.Edges) != 3*n-6 {
 					b.Fatalf("%d edges", len(g.Edges))
 				}
 			}

@@ -36,7 +36,7 @@
 // output is reproducible from run to run (on 64-bit platforms, where it has
 // been pinned by testdata/golden.txt).
 //
-// RandomMaximalPlanar keeps its own combinatorial triangulation of the
+// RandomTriangulation keeps its own combinatorial triangulation of the
 // sphere (a corner table: for each triangle corner its vertex and the corner
 // facing it across the opposite edge; J. Rossignac, "3D compression made
 // simple: Edgebreaker with ZipandWrap on a corner-table", Proc. Shape

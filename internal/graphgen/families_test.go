@@ -291,7 +291,7 @@ func TestOversized(t *testing.T) {
 		Complete(1 << 20), CompleteBipartite(1<<20, 1<<20),
 		NestedTriangles(huge), NestedTrianglesPlain(1 << 30),
 		RandomTree(huge, 1), RandomGnm(huge, 3, 1), RandomGnm(1<<20, 1<<40, 1),
-		RandomMaximalPlanar(1<<29, 1), RandomPlanar(1<<29, 0.5, 1),
+		RandomTriangulation(1<<29, 1), RandomPlanar(1<<29, 0.5, 1),
 		PlanarPlusExtra(1<<29, 1, 1), PlanarPlusExtra(1<<17, 1<<40, 1),
 		Relabel(Graph{N: huge}, 1),
 		DisjointUnion(Graph{N: math.MaxInt32}, Path(2)),

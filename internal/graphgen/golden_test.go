@@ -27,7 +27,7 @@ func TestGolden(t *testing.T) {
 		RandomTree(8, 1),
 		RandomGnm(7, 9, 1),
 		RandomGnm(6, 12, 1),
-		RandomMaximalPlanar(9, 1),
+		RandomTriangulation(9, 1),
 		RandomPlanar(9, 0.5, 1),
 		PlanarPlusExtra(8, 3, 1),
 		Relabel(Cycle(6), 1),

@@ -18,7 +18,7 @@ func SquareGrid(n int) Graph {
 }
 
 // Named builds the benchmark family with the given name at about n
-// vertices: tri (RandomMaximalPlanar), grid (SquareGrid), tree, planar
+// vertices: tri (RandomTriangulation), grid (SquareGrid), tree, planar
 // (RandomPlanar keeping 60%), extra (PlanarPlusExtra with extra edges),
 // planar-extra (the random planar graph WithStrays, extra of them), gnm
 // (RandomGnm with 3n edges), star, path or nested (NestedTriangles of n/3
@@ -26,7 +26,7 @@ func SquareGrid(n int) Graph {
 func Named(family string, n, extra int, seed uint64) (g Graph, ok bool) {
 	switch family {
 	case "tri":
-		return RandomMaximalPlanar(n, seed), true
+		return RandomTriangulation(n, seed), true
 	case "grid":
 		return SquareGrid(n), true
 	case "tree":

@@ -144,7 +144,7 @@ func TestDeterminism(t *testing.T) {
 		"tree":    func(s uint64) Graph { return RandomTree(500, s) },
 		"gnm":     func(s uint64) Graph { return RandomGnm(500, 2000, s) },
 		"gnm-big": func(s uint64) Graph { return RandomGnm(60, 1700, s) },
-		"tri":     func(s uint64) Graph { return RandomMaximalPlanar(500, s) },
+		"tri":     func(s uint64) Graph { return RandomTriangulation(500, s) },
 		"planar":  func(s uint64) Graph { return RandomPlanar(500, 0.7, s) },
 		"plus":    func(s uint64) Graph { return PlanarPlusExtra(500, 30, s) },
 		"relabel": func(s uint64) Graph { return Relabel(Grid(20, 20), s) },

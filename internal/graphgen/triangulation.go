@@ -192,7 +192,7 @@ func (t *triangulation) edges() [][2]int32 {
 	return out
 }
 
-// randomTriangulation builds the triangulation behind RandomMaximalPlanar
+// randomTriangulation builds the triangulation behind RandomTriangulation
 // (n >= 3) and reports the number of successful flips.
 func randomTriangulation(n int, rng *rand.Rand) (*triangulation, int) {
 	t := newStackedTriangulation(n, rng)
@@ -208,7 +208,7 @@ const (
 	streamStrays        = 0x7374726179733031
 )
 
-// maximalPlanar returns RandomMaximalPlanar(n, seed) together with the
+// maximalPlanar returns RandomTriangulation(n, seed) together with the
 // triangulation it came from and the relabelling: vertex v of the
 // triangulation is vertex perm[v] of the graph. For n < 3 the triangulation
 // is nil.
@@ -229,7 +229,7 @@ func maximalPlanar(n int, seed uint64, rng *rand.Rand) (Graph, *triangulation, [
 	return Graph{N: int(nn), Edges: edges, Name: name}, t, perm
 }
 
-// RandomMaximalPlanar returns a random maximal planar graph (a simple
+// RandomTriangulation returns a random maximal planar graph (a simple
 // triangulation of the sphere) on n >= 3 vertices, with exactly 3n-6 edges.
 // It is a random stacked triangulation mixed by 2n random edge-flip attempts
 // (about 60% of which succeed), with its vertices relabelled by a random
@@ -237,13 +237,13 @@ func maximalPlanar(n int, seed uint64, rng *rand.Rand) (Graph, *triangulation, [
 // documentation. For n < 3 it returns
 // K_n, and n above 2^28 yields the empty graph. The distribution is not
 // uniform over triangulations.
-func RandomMaximalPlanar(n int, seed uint64) Graph {
+func RandomTriangulation(n int, seed uint64) Graph {
 	rng := rand.New(rand.NewPCG(seed, streamMaximalPlanar))
 	g, _, _ := maximalPlanar(n, seed, rng)
 	return g
 }
 
-// RandomPlanar returns the subgraph of RandomMaximalPlanar(n, seed) that
+// RandomPlanar returns the subgraph of RandomTriangulation(n, seed) that
 // keeps each edge independently with probability keep, in the same order. It
 // may be disconnected. keep <= 0 (or NaN) keeps no edge and keep >= 1 keeps
 // all.
@@ -261,7 +261,7 @@ func RandomPlanar(n int, keep float64, seed uint64) Graph {
 	return g
 }
 
-// PlanarPlusExtra returns RandomMaximalPlanar(n, seed) plus extra distinct
+// PlanarPlusExtra returns RandomTriangulation(n, seed) plus extra distinct
 // random pairs that are not edges of it, the whole edge list shuffled and the
 // new pairs randomly oriented. extra is capped at the number of non-edges,
 // n(n-1)/2-(3n-6).

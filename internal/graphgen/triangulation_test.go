@@ -134,13 +134,13 @@ func TestSphereErrorRejects(t *testing.T) {
 	}
 }
 
-// TestRandomMaximalPlanar checks the published graph: 3n-6 simple edges
+// TestRandomTriangulation checks the published graph: 3n-6 simple edges
 // (Euler's bound for maximal planar graphs; Diestel, Graph Theory,
 // Corollary 4.2.10, from memory), connected, minimum degree 3 for n >= 4
 // (a triangulation with n >= 4 is 3-connected; Whitney 1931, from memory),
 // and exactly the edge set of its internal triangulation (checked by
 // sphereError) under the returned relabelling.
-func TestRandomMaximalPlanar(t *testing.T) {
+func TestRandomTriangulation(t *testing.T) {
 	for _, n := range []int{3, 4, 5, 6, 8, 13, 100, 1000, 20000} {
 		seeds := uint64(20)
 		if n >= 1000 {
@@ -149,7 +149,7 @@ func TestRandomMaximalPlanar(t *testing.T) {
 		for seed := range seeds {
 			rng := rand.New(rand.NewPCG(seed, streamMaximalPlanar))
 			g, tr, perm := maximalPlanar(n, seed, rng)
-			if !slices.Equal(g.Edges, RandomMaximalPlanar(n, seed).Edges) {
+			if !slices.Equal(g.Edges, RandomTriangulation(n, seed).Edges) {
 				t.Fatalf("n=%d seed=%d: internal and exported results differ", n, seed)
 			}
 			checkSimple(t, g)
@@ -192,10 +192,10 @@ func isPermutation(p []int32) bool {
 	return true
 }
 
-// TestRandomMaximalPlanarMixing checks that flips happen and that the
+// TestRandomTriangulationMixing checks that flips happen and that the
 // output hides the construction: labels permuted, edges reordered and about
 // half of them reversed.
-func TestRandomMaximalPlanarMixing(t *testing.T) {
+func TestRandomTriangulationMixing(t *testing.T) {
 	const n = 2000
 	_, flips := randomTriangulation(n, rand.New(rand.NewPCG(11, 0)))
 	// A broken adjacency test would refuse every flip.
@@ -233,7 +233,7 @@ func TestRandomMaximalPlanarMixing(t *testing.T) {
 }
 
 // TestRandomPlanar checks that RandomPlanar keeps a subsequence of
-// RandomMaximalPlanar with about keep of its edges.
+// RandomTriangulation with about keep of its edges.
 func TestRandomPlanar(t *testing.T) {
 	const n = 1000
 	for _, tt := range []struct {
@@ -251,7 +251,7 @@ func TestRandomPlanar(t *testing.T) {
 	} {
 		for seed := range uint64(5) {
 			g := RandomPlanar(n, tt.keep, seed)
-			full := RandomMaximalPlanar(n, seed)
+			full := RandomTriangulation(n, seed)
 			checkSimple(t, g)
 			if g.N != n || len(g.Edges) < tt.min || len(g.Edges) > tt.max {
 				t.Errorf("%s: %d vertices, %d edges; want %d vertices, %d..%d edges", g.Name, g.N, len(g.Edges), n, tt.min, tt.max)
@@ -273,7 +273,7 @@ func isSubsequence(sub, seq [][2]int32) bool {
 	return i == len(sub)
 }
 
-// TestPlanarPlusExtra checks that the result is RandomMaximalPlanar plus
+// TestPlanarPlusExtra checks that the result is RandomTriangulation plus
 // exactly the requested number of distinct non-edges, in both the sparse
 // and the dense selection, and that it is K_n when everything is added.
 func TestPlanarPlusExtra(t *testing.T) {
@@ -294,7 +294,7 @@ func TestPlanarPlusExtra(t *testing.T) {
 	for _, tt := range tests {
 		for seed := range uint64(5) {
 			g := PlanarPlusExtra(tt.n, tt.extra, seed)
-			base := RandomMaximalPlanar(tt.n, seed)
+			base := RandomTriangulation(tt.n, seed)
 			checkSimple(t, g)
 			if g.N != tt.n || len(g.Edges) != len(base.Edges)+tt.wantExtra {
 				t.Fatalf("%s: (V,E) = (%d,%d), want (%d,%d)", g.Name, g.N, len(g.Edges), tt.n, len(base.Edges)+tt.wantExtra)
@@ -317,9 +317,9 @@ func TestPlanarPlusExtra(t *testing.T) {
 	}
 }
 
-// TestRandomMaximalPlanarMillion runs the full check once at the size the
+// TestRandomTriangulationMillion runs the full check once at the size the
 // project's benchmarks use.
-func TestRandomMaximalPlanarMillion(t *testing.T) {
+func TestRandomTriangulationMillion(t *testing.T) {
 	if testing.Short() {
 		t.Skip("n = 10^6 takes a few seconds")
 	}

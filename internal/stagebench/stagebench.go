@@ -15,7 +15,7 @@ var Sizes = []int{1000, 10000, 100000, 1000000}
 // planar graph (a random 60% of a triangulation's edges).
 func Families(n int) []graphgen.Graph {
 	return []graphgen.Graph{
-		graphgen.RandomMaximalPlanar(n, 1),
+		graphgen.RandomTriangulation(n, 1),
 		graphgen.SquareGrid(n),
 		graphgen.RandomTree(n, 1),
 		graphgen.RandomPlanar(n, 0.6, 1),

@@ -470,7 +470,7 @@ func TestConvexRandom(t *testing.T) {
 	for _, s := range plan {
 		for i := range s.count {
 			seed := uint64(1000*s.n + i)
-			g := graphgen.RandomMaximalPlanar(s.n, seed)
+			g := graphgen.RandomTriangulation(s.n, seed)
 			oracle, tries := cvxTriconnectedPairs, 3*s.n
 			if s.n > 30 {
 				oracle, tries = cvxTriconnectedFast, min(3*s.n, 150)
@@ -504,7 +504,7 @@ func TestConvexRandom(t *testing.T) {
 	duals := 0
 	for i := range 60 {
 		n := 4 + 2*i
-		g := graphgen.RandomMaximalPlanar(n, uint64(i))
+		g := graphgen.RandomTriangulation(n, uint64(i))
 		if i%2 == 1 {
 			g = cvxThin(g, 2*n, uint64(i), cvxTriconnectedFast)
 		}
@@ -574,7 +574,7 @@ func TestConvexDecidesTriconnectivity(t *testing.T) {
 	for i := range 600 {
 		n := 4 + i%26
 		seed := uint64(7000 + i)
-		g := graphgen.RandomMaximalPlanar(n, seed)
+		g := graphgen.RandomTriangulation(n, seed)
 		rng := rand.New(rand.NewPCG(seed, 2))
 		k := rng.IntN(n)
 		if i%3 == 2 {
@@ -745,7 +745,7 @@ func TestConvexFaceCounts(t *testing.T) {
 	}
 	for i := range 60 {
 		n := 5 + i
-		g := graphgen.RandomMaximalPlanar(n, uint64(i))
+		g := graphgen.RandomTriangulation(n, uint64(i))
 		gs = append(gs, cvxThin(g, 2*n, uint64(i), cvxTriconnectedFast))
 	}
 	for _, g := range gs {
@@ -832,7 +832,7 @@ func cvxBruteFaceCounts(emb *planarize.Embedding, outer int32, out [3][]int32, c
 // TestConvexDeterministic: the same input gives the same drawing, and the
 // embedding is left as it was.
 func TestConvexDeterministic(t *testing.T) {
-	g := cvxThin(graphgen.RandomMaximalPlanar(150, 3), 200, 3, cvxTriconnectedFast)
+	g := cvxThin(graphgen.RandomTriangulation(150, 3), 200, 3, cvxTriconnectedFast)
 	emb := mustEmbed(t, g)
 	before := make([]int32, 2*emb.M())
 	for d := range before {
@@ -951,7 +951,7 @@ func cvxLocal(g graphgen.Graph) graphgen.Graph {
 // 5 * 10^4 vertices) and nested triangles (graph distance to the outer
 // face growing linearly).
 func BenchmarkConvex(b *testing.B) {
-	tri := graphgen.RandomMaximalPlanar(100000, 1)
+	tri := graphgen.RandomTriangulation(100000, 1)
 	for _, g := range []graphgen.Graph{
 		tri,
 		cvxLocal(tri),

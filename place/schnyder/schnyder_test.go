@@ -19,8 +19,8 @@ func TestWeakBarycentric(t *testing.T) {
 		graphgen.Octahedron(),
 		graphgen.Icosahedron(),
 		graphgen.NestedTriangles(12),
-		graphgen.RandomMaximalPlanar(200, 1),
-		graphgen.RandomMaximalPlanar(1000, 2),
+		graphgen.RandomTriangulation(200, 1),
+		graphgen.RandomTriangulation(1000, 2),
 	} {
 		emb, ok := planarize.Embed(g.N, g.Edges)
 		if !ok {
