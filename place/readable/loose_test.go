@@ -30,13 +30,7 @@ func TestLooseMarginsAlternative(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			n := g.N
-			x, y := make([]float64, n), make([]float64, n)
-			hw, hh := make([]float64, n), make([]float64, n)
-			for i := range x {
-				x[i], y[i] = float64(res.X[i]), float64(res.Y[i])
-				hw[i], hh[i] = 27, 18
-			}
+			x, y, hw, hh := gridStart(res)
 			kept := res.Kept()
 			out, err := readable.Draw(readable.Input{Edges: kept, X: x, Y: y, HalfW: hw, HalfH: hh, Gap: 18, EdgeGap: 13.5}, readable.Options{})
 			if err != nil {
@@ -86,4 +80,17 @@ func crossings(t *testing.T, x, y []float64, edges [][2]int32) int {
 		t.Fatal(err)
 	}
 	return len(problems)
+}
+
+// gridStart is the grid drawing of res as a start for Draw, with every
+// node a 54 x 36 point box.
+func gridStart(res *place.Result) (x, y, hw, hh []float64) {
+	n := len(res.X)
+	x, y = make([]float64, n), make([]float64, n)
+	hw, hh = make([]float64, n), make([]float64, n)
+	for i := range x {
+		x[i], y[i] = float64(res.X[i]), float64(res.Y[i])
+		hw[i], hh[i] = 27, 18
+	}
+	return x, y, hw, hh
 }

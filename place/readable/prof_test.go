@@ -31,14 +31,7 @@ func BenchmarkDrawFile(b *testing.B) {
 	if err != nil {
 		b.Fatal(err)
 	}
-	x, y := make([]float64, n), make([]float64, n)
-	for i := range x {
-		x[i], y[i] = float64(res.X[i]), float64(res.Y[i])
-	}
-	hw, hh := make([]float64, n), make([]float64, n)
-	for i := range hw {
-		hw[i], hh[i] = 27, 18
-	}
+	x, y, hw, hh := gridStart(res)
 	kept := res.Kept()
 	for b.Loop() {
 		if _, err := readable.Draw(readable.Input{Edges: kept, X: x, Y: y, HalfW: hw, HalfH: hh, Gap: 18, EdgeGap: 4}, readable.Options{}); err != nil {
