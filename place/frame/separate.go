@@ -66,11 +66,12 @@ func Separate(in SeparateInput) (x, y []int64, moves int, err error) {
 	}
 	stamp := make([]int32, n)
 	conflicts := func(x, y []int64) (Found, []Rect, error) {
-		frames, err := Frames(Input{Clusters: in.Clusters, Nodes: Nodes{X: x, Y: y, HalfW: in.HalfW, HalfH: in.HalfH}, Margin: in.Margin, Labels: in.Labels})
+		nodes := Nodes{X: x, Y: y, HalfW: in.HalfW, HalfH: in.HalfH}
+		frames, err := Frames(Input{Clusters: in.Clusters, Nodes: nodes, Margin: in.Margin, Labels: in.Labels})
 		if err != nil {
 			return Found{}, nil, err
 		}
-		f, err := Find(in.Clusters, Nodes{X: x, Y: y, HalfW: in.HalfW, HalfH: in.HalfH}, frames)
+		f, err := Find(in.Clusters, nodes, frames)
 		return f, frames, err
 	}
 	// members lists the nodes of cluster c, nested clusters' included.
@@ -103,6 +104,14 @@ func Separate(in SeparateInput) (x, y []int64, moves int, err error) {
 		return nil, nil, 0, err
 	}
 	score := len(found.Intrusions) + len(found.Overlaps)
+	// rect is one side of a conflict: cluster c's frame, or for -1-v the
+	// box of node v alone.
+	rect := func(c int32) Rect {
+		if c >= 0 {
+			return frames[c]
+		}
+		return Nodes{X: x, Y: y, HalfW: in.HalfW, HalfH: in.HalfH}.box(int(-1 - c))
+	}
 	for moves < separateRounds && score > 0 {
 		// The pairs in conflict: two clusters, each moved clear of the
 		// other's frame (an intruding node's outermost cluster not holding
@@ -139,18 +148,10 @@ func Separate(in SeparateInput) (x, y []int64, moves int, err error) {
 			var bestFound Found
 			var bestFrames []Rect
 			for _, p := range pairs[k : k+2] {
-				var vs []int32
-				var box Rect
+				box, other := rect(p[0]), rect(p[1])
+				vs := []int32{-1 - p[0]}
 				if p[0] >= 0 {
-					vs, box = members(p[0]), frames[p[0]]
-				} else {
-					vs, box = []int32{-1 - p[0]}, Nodes{X: x, Y: y, HalfW: in.HalfW, HalfH: in.HalfH}.box(int(-1-p[0]))
-				}
-				var other Rect
-				if p[1] >= 0 {
-					other = frames[p[1]]
-				} else {
-					other = Nodes{X: x, Y: y, HalfW: in.HalfW, HalfH: in.HalfH}.box(int(-1 - p[1]))
+					vs = members(p[0])
 				}
 				if box.Empty() || other.Empty() {
 					continue
