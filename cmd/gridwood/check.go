@@ -308,7 +308,7 @@ func graphProblems(g *dotio.Graph, index int) []checkProblem {
 	for v, p := range pts {
 		xs[v], ys[v] = p.X, p.Y
 	}
-	ci, err := clusterFrames(g, set, xs, ys, hw, hh, unit)
+	ci, err := clusterFrames(set, xs, ys, hw, hh, unit)
 	var found frame.Found
 	if err == nil {
 		found, err = frame.Find(ci.tree, ci.nodes, ci.frames)

@@ -33,7 +33,7 @@ type clusterInfo struct {
 // clusterFrames computes the frames of g's clusters for nodes at (x, y)
 // with half boxes hw x hh, all in units of 1/unit point (1 for a layout,
 // 10^d for --check): the margin and label sizes are scaled to match.
-func clusterFrames(g *dotio.Graph, set *dotio.ClusterSet, x, y, hw, hh []int64, unit int64) (*clusterInfo, error) {
+func clusterFrames(set *dotio.ClusterSet, x, y, hw, hh []int64, unit int64) (*clusterInfo, error) {
 	in := frameInput(set, x, y, hw, hh, unit)
 	ci := &clusterInfo{set: set, tree: in.Clusters, nodes: in.Nodes}
 	frames, err := frame.Frames(in)
@@ -95,8 +95,8 @@ func separateClusters(set *dotio.ClusterSet, sp *place.Placed, boxes place.Boxes
 // boxes into lay: positions move so that the drawing, frames included,
 // starts at 0,0 (by whole steps of step points when step > 0, as under
 // --unit), and the graph's bb grows to hold every frame.
-func layoutFrames(g *dotio.Graph, set *dotio.ClusterSet, lay *dotio.Layout, boxes place.Boxes, step int64) (*clusterInfo, error) {
-	ci, err := clusterFrames(g, set, lay.X, lay.Y, boxes.HalfW, boxes.HalfH, 1)
+func layoutFrames(set *dotio.ClusterSet, lay *dotio.Layout, boxes place.Boxes, step int64) (*clusterInfo, error) {
+	ci, err := clusterFrames(set, lay.X, lay.Y, boxes.HalfW, boxes.HalfH, 1)
 	if err != nil {
 		return nil, err
 	}

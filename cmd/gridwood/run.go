@@ -464,7 +464,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	// with its frames.
 	var clusters *clusterInfo
 	if len(set.Clusters) > 0 {
-		if clusters, err = layoutFrames(g, set, &lay, boxes, int64(cfg.unit)); err != nil {
+		if clusters, err = layoutFrames(set, &lay, boxes, int64(cfg.unit)); err != nil {
 			return graphLayout{}, err
 		}
 		sp.Width, sp.Height = lay.BB[2], lay.BB[3]

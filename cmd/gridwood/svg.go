@@ -81,7 +81,7 @@ func inputFrames(g *dotio.Graph, x, y []float64) []preview.Frame {
 		xs[v], ys[v] = int64(math.Round(x[v])), int64(math.Round(y[v]))
 	}
 	b := nodeBoxes(g)
-	ci, err := clusterFrames(g, set, xs, ys, b.HalfW, b.HalfH, 1)
+	ci, err := clusterFrames(set, xs, ys, b.HalfW, b.HalfH, 1)
 	if err != nil {
 		return previewFrames(nil)
 	}
