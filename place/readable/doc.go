@@ -42,6 +42,11 @@
 //     where the reference is itself plane this is the reference;
 //   - "near" and "unfolded": the same with the start's embedding, or from a
 //     stress layout grown from the start, where the reference folds;
+//   - "radial": for a tree, its radial drawing with the reference's order
+//     of children around each vertex, wedges bounded as in P. Eades,
+//     "Drawing free trees", Bull. Inst. Combin. Appl. 5 (1992), so that it
+//     is plane: the reference's crossings between subtrees are parted
+//     instead of folded into knots;
 //   - "convex": a Tutte drawing of the embedding with its outer face on a
 //     convex polygon and weights from the reference (W. T. Tutte, "How to
 //     draw a graph", Proc. London Math. Soc. 13 (1963); M. S. Floater,

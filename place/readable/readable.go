@@ -65,8 +65,9 @@ type Output struct {
 	// Chosen names the candidate kept: "follow" (near the reference, with
 	// an embedding that follows it), "near" (near the reference, with the
 	// start's embedding), "unfolded" (near a stress layout grown from the
-	// start), "convex" (from a drawing with its outer face on a circle),
-	// "start", or "start as given".
+	// start), "radial" (a tree, from its radial drawing), "convex" (from a
+	// drawing with its outer face on a circle), "start", or "start as
+	// given".
 	Chosen string
 	// Phases lists what each phase did, for benchmarks and tests.
 	Phases []Phase
@@ -236,6 +237,16 @@ func Draw(in Input, opt Options) (*Output, error) {
 						consider("unfolded", newGuard(m, px, py), sweepsFor(candidateShare), t)
 					}
 				}
+			}
+		}
+		if len(in.Edges) == n-1 {
+			// A tree: its radial drawing, with the reference's order of
+			// children, parts the subtrees that the reference lets cross
+			// and nearPlane then folds into knots.
+			t = time.Now()
+			px, py := radialStart(n, in.Edges, lengths, rx, ry)
+			if m, err := mesh.New(px, py, in.Edges, reach); err == nil {
+				consider("radial", newGuard(m, px, py), sweepsFor(candidateShare), t)
 			}
 		}
 		if best == nil || name != "follow" || n <= tryAllLimit {
