@@ -178,6 +178,27 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 		}
 		in.FlowDir = opt.FlowDir
 	}
+	// A digraph's start is turned or mirrored to point the most pairs
+	// along the flow, so that the stage refines a drawing that already
+	// flows. The spaced drawing, where it is kept, is only mirrored (the
+	// command turns it only where its boxes still clear), so a readable
+	// drawing that flows better than its mirrors may cost more (flowWins).
+	spacedAlong := 0
+	if len(in.Flow) > 0 {
+		best, bestAlong := 0, -1
+		for sym := range 8 {
+			a := alongFlow(in.Flow, in.FlowDir, in.X, in.Y, sym)
+			if sym < 4 {
+				spacedAlong = max(spacedAlong, a)
+			}
+			if a > bestAlong {
+				best, bestAlong = sym, a
+			}
+		}
+		for i := range in.X {
+			in.X[i], in.Y[i] = symmetric(best, in.X[i], in.Y[i])
+		}
+	}
 	if opt.Groups != nil {
 		in.Groups = make([][]int32, k)
 		for i, v := range vs {
@@ -240,11 +261,12 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	var area float64
 	var unchecked, ok bool
 	try := func(rx, ry []float64, gain float64) {
-		if gain > maxReadableStressShare {
+		flowWins := len(in.Flow) > 0 && alongFlow(in.Flow, in.FlowDir, rx, ry, 0) > spacedAlong
+		if gain > maxReadableStressShare && !(flowWins && gain <= flowStressShare) {
 			return
 		}
 		x2, y2, area2, unchecked2, ok2 := round(rx, ry)
-		if ok2 && area2 > spacedArea && gain > largerReadableShare {
+		if ok2 && area2 > spacedArea && gain > largerReadableShare && !flowWins {
 			return // larger than the spaced drawing, and hardly better
 		}
 		if ok2 && (!ok || area2 < area) {
@@ -271,10 +293,46 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 // maxReadableStressShare is the most stress a readable drawing may have
 // as a share of the spaced drawing's it replaces (readable.Output.Gain),
 // and largerReadableShare the most where it takes more area than that.
+// A digraph's readable drawing that points more pairs along the flow than
+// the spaced drawing mirrored may have up to flowStressShare, in any area
+// the rounding allows: measured on the release pipeline and the cottages
+// example, both then point every pair along the flow (94% and 62%
+// before), and 7 of 10 generated st-planar triangulations under rankdir=LR
+// (about half before).
 const (
 	maxReadableStressShare = 1.0
 	largerReadableShare    = 0.9
+	flowStressShare        = 1.5
 )
+
+// alongFlow counts the pairs (u, v) of flow for which v lies beyond u
+// along dir in the drawing x, y under the symmetry sym.
+func alongFlow(flow [][2]int32, dir [2]float64, x, y []float64, sym int) int {
+	n := 0
+	for _, p := range flow {
+		ux, uy := symmetric(sym, x[p[0]], y[p[0]])
+		vx, vy := symmetric(sym, x[p[1]], y[p[1]])
+		if float64((vx-ux)*dir[0])+float64((vy-uy)*dir[1]) > 0 {
+			n++
+		}
+	}
+	return n
+}
+
+// symmetric applies the sym-th of the square's eight symmetries: bit 0
+// mirrors x, bit 1 mirrors y, bit 2 then swaps the axes.
+func symmetric(sym int, x, y float64) (float64, float64) {
+	if sym&1 != 0 {
+		x = -x
+	}
+	if sym&2 != 0 {
+		y = -y
+	}
+	if sym&4 != 0 {
+		x, y = y, x
+	}
+	return x, y
+}
 
 // boxedArea is the area of the bounding box of the vertices vs at x, y
 // with their boxes of half sizes hw, hh.

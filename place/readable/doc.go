@@ -26,7 +26,11 @@
 // ones across (Input.Groups), and a digraph's edges kept pointing one way
 // by projecting each target onto its separation constraints (Input.Flow;
 // after T. Dwyer and Y. Koren, "DIG-CoLa", InfoVis 2005, and T. Dwyer,
-// Y. Koren and K. Marriott, "IPSep-CoLa", InfoVis 2006).
+// Y. Koren and K. Marriott, "IPSep-CoLa", InfoVis 2006). The projection
+// keeps pairs along the flow that a drawing has along but does not turn
+// a folded one round, so with a flow the start is always a candidate (the
+// caller turns it to flow the most), and candidates are weighed by their
+// stress times 1 + flowWeight times the share of pairs against the flow.
 //
 // Ideal edge lengths come from the node boxes, so that labels fit; a move
 // also keeps a vertex's box from coming closer to a nearby box than

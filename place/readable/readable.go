@@ -177,6 +177,22 @@ func Draw(in Input, opt Options) (*Output, error) {
 	var best *guard
 	bestStress := math.Inf(1)
 	bestCrowded, bestStretch := true, math.Inf(1)
+	// With a flow, candidates are weighed by their stress times
+	// 1 + flowWeight times the share of pairs pointing against it: the
+	// projection onto the flow (stress.Model.Project) keeps pairs along
+	// that a start has along, but does not turn a folded start round.
+	flowPenalty := func(x, y []float64) float64 {
+		if len(in.Flow) == 0 {
+			return 1
+		}
+		against := 0
+		for _, p := range in.Flow {
+			if float64((x[p[1]]-x[p[0]])*in.FlowDir[0])+float64((y[p[1]]-y[p[0]])*in.FlowDir[1]) <= 0 {
+				against++
+			}
+		}
+		return 1 + flowWeight*float64(against)/float64(len(in.Flow))
+	}
 	consider := func(name string, g *guard, sweeps int, t time.Time) {
 		k := g.run(sweeps, runTolerance)
 		phase(name, k, g.x, g.y, t)
@@ -195,6 +211,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 		crowded := stretch > maxStretch
 		st := model.Stress(g.x, g.y) // at the best scale: comparable
 		out.Phases[len(out.Phases)-1].Stress = st
+		st *= flowPenalty(g.x, g.y)
 		better := best == nil || (bestCrowded && !crowded) ||
 			(!crowded && !bestCrowded && st < bestStress) ||
 			(crowded && bestCrowded && stretch < bestStretch)
@@ -286,7 +303,8 @@ func Draw(in Input, opt Options) (*Output, error) {
 	}
 
 	// The plane start, at the model's best scale: tried when nothing else
-	// worked, or only crowded drawings.
+	// worked, or only crowded drawings, and always with a flow (the caller
+	// turns it to flow the most).
 	x := append([]float64(nil), in.X...)
 	y := append([]float64(nil), in.Y...)
 	// Never shrunk: the start's own clearances are what keep it clear of
@@ -297,7 +315,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 		y[v] *= s
 	}
 	out.StartStress = model.Stress(x, y)
-	if best == nil || bestCrowded {
+	if best == nil || bestCrowded || len(in.Flow) > 0 {
 		t = time.Now()
 		m, err := mesh.New(x, y, in.Edges, reach)
 		if err != nil {
@@ -305,7 +323,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 		}
 		consider("start", newGuard(m, x, y), sweepsFor(candidateShare), t)
 	}
-	if bestStress > out.StartStress && !bestCrowded {
+	if bestStress > out.StartStress*flowPenalty(x, y) && !bestCrowded {
 		// Never worse than the start itself (unless that is crowded).
 		m, err := mesh.New(x, y, in.Edges, reach)
 		if err != nil {
@@ -411,6 +429,8 @@ const (
 	// stretching than this is returned as crowded, without the margins
 	// phase.
 	hopelessStretch = 1000
+	// flowWeight: see flowPenalty in Draw.
+	flowWeight = 2
 	// crowdedShare: see guard.boxCrowding.
 	crowdedShare = 0.02
 	// loosenAbove, loosenBelow: a best candidate whose boxes need more
