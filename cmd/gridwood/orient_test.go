@@ -180,11 +180,12 @@ func TestFlowOrientation(t *testing.T) {
 	}
 	slices.Sort(flowShares)
 	t.Logf("%d triangulations without a level edge, %d of them all along under LR on a grid of 400 points, %d turned there; share along by default: least %.2f, median %.2f", used, turned, turnedOnGrid, flowShares[0], flowShares[len(flowShares)/2])
-	// Measured: least 0.53 (under rankdir=LR, a triangulation that keeps
-	// its spaced drawing, which cannot be turned with its boxes clear),
-	// median 1.00; under LR 7 of the 10 point every edge along (1 before
-	// the readable stage started from the start turned to the flow).
-	if flowShares[0] < 0.45 || flowShares[len(flowShares)/2] < 0.95 {
-		t.Errorf("share of edges along the flow by default: least %.2f, median %.2f; want at least 0.45 and 0.95", flowShares[0], flowShares[len(flowShares)/2])
+	// The target (README, "Clusters and direction"): every acyclic edge of a
+	// generated st-planar digraph along the flow. Measured: all of them,
+	// under TB, BT and LR (under LR 1 of the 10 before the readable stage
+	// started from the start turned to the flow and took a flowing
+	// drawing at more stress and area, and least 0.50).
+	if flowShares[0] < 1 {
+		t.Errorf("share of edges along the flow by default: least %.2f, median %.2f; want every edge along", flowShares[0], flowShares[len(flowShares)/2])
 	}
 }
