@@ -58,8 +58,11 @@ type ReadableOptions struct {
 // than maxReadableGrowth^2 times the area of its spaced drawing keeps the
 // spaced drawing (counted in Placed.Unrefined), as do one whose drawing
 // has more stress than the spaced one (by the stage's own ideal distances,
-// readable.Output.Gain) and one of more than readableMaxVertices vertices. Components are then packed in rows. Draw
-// must have been run with DrawOptions.Readable.
+// readable.Output.Gain) and one of more than readableMaxVertices vertices;
+// a digraph's drawing that points more pairs along the flow than the
+// spaced one mirrored gets more room (flowStressShare, maxFlowGrowth).
+// Components are then packed in rows. Draw must have been run with
+// DrawOptions.Readable.
 func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 	sp, err := r.Space(b, SpaceOptions{})
 	if err != nil {
