@@ -26,16 +26,7 @@ func TestLooseMarginsAlternative(t *testing.T) {
 	}{{graphgen.Octahedron(), true}, {graphgen.Grid(6, 6), false}, {graphgen.Icosahedron(), false}} {
 		g := tc.g
 		t.Run(g.Name, func(t *testing.T) {
-			res, err := place.Draw(g.N, g.Edges, place.DrawOptions{})
-			if err != nil {
-				t.Fatal(err)
-			}
-			x, y, hw, hh := gridStart(res)
-			kept := res.Kept()
-			out, err := readable.Draw(readable.Input{Edges: kept, X: x, Y: y, HalfW: hw, HalfH: hh, Gap: 18, EdgeGap: 13.5}, readable.Options{})
-			if err != nil {
-				t.Fatal(err)
-			}
+			out, kept := drawFromGrid(t, g)
 			names := map[string]readable.Alternative{}
 			for _, a := range out.Alternatives {
 				names[a.Name] = a
@@ -80,6 +71,24 @@ func crossings(t *testing.T, x, y []float64, edges [][2]int32) int {
 		t.Fatal(err)
 	}
 	return len(problems)
+}
+
+// drawFromGrid draws g readable from its grid drawing, with the
+// command's default boxes and gaps, and returns the result with the kept
+// edges.
+func drawFromGrid(t *testing.T, g graphgen.Graph) (*readable.Output, [][2]int32) {
+	t.Helper()
+	res, err := place.Draw(g.N, g.Edges, place.DrawOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	x, y, hw, hh := gridStart(res)
+	kept := res.Kept()
+	out, err := readable.Draw(readable.Input{Edges: kept, X: x, Y: y, HalfW: hw, HalfH: hh, Gap: 18, EdgeGap: 13.5}, readable.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return out, kept
 }
 
 // gridStart is the grid drawing of res as a start for Draw, with every

@@ -4,8 +4,6 @@ import (
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/graphgen"
-	"github.com/gridwood/gridwood/place"
-	"github.com/gridwood/gridwood/place/readable"
 )
 
 // TestTreeNearItsStressLayout: a tree can be drawn plane with any order
@@ -17,17 +15,7 @@ import (
 // (nearPlane) at 1.38 times, with knots where subtrees crossed. Plane by
 // geomcheck.
 func TestTreeNearItsStressLayout(t *testing.T) {
-	g := graphgen.RandomTree(1000, 3)
-	res, err := place.Draw(g.N, g.Edges, place.DrawOptions{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	x, y, hw, hh := gridStart(res)
-	kept := res.Kept()
-	out, err := readable.Draw(readable.Input{Edges: kept, X: x, Y: y, HalfW: hw, HalfH: hh, Gap: 18, EdgeGap: 13.5}, readable.Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
+	out, kept := drawFromGrid(t, graphgen.RandomTree(1000, 3))
 	stress := map[string]float64{}
 	for _, p := range out.Phases {
 		stress[p.Name] = p.Stress
