@@ -29,12 +29,11 @@ func radialStart(n int, edges [][2]int32, lengths []float64, tx, ty []float64) (
 		start[v+1] += start[v]
 	}
 	adj := make([]int32, 2*len(edges))
-	alen := make([]float64, 2*len(edges))
 	fill := append([]int32(nil), start[:n]...)
-	for i, e := range edges {
-		adj[fill[e[0]]], alen[fill[e[0]]] = e[1], lengths[i]
+	for _, e := range edges {
+		adj[fill[e[0]]] = e[1]
 		fill[e[0]]++
-		adj[fill[e[1]]], alen[fill[e[1]]] = e[0], lengths[i]
+		adj[fill[e[1]]] = e[0]
 		fill[e[1]]++
 	}
 	// The centre: the middle of a longest path (two breadth-first
@@ -91,11 +90,7 @@ func radialStart(n int, edges [][2]int32, lengths []float64, tx, ty []float64) (
 	unit /= float64(max(1, len(lengths)))
 	from, to := make([]float64, n), make([]float64, n)
 	from[root], to[root] = 0, 2*math.Pi
-	type kid struct {
-		w      int32
-		length float64
-	}
-	var kids []kid
+	var kids []int32
 	for _, v := range order {
 		kids = kids[:0]
 		var back [2]float64
@@ -106,11 +101,10 @@ func radialStart(n int, edges [][2]int32, lengths []float64, tx, ty []float64) (
 		}
 		for k := start[v]; k < start[v+1]; k++ {
 			if w := adj[k]; w != parent[v] {
-				kids = append(kids, kid{w, alen[k]})
+				kids = append(kids, w)
 			}
 		}
-		turn := turnOrder(tx, ty, v, back)
-		slices.SortFunc(kids, func(a, b kid) int { return turn(a.w, b.w) })
+		slices.SortFunc(kids, turnOrder(tx, ty, v, back))
 		// Eades' bound: below the root, the children's wedge is at most
 		// the angle within which the next circle can be reached from v
 		// without passing inside v's own circle, centred on v.
@@ -118,16 +112,11 @@ func radialStart(n int, edges [][2]int32, lengths []float64, tx, ty []float64) (
 		if parent[v] >= 0 {
 			bound := 2 * arcCos(radius[v]/(radius[v]+unit))
 			if hi-lo > bound {
-				mid := (from[v] + to[v]) / 2
-				if v != root {
-					mid = angle[v]
-				}
-				lo, hi = max(lo, mid-bound/2), min(hi, mid+bound/2)
+				lo, hi = max(lo, angle[v]-bound/2), min(hi, angle[v]+bound/2)
 			}
 		}
 		at := lo
-		for _, c := range kids {
-			w := c.w
+		for _, w := range kids {
 			share := (hi - lo) * leaves[w] / leaves[v]
 			from[w], to[w] = at, at+share
 			at += share
