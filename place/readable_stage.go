@@ -194,8 +194,12 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	spacedAlong := 0
 	if len(in.Flow) > 0 {
 		best, bestAlong := 0, -1
+		tx, ty := make([]float64, k), make([]float64, k)
 		for sym := range 8 {
-			a := alongFlow(in.Flow, in.FlowDir, in.X, in.Y, sym)
+			for i := range in.X {
+				tx[i], ty[i] = symmetric(sym, in.X[i], in.Y[i])
+			}
+			a := readable.Along(in.Flow, in.FlowDir, tx, ty)
 			if sym < 4 {
 				spacedAlong = max(spacedAlong, a)
 			}
@@ -269,7 +273,7 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	var area float64
 	var unchecked, ok bool
 	try := func(rx, ry []float64, gain float64) {
-		flowWins := len(in.Flow) > 0 && alongFlow(in.Flow, in.FlowDir, rx, ry, 0) > spacedAlong
+		flowWins := len(in.Flow) > 0 && readable.Along(in.Flow, in.FlowDir, rx, ry) > spacedAlong
 		if gain > maxReadableStressShare && !(flowWins && gain <= flowStressShare) {
 			return
 		}
@@ -317,20 +321,6 @@ const (
 	largerReadableShare    = 0.9
 	flowStressShare        = 1.5
 )
-
-// alongFlow counts the pairs (u, v) of flow for which v lies beyond u
-// along dir in the drawing x, y under the symmetry sym.
-func alongFlow(flow [][2]int32, dir [2]float64, x, y []float64, sym int) int {
-	n := 0
-	for _, p := range flow {
-		ux, uy := symmetric(sym, x[p[0]], y[p[0]])
-		vx, vy := symmetric(sym, x[p[1]], y[p[1]])
-		if float64((vx-ux)*dir[0])+float64((vy-uy)*dir[1]) > 0 {
-			n++
-		}
-	}
-	return n
-}
 
 // symmetric applies the sym-th of the square's eight symmetries: bit 0
 // mirrors x, bit 1 mirrors y, bit 2 then swaps the axes.

@@ -185,12 +185,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 		if len(in.Flow) == 0 {
 			return 1
 		}
-		against := 0
-		for _, p := range in.Flow {
-			if float64((x[p[1]]-x[p[0]])*in.FlowDir[0])+float64((y[p[1]]-y[p[0]])*in.FlowDir[1]) <= 0 {
-				against++
-			}
-		}
+		against := len(in.Flow) - Along(in.Flow, in.FlowDir, x, y)
 		return 1 + flowWeight*float64(against)/float64(len(in.Flow))
 	}
 	consider := func(name string, g *guard, sweeps int, t time.Time) {
@@ -380,6 +375,18 @@ func Draw(in Input, opt Options) (*Output, error) {
 	out.Stress = model.Stress(best.x, best.y)
 	out.Gain = gain(model, best.x, best.y, in.X, in.Y)
 	return out, nil
+}
+
+// Along counts the pairs (u, v) of flow for which v lies strictly beyond
+// u along dir in the drawing x, y (Input.Flow, Input.FlowDir).
+func Along(flow [][2]int32, dir [2]float64, x, y []float64) int {
+	n := 0
+	for _, p := range flow {
+		if float64((x[p[1]]-x[p[0]])*dir[0])+float64((y[p[1]]-y[p[0]])*dir[1]) > 0 {
+			n++
+		}
+	}
+	return n
 }
 
 // gain is the model's stress of drawing x, y over that of drawing sx, sy,
