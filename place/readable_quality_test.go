@@ -83,8 +83,9 @@ func TestReadableNearReference(t *testing.T) {
 			b := equalBoxes(tc.g.N, 27, 18)
 			res, sp := drawReadable(t, tc.g, b, ReadableOptions{})
 			checkSpaced(t, tc.g.Name, sp, b, res.Kept(), true)
-			if sp.Readable+sp.Unrefined != 1 {
-				t.Fatalf("%d components drawn readable and %d unrefined, want 1 in all", sp.Readable, sp.Unrefined)
+			why := sp.UnrefinedWhy
+			if sp.Readable+sp.Unrefined != 1 || why.TooLarge+why.Crowded+why.Area+why.Stress != sp.Unrefined {
+				t.Fatalf("%d components drawn readable and %d unrefined (by reason %+v), want 1 in all", sp.Readable, sp.Unrefined, why)
 			}
 			got, _ := quality.Stress(floats(sp.X), floats(sp.Y), tc.g.Edges)
 			ref := referenceStress(t, tc.g, b)
@@ -265,5 +266,34 @@ func TestReadableFlows(t *testing.T) {
 		if float64(down) < tc.minShare*float64(len(flow)) {
 			t.Errorf("%s: %d of %d edges point down, want at least %.0f%%", tc.g.Name, down, len(flow), 100*tc.minShare)
 		}
+	}
+}
+
+// TestUnrefinedReasons checks that every component the readable stage
+// leaves with its spaced drawing is counted under exactly one reason: a
+// path over the stage's size bound under TooLarge, and a generated
+// triangulation whose readable drawing loses to its spaced one (README,
+// Readable drawing: random triangulations are the weak case) under one of
+// the others. Both drawings go through geomcheck.
+func TestUnrefinedReasons(t *testing.T) {
+	for _, tc := range []struct {
+		g        graphgen.Graph
+		tooLarge bool
+	}{
+		{graphgen.Path(readableMaxVertices + 1), true},
+		{graphgen.RandomTriangulation(100, 1), false},
+	} {
+		t.Run(tc.g.Name, func(t *testing.T) {
+			b := equalBoxes(tc.g.N, 27, 18)
+			res, sp := drawReadable(t, tc.g, b, ReadableOptions{})
+			checkSpaced(t, tc.g.Name, sp, b, res.Kept(), tc.g.N <= 5000)
+			why := sp.UnrefinedWhy
+			if sp.Readable != 0 || sp.Unrefined != 1 || why.TooLarge+why.Crowded+why.Area+why.Stress != 1 {
+				t.Fatalf("readable %d, unrefined %d by reason %+v; want 0, 1 and one reason", sp.Readable, sp.Unrefined, why)
+			}
+			if (why.TooLarge == 1) != tc.tooLarge {
+				t.Errorf("reasons %+v, want too large: %v", why, tc.tooLarge)
+			}
+		})
 	}
 }

@@ -12,7 +12,7 @@ import (
 // maxRoundings bounds the scalings tried when rounding a readable drawing
 // to integer points, and maxReadableGrowth the sides of the result, as a
 // multiple of the spaced drawing's (its area by the square): past either,
-// the drawing is too crowded somewhere to keep (errCrowded).
+// the drawing is too crowded somewhere to keep (errArea).
 const (
 	maxRoundings      = 40
 	maxReadableGrowth = 2
@@ -23,7 +23,12 @@ const (
 	maxFlowGrowth = 3
 )
 
-var errCrowded = errors.New("place: the readable drawing is crowded")
+// Why readableComponent kept the spaced drawing (Unrefinement).
+var (
+	errCrowded = errors.New("place: the readable drawing is crowded")
+	errArea    = errors.New("place: the readable drawing clears its boxes only in too much area")
+	errStress  = errors.New("place: the readable drawing has more stress than the spaced one")
+)
 
 // ReadableOptions tune Readable. The zero value is the default.
 type ReadableOptions struct {
@@ -56,7 +61,8 @@ type ReadableOptions struct {
 // the least factor that clears every box (as Space does) where the stage
 // left a box too near; a component whose drawing would then take more
 // than maxReadableGrowth^2 times the area of its spaced drawing keeps the
-// spaced drawing (counted in Placed.Unrefined), as do one whose drawing
+// spaced drawing (counted in Placed.Unrefined, by reason in
+// Placed.UnrefinedWhy), as do one whose drawing
 // has more stress than the spaced one (by the stage's own ideal distances,
 // readable.Output.Gain) and one of more than readableMaxVertices vertices;
 // a digraph's drawing that points more pairs along the flow than the
@@ -120,13 +126,15 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 		switch {
 		case len(vs) > readableMaxVertices:
 			out.Unrefined++
+			out.UnrefinedWhy.TooLarge++
 		case len(vs) >= 3:
 			err := r.readableComponent(vs, edgesOf[c], sx, sy, hw, hh, gap, opt, px, py, stamp, out)
-			if errors.Is(err, errCrowded) {
+			if why := unrefinedCount(&out.UnrefinedWhy, err); why != nil {
 				for _, v := range vs {
 					px[v], py[v] = sx[v], sy[v]
 				}
 				out.Unrefined++
+				*why++
 				err = nil
 			}
 			if err != nil {
@@ -137,6 +145,20 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 	}
 	r.packInto(out, r.tri.members, boxes, unit, px, py)
 	return out, nil
+}
+
+// unrefinedCount returns the count in u of the reason err gives for
+// keeping the spaced drawing, or nil if err gives none.
+func unrefinedCount(u *Unrefinement, err error) *int {
+	switch {
+	case errors.Is(err, errCrowded):
+		return &u.Crowded
+	case errors.Is(err, errArea):
+		return &u.Area
+	case errors.Is(err, errStress):
+		return &u.Stress
+	}
+	return nil
 }
 
 // readableMaxVertices bounds the components the readable stage draws:
@@ -272,11 +294,13 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	var x, y []int64
 	var area float64
 	var unchecked, ok bool
+	lessStress := false // some drawing passed the stress test
 	try := func(rx, ry []float64, gain float64) {
 		flowWins := len(in.Flow) > 0 && readable.Along(in.Flow, in.FlowDir, rx, ry) > spacedAlong
 		if gain > maxReadableStressShare && !(flowWins && gain <= flowStressShare) {
 			return
 		}
+		lessStress = true
 		lim := limit
 		if flowWins {
 			lim = maxFlowGrowth * maxFlowGrowth * spacedArea
@@ -295,7 +319,10 @@ func (r *Result) readableComponent(vs []int32, edges [][2]int32, sx, sy, hw, hh 
 	}
 	if !ok {
 		out.Readable--
-		return errCrowded
+		if lessStress {
+			return errArea
+		}
+		return errStress
 	}
 	for i, v := range vs {
 		px[v], py[v] = x[i], y[i]

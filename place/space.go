@@ -58,13 +58,30 @@ type Placed struct {
 	Trees int
 	// Readable counts the components drawn by the readable stage
 	// (Result.Readable), and Unrefined those it left with their spaced
-	// drawing: larger than it takes, or crowded past what rounding and
-	// stretching clear in reasonable size.
+	// drawing, UnrefinedWhy the same by reason.
 	Readable, Unrefined int
+	UnrefinedWhy        Unrefinement
 	// Relaxed counts the components whose drawing was then relaxed,
 	// nodes moved one at a time to where they have more room (see spacing.Relax),
 	// which needed less area; they are counted here only.
 	Relaxed int
+}
+
+// Unrefinement counts by reason the components the readable stage left
+// with their spaced drawing (Placed.Unrefined is the sum), so that the
+// command can say which bound a component met.
+type Unrefinement struct {
+	// TooLarge: more vertices than the stage takes (20,000).
+	TooLarge int
+	// Crowded: every plane drawing the stage found was too crowded to
+	// part its boxes (readable.Output.Crowded).
+	Crowded int
+	// Area: the readable drawing cleared its boxes only in more area than
+	// the spaced drawing allows it (or in more area for hardly less
+	// stress).
+	Area int
+	// Stress: the readable drawing had more stress than the spaced one.
+	Stress int
 }
 
 // relaxLimit is the largest component Space relaxes (spacing.RelaxLimit);

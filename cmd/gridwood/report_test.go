@@ -50,6 +50,9 @@ type graphRecord struct {
 	ConvexComponents      int                `json:"convex_components"`
 	TreeComponents        int                `json:"tree_components"`
 	FaceCountComponents   int                `json:"face_count_components"`
+	ReadableComponents    int                `json:"readable_components"`
+	UnrefinedComponents   int                `json:"unrefined_components"`
+	UnrefinedWhy          map[string]int     `json:"unrefined_why"`
 	GridWidth             int64              `json:"grid_width"`
 	GridHeight            int64              `json:"grid_height"`
 	AreaRatio             float64            `json:"area_ratio"`
@@ -498,6 +501,18 @@ func checkRecord(t *testing.T, rec graphRecord, out *ast.Graph, d drawn, unitFla
 	}
 	if rec.TreeComponents < 0 || rec.FaceCountComponents < 0 || rec.TreeComponents+rec.TutteComponents+rec.FaceCountComponents > ncomp || unitFlag > 0 && rec.TreeComponents+rec.FaceCountComponents != 0 {
 		t.Errorf("%s: tree_components %d, face_count_components %d (tutte %d) of %d components, --unit %d", id, rec.TreeComponents, rec.FaceCountComponents, rec.TutteComponents, ncomp, unitFlag)
+	}
+	// Each component the readable stage left alone is counted under one
+	// reason (README.md, Quality report).
+	why := 0
+	for k, c := range rec.UnrefinedWhy {
+		if c < 0 {
+			t.Errorf("%s: unrefined_why.%s = %d", id, k, c)
+		}
+		why += c
+	}
+	if why != rec.UnrefinedComponents || rec.ReadableComponents < 0 || rec.ReadableComponents+rec.UnrefinedComponents > ncomp {
+		t.Errorf("%s: readable_components %d, unrefined_components %d, unrefined_why %v (sum %d), of %d components", id, rec.ReadableComponents, rec.UnrefinedComponents, rec.UnrefinedWhy, why, ncomp)
 	}
 	if unitFlag > 0 && rec.TutteComponents != 0 {
 		t.Errorf("%s: --unit skips the Tutte drawing (place/doc.go, The spacing rule), but tutte_components %d", id, rec.TutteComponents)

@@ -476,7 +476,7 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 		cfg.prog.note("gridwood: %s: %s; edges may pass through node boxes there (--check lists them)\n", where, unclearedText(sp.Unchecked, sp.Crowded))
 	}
 	if sp.Unrefined > 0 && !cfg.quiet {
-		cfg.prog.note("gridwood: %s: %s\n", where, unrefinedText(sp.Unrefined))
+		cfg.prog.note("gridwood: %s: %s\n", where, unrefinedText(sp.UnrefinedWhy))
 	}
 	var gr report.Graph
 	if cfg.reportFile != "" {
@@ -592,12 +592,35 @@ func labelRoom(g *dotio.Graph) map[[2]int32]float64 {
 
 // unrefinedText says how many components kept their spaced grid drawing
 // instead of the readable one, and why (README, Readable drawing).
-func unrefinedText(k int) string {
-	what := "1 component keeps its"
-	if k > 1 {
-		what = strconv.Itoa(k) + " components keep their"
+func unrefinedText(u place.Unrefinement) string {
+	total := u.TooLarge + u.Crowded + u.Area + u.Stress
+	if total == 1 {
+		why := "it has over 20,000 nodes"
+		switch {
+		case u.Crowded == 1:
+			why = "every plane drawing found was too crowded to part its boxes"
+		case u.Area == 1:
+			why = "its readable drawing clears its boxes only in more area than allowed (four times the spaced drawing's, nine if it flows better)"
+		case u.Stress == 1:
+			why = "its readable drawing had more stress than the spaced one (more than 1.5 times it, if it flows better)"
+		}
+		return "1 component keeps its spaced grid drawing, not the readable one: " + why
 	}
-	return what + " spaced grid drawing, not the readable one: over 20,000 nodes, too crowded to part its boxes within four times the spaced drawing's area, or no better than the spaced drawing by stress"
+	var parts []string
+	for _, p := range []struct {
+		k    int
+		text string
+	}{
+		{u.TooLarge, "over 20,000 nodes"},
+		{u.Crowded, "too crowded to part their boxes"},
+		{u.Area, "clearing their boxes only in more area than allowed"},
+		{u.Stress, "with more stress than the spaced drawing"},
+	} {
+		if p.k > 0 {
+			parts = append(parts, strconv.Itoa(p.k)+" "+p.text)
+		}
+	}
+	return strconv.Itoa(total) + " components keep their spaced grid drawing, not the readable one: " + strings.Join(parts, ", ")
 }
 
 // missingNames lists, quoted, the names g has no node of.
