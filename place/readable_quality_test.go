@@ -272,9 +272,8 @@ func TestReadableFlows(t *testing.T) {
 // TestUnrefinedReasons checks that every component the readable stage
 // leaves with its spaced drawing is counted under exactly one reason: a
 // path over the stage's size bound under TooLarge, and a generated
-// triangulation whose readable drawing loses to its spaced one (README,
-// Readable drawing: random triangulations are the weak case) under one of
-// the others. Both drawings go through geomcheck.
+// triangulation whose readable drawing loses to its spaced one (README.md:
+// triangulations are not yet readable) under one of the others. Both drawings go through geomcheck.
 func TestUnrefinedReasons(t *testing.T) {
 	for _, tc := range []struct {
 		g        graphgen.Graph
