@@ -3,7 +3,8 @@
 // same ideal edge lengths from the same node boxes, crossings allowed and
 // counted), and prints both side by side as a Markdown table, with a
 // summary: normalized stress and its ratio, the reference's crossings,
-// edge-length spread, angular resolution, closest node pair, size and time.
+// edge-length spread, angular resolution, closest node pair, size and time,
+// and which graphs keep a component's spaced drawing, and why.
 //
 //	go build -o /tmp/gridwood ./cmd/gridwood
 //	go run ./bench/quality /tmp/gridwood [FILE.dot ...]
@@ -56,6 +57,7 @@ type row struct {
 	directed                       bool
 	along, against, onCycles       int
 	readable, unrefined            int
+	unrefinedWhy                   report.Unrefined
 }
 
 func main() {
@@ -191,7 +193,7 @@ func measure(bin, dir, in string) ([]row, error) {
 			r.directed = true
 			r.along, r.against, r.onCycles = *gr.FlowAlong, *gr.FlowAgainst, *gr.FlowOnCycles
 		}
-		r.readable, r.unrefined = gr.ReadableComponents, gr.UnrefinedComponents
+		r.readable, r.unrefined, r.unrefinedWhy = gr.ReadableComponents, gr.UnrefinedComponents, gr.UnrefinedWhy
 		r.gwSec = gr.Seconds.Planarize + gr.Seconds.Layout + gr.Seconds.Space
 		n := len(g.Nodes)
 		x, y := make([]float64, n), make([]float64, n)
@@ -336,6 +338,14 @@ func print(rows []row) {
 	fmt.Println()
 	fmt.Printf("median stress ratio %.2f over %d graphs; worst %.2f where the reference is plane (%d graphs); median edge-length CV %.2f\n",
 		median(ratios), len(ratios), maxOf(planeRatios), len(planeRatios), median(cvs))
+	// Which graphs keep a spaced component, and why (report's unrefined_why).
+	var kept []string
+	for _, r := range rows {
+		if r.unrefined > 0 {
+			kept = append(kept, r.name+" ("+whyText(r.unrefinedWhy)+")")
+		}
+	}
+	fmt.Printf("keeping a spaced component: %d of %d graphs: %s\n", len(kept), len(rows), strings.Join(kept, ", "))
 	// Structure: clustered graphs and digraphs, with the stress ratio
 	// beside the measures so that structure is not bought with an
 	// unreadable drawing.
@@ -351,7 +361,7 @@ func print(rows []row) {
 		structRatios = append(structRatios, ratio)
 		drawing := "readable"
 		if r.unrefined > 0 {
-			drawing = "spaced"
+			drawing = "spaced (" + whyText(r.unrefinedWhy) + ")"
 		}
 		flowText, cycles := "-", "-"
 		if r.directed {
@@ -361,6 +371,20 @@ func print(rows []row) {
 		fmt.Printf("| %s | %s | %d | %d | %d | %s | %s | %.2f |\n", r.name, drawing, r.clusters, r.intrusions, r.overlaps, flowText, cycles, ratio)
 	}
 	fmt.Printf("\nmedian stress ratio %.2f over %d clustered or directed graphs\n", median(structRatios), len(structRatios))
+}
+
+// whyText names the reasons counted in u, as the report spells them.
+func whyText(u report.Unrefined) string {
+	var out []string
+	for _, w := range []struct {
+		k    int
+		name string
+	}{{u.TooLarge, "too_large"}, {u.Crowded, "crowded"}, {u.Area, "area"}, {u.Stress, "stress"}} {
+		if w.k > 0 {
+			out = append(out, w.name)
+		}
+	}
+	return strings.Join(out, ", ")
 }
 
 func median(v []float64) float64 {
