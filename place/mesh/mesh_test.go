@@ -353,3 +353,45 @@ func tutte(m *Mesh) (x, y []float64) {
 	}
 	return x[:n], y[:n]
 }
+
+// TestRouteTakesTheCornerAsked routes an edge whose two ends already share
+// a free side of the triangulation, but in other corners than asked: in a
+// diamond u, a, v, b with the four outer sides fixed, the free diagonal
+// u-v runs inside, while u-v is asked to leave u after a and v after b
+// (counter-clockwise), which are the corners outside the diamond. The
+// edge must go round outside, leaving the inside to the other diagonal
+// a-b; Tutte's drawing of the result (frame fixed) must be plane, judged
+// by the independent checker.
+func TestRouteTakesTheCornerAsked(t *testing.T) {
+	// u, v, a, b, and two vertices far out so that the outside has room.
+	x := []float64{0, 200, 100, 100, -600, 800}
+	y := []float64{0, 0, 300, -300, 900, -900}
+	const u, v, a, b = 0, 1, 2, 3
+	edges := [][2]int32{{u, a}, {a, v}, {v, b}, {b, u}}
+	m, err := New(x, y, edges, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if s, _ := m.side(u, v); s < 0 {
+		t.Fatal("the diagonal u-v is not a side of the Delaunay triangulation; the test needs it")
+	}
+	if !m.Route(u, v, a, b) {
+		t.Fatal("no route")
+	}
+	if err := m.CheckCombinatorics(); err != nil {
+		t.Fatal(err)
+	}
+	if s, _ := m.side(a, b); s < 0 {
+		t.Fatal("u-v was fixed inside the diamond, not in the corners asked")
+	}
+	edges = append(edges, [2]int32{u, v})
+	hasEdges(t, m, edges)
+	tx, ty := tutte(m)
+	pts := make([]geomcheck.Point, len(x))
+	for i := range pts {
+		pts[i] = geomcheck.Point{X: int64(math.Round(tx[i] * 1e6)), Y: int64(math.Round(ty[i] * 1e6))}
+	}
+	if p, err := geomcheck.Check(pts, edges); err != nil || len(p) > 0 {
+		t.Fatalf("Tutte drawing of the routed mesh: %v %v", p, err)
+	}
+}

@@ -1,5 +1,7 @@
 package mesh
 
+import "slices"
+
 // Route makes u-v a fixed side by changing only the triangulation's
 // combinatorics, not the drawing: the corridor of triangles crossed by a
 // shortest path in the dual graph from u to v over free sides (the same
@@ -9,8 +11,10 @@ package mesh
 // disc with u-v in it, but its triangles need no longer turn
 // counter-clockwise where the drawing is: the mesh is then tangled, and
 // only Rings may be used on it (for a solve that draws it plane again).
-// Route reports false, changing nothing, when u and v share no face or
-// the corridor pinches (a vertex on both of its sides).
+// Route reports false when u and v share no face or the corridor pinches
+// (a vertex on both of its sides); it changes nothing then, except that a
+// free side u-v lying in other corners than asked may have been flipped
+// away (see below), and the caller should drop the mesh.
 //
 // afterU, if not -1, must be joined to u by a fixed side: the new side
 // then leaves u in the corner counter-clockwise after that side (up to
@@ -21,8 +25,26 @@ func (m *Mesh) Route(u, v, afterU, afterV int32) bool {
 		return false
 	}
 	if t, i := m.side(u, v); t >= 0 {
-		m.fix(t, i)
-		return true
+		if m.fixed[t][i] {
+			return true
+		}
+		if m.inCorner(t, u, afterU) && m.inCorner(t, v, afterV) {
+			m.fix(t, i)
+			return true
+		}
+		// A side u-v of the triangulation, but in another corner of u or v
+		// than the one asked for: flip it away (the mesh is only
+		// combinatorial from here on) and route it through the corner.
+		nb := m.adj[t][i]
+		if nb < 0 {
+			return false
+		}
+		d := oppositeOf(m, nb, m.tri[t][(i+1)%3], m.tri[t][(i+2)%3])
+		if s, _ := m.side(m.tri[t][i], d); s >= 0 || d == m.tri[t][i] {
+			return false
+		}
+		m.flip(t, i)
+		m.tangled = true
 	}
 	// A shortest corridor through the face: the dual graph of a face's
 	// triangles is a tree, so within a face the corridor is the only one.
@@ -397,4 +419,13 @@ func (m *Mesh) Rings(fn func(v int32, ring []int32)) {
 		m.Star(v, func(c Corner) { ring = append(ring, c.A) })
 		fn(v, ring)
 	}
+}
+
+// inCorner reports whether triangle t at v lies in the corner of v after
+// its fixed side to after (sector), or after is -1.
+func (m *Mesh) inCorner(t int32, v, after int32) bool {
+	if after < 0 {
+		return true
+	}
+	return slices.Contains(m.sector(v, after), t)
 }

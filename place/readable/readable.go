@@ -66,8 +66,8 @@ type Output struct {
 	// an embedding that follows it), "near" (near the reference, with the
 	// start's embedding), "unfolded" (near a stress layout grown from the
 	// start), "radial" (a tree, from its radial drawing), "convex" (from a
-	// drawing with its outer face on a circle), "start", or "start as
-	// given".
+	// drawing with its outer face on a circle), "untangled" (near the
+	// reference with its folds repaired), "start", or "start as given".
 	Chosen string
 	// Phases lists what each phase did, for benchmarks and tests.
 	Phases []Phase
@@ -292,6 +292,23 @@ func Draw(in Input, opt Options) (*Output, error) {
 			if cx != nil {
 				if m, err := mesh.New(cx, cy, in.Edges, 2*reach); err == nil {
 					consider("convex", newGuard(m, cx, cy), sweepsFor(candidateShare), t)
+				}
+			}
+		}
+	}
+
+	if !in.KeepOuter && (best == nil || bestCrowded) {
+		// Nothing near the reference, or only crowded drawings: a
+		// reference that folds in a few places (a map's coast) may follow
+		// an embedding of its own once the vertices at its crossings are
+		// moved (untangle), and then be made plane near that.
+		t = time.Now()
+		if ux, uy := untangle(rx, ry, in.Edges); ux != nil {
+			if e2, _, ok := Follow(ux, uy, in.Edges); ok {
+				if px, py, ok := nearPlane(ux, uy, in.Edges, e2, reach); ok {
+					if m, err := mesh.New(px, py, in.Edges, reach); err == nil {
+						consider("untangled", newGuard(m, px, py), sweepsFor(candidateShare), t)
+					}
 				}
 			}
 		}
