@@ -56,9 +56,10 @@
 //     draw a graph", Proc. London Math. Soc. 13 (1963); M. S. Floater,
 //     "One-to-one piecewise linear mappings over triangulations",
 //     Math. Comp. 72 (2003)), plane for any positive weights;
-//   - "untangled": when none of these is uncrowded, the reference with
+//   - "untangled": when the best of these is crowded or needs its boxes
+//     stretched more than untangleAbove (4) times, the reference with
 //     its folds repaired (untangle: vertices at crossings moved one at a
-//     time, then the neighbourhoods of the folds left relaxed to
+//     time, then the neighbourhoods of the folds relaxed to
 //     barycentres), read and made plane as "follow" is: a map whose
 //     stress layout folds at a few coasts;
 //   - "start": the plane drawing given, when nothing else is uncrowded.

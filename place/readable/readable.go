@@ -297,11 +297,12 @@ func Draw(in Input, opt Options) (*Output, error) {
 		}
 	}
 
-	if !in.KeepOuter && (best == nil || bestCrowded) {
-		// Nothing near the reference, or only crowded drawings: a
-		// reference that folds in a few places (a map's coast) may follow
-		// an embedding of its own once the vertices at its crossings are
-		// moved (untangle), and then be made plane near that.
+	if !in.KeepOuter && (best == nil || bestCrowded || bestStretch > untangleAbove) {
+		// Nothing near the reference, or only drawings pressed tight
+		// somewhere: a reference that folds in a few places (a map's
+		// coast) may follow an embedding of its own once the vertices at
+		// its crossings are moved (untangle), and then be made plane near
+		// that.
 		t = time.Now()
 		if ux, uy := untangle(rx, ry, in.Edges); ux != nil {
 			if e2, _, ok := Follow(ux, uy, in.Edges); ok {
@@ -449,6 +450,10 @@ const (
 	// candidates that are not, the least stress wins; if all are, the
 	// least stretch.
 	maxStretch = 30
+	// untangleAbove: where the best candidate's boxes would need more
+	// stretching than this (or it is crowded), the reference with its
+	// folds repaired is tried too (untangle).
+	untangleAbove = 4
 	// hopelessStretch: a best candidate whose boxes would need more
 	// stretching than this is returned as crowded, without the margins
 	// phase.

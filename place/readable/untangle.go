@@ -1,6 +1,9 @@
 package readable
 
-import "slices"
+import (
+	"cmp"
+	"slices"
+)
 
 // Bounds on untangle: the edges of the largest graph it takes, its
 // rounds, and the segment pairs it may test in all (a step count, so
@@ -9,10 +12,13 @@ import "slices"
 // mirror places across (a hub's would cost its degree squared times the
 // edges).
 const (
-	untangleMaxEdges = 3000
+	untangleMaxEdges = 20000
 	untangleRounds   = 30
 	untangleWork     = 20_000_000
 	untangleNear     = 16
+	// untangleScanShare: a pass over the edges' boxes counts as this many
+	// times fewer steps than as many exact tests.
+	untangleScanShare = 8
 	// untangleRings bounds the rings of neighbours the relaxation of a
 	// fold takes in, and untangleSweeps its sweeps.
 	untangleRings  = 4
@@ -59,50 +65,90 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 		}
 		return segmentsCross(ux, uy, a[0], a[1], b[0], b[1])
 	}
+	// near lists, in index order, the edges whose bounding boxes meet the
+	// box spanned by the points (px, py): no other edge can cross a
+	// segment between two of them.
+	near := func(px, py []float64) []int32 {
+		x0, x1 := slices.Min(px), slices.Max(px)
+		y0, y1 := slices.Min(py), slices.Max(py)
+		var out []int32
+		for j, e := range edges {
+			if max(ux[e[0]], ux[e[1]]) >= x0 && min(ux[e[0]], ux[e[1]]) <= x1 &&
+				max(uy[e[0]], uy[e[1]]) >= y0 && min(uy[e[0]], uy[e[1]]) <= y1 {
+				out = append(out, int32(j))
+			}
+		}
+		work += m / untangleScanShare
+		return out
+	}
 	// crossingsAt counts the crossing pairs of an edge at p (or at q,
-	// when q >= 0) and any edge, each pair once.
-	crossingsAt := func(p, q int32) int {
+	// when q >= 0) and an edge of list, each pair once.
+	crossingsAt := func(p, q int32, list []int32) int {
 		c := 0
 		for _, i := range at[p] {
-			for j := range int32(m) {
+			for _, j := range list {
 				if crosses(i, j) {
 					c++
 				}
 			}
 		}
-		work += len(at[p]) * m
+		work += len(at[p]) * len(list)
 		if q >= 0 {
 			for _, i := range at[q] {
-				for j := range int32(m) {
+				for _, j := range list {
 					if crosses(i, j) && !slices.Contains(at[p], j) {
 						c++
 					}
 				}
 			}
-			work += len(at[q]) * m
+			work += len(at[q]) * len(list)
 		}
 		return c
+	}
+	// crossingPairs lists the crossing pairs of edges (lower index
+	// first), by a sweep along x over the edges' extents.
+	byLeft := make([]int32, m)
+	for i := range byLeft {
+		byLeft[i] = int32(i)
+	}
+	crossingPairs := func() [][2]int32 {
+		left := func(i int32) float64 { return min(ux[edges[i][0]], ux[edges[i][1]]) }
+		slices.SortStableFunc(byLeft, func(a, b int32) int { return cmp.Compare(left(a), left(b)) })
+		var pairs [][2]int32
+		for k, i := range byLeft {
+			right := max(ux[edges[i][0]], ux[edges[i][1]])
+			for _, j := range byLeft[k+1:] {
+				if left(j) > right {
+					break
+				}
+				work++
+				if crosses(i, j) {
+					pairs = append(pairs, [2]int32{min(i, j), max(i, j)})
+				}
+			}
+		}
+		slices.SortFunc(pairs, func(a, b [2]int32) int {
+			if a[0] != b[0] {
+				return cmp.Compare(a[0], b[0])
+			}
+			return cmp.Compare(a[1], b[1])
+		})
+		return pairs
 	}
 	last, sideways := -1, false
 	for range untangleRounds {
 		// The vertices at a crossing edge, and how many pairs cross.
-		tangled := make([]bool, n)
-		now := 0
-		for i := range int32(m) {
-			for j := i + 1; j < int32(m); j++ {
-				if crosses(i, j) {
-					for _, v := range [4]int32{edges[i][0], edges[i][1], edges[j][0], edges[j][1]} {
-						tangled[v] = true
-					}
-					now++
-				}
-			}
-		}
-		work += m * m / 2
-		if now == 0 {
+		pairs := crossingPairs()
+		if len(pairs) == 0 {
 			break
 		}
-		if last >= 0 && now >= last {
+		tangled := make([]bool, n)
+		for _, p := range pairs {
+			for _, v := range [4]int32{edges[p[0]][0], edges[p[0]][1], edges[p[1]][0], edges[p[1]][1]} {
+				tangled[v] = true
+			}
+		}
+		if now := len(pairs); last >= 0 && now >= last {
 			if sideways {
 				break
 			}
@@ -110,28 +156,38 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 		} else {
 			sideways = false
 		}
-		last = now
+		last = len(pairs)
 		for v := range int32(n) {
 			if !tangled[v] || work > untangleWork {
 				continue
 			}
-			untangleVertex(v, ux, uy, edges, at[v], nbr[v], sideways, crosses, func() int { return crossingsAt(v, -1) }, &work)
+			untangleVertex(v, ux, uy, edges, at[v], nbr[v], sideways, crosses, near, func(list []int32) int { return crossingsAt(v, -1, list) }, &work)
 		}
-		for i := range int32(m) {
-			for j := i + 1; j < int32(m) && work <= untangleWork; j++ {
-				if !crosses(i, j) {
-					continue
-				}
-				for _, p := range edges[i] {
-					for _, q := range edges[j] {
-						if p == q {
-							continue
+		for _, pair := range pairs {
+			i, j := pair[0], pair[1]
+			if work > untangleWork {
+				break
+			}
+			if !crosses(i, j) {
+				continue
+			}
+			for _, p := range edges[i] {
+				for _, q := range edges[j] {
+					if p == q {
+						continue
+					}
+					var px, py []float64
+					for _, v := range [2]int32{p, q} {
+						px, py = append(px, ux[v]), append(py, uy[v])
+						for _, w := range nbr[v] {
+							px, py = append(px, ux[w]), append(py, uy[w])
 						}
-						before := crossingsAt(p, q)
+					}
+					list := near(px, py)
+					before := crossingsAt(p, q, list)
+					ux[p], ux[q], uy[p], uy[q] = ux[q], ux[p], uy[q], uy[p]
+					if crossingsAt(p, q, list) >= before {
 						ux[p], ux[q], uy[p], uy[q] = ux[q], ux[p], uy[q], uy[p]
-						if crossingsAt(p, q) >= before {
-							ux[p], ux[q], uy[p], uy[q] = ux[q], ux[p], uy[q], uy[p]
-						}
 					}
 				}
 			}
@@ -146,20 +202,14 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 	// relaxation, locally; W. T. Tutte, "How to draw a graph", 1963),
 	// kept where that leaves fewer crossings.
 	count := func() (int, []bool) {
-		c := 0
+		pairs := crossingPairs()
 		on := make([]bool, n)
-		for i := range int32(m) {
-			for j := i + 1; j < int32(m); j++ {
-				if crosses(i, j) {
-					for _, v := range [4]int32{edges[i][0], edges[i][1], edges[j][0], edges[j][1]} {
-						on[v] = true
-					}
-					c++
-				}
+		for _, p := range pairs {
+			for _, v := range [4]int32{edges[p[0]][0], edges[p[0]][1], edges[p[1]][0], edges[p[1]][1]} {
+				on[v] = true
 			}
 		}
-		work += m * m / 2
-		return c, on
+		return len(pairs), on
 	}
 	now, at0 := count()
 	for ring := 0; ring < untangleRings && now > 0 && work <= untangleWork; ring++ {
@@ -204,10 +254,10 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 
 // untangleVertex moves v (with edges at and neighbours nbr) to the place,
 // of those untangle tries, where the fewest of its edges cross (counted by
-// crossings, with v where the drawing has it), if that is fewer than
-// where it is, or, with sideways, as few and elsewhere.
-func untangleVertex(v int32, x, y []float64, edges [][2]int32, at, nbr []int32, sideways bool, crosses func(i, j int32) bool, crossings func() int, work *int) {
-	m := int32(len(edges))
+// crossings among the edges near lists, with v where the drawing has
+// it), if that is fewer than where it is, or, with sideways, as few and
+// elsewhere.
+func untangleVertex(v int32, x, y []float64, edges [][2]int32, at, nbr []int32, sideways bool, crosses func(i, j int32) bool, near func(px, py []float64) []int32, crossings func(list []int32) int, work *int) {
 	bx, by := 0.0, 0.0
 	for _, w := range nbr {
 		bx += x[w]
@@ -234,9 +284,15 @@ func untangleVertex(v int32, x, y []float64, edges [][2]int32, at, nbr []int32, 
 			cand = append(cand, [2]float64{x[w] + float64(t*(bx-x[w])), y[w] + float64(t*(by-y[w]))})
 		}
 	}
+	// The edges that can cross v's where it is.
+	sx, sy := []float64{px}, []float64{py}
+	for _, w := range nbr {
+		sx, sy = append(sx, x[w]), append(sy, y[w])
+	}
 	mirrors := 0
+	here := near(sx, sy)
 	for _, i := range at {
-		for j := range m {
+		for _, j := range here {
 			if mirrors == untangleNear || !crosses(i, j) {
 				continue
 			}
@@ -251,16 +307,20 @@ func untangleVertex(v int32, x, y []float64, edges [][2]int32, at, nbr []int32, 
 			cand = append(cand, [2]float64{2*fx - px, 2*fy - py})
 			mirrors++
 		}
-		*work += int(m)
 	}
-	best := crossings()
+	// The edges that can cross v's at any place tried.
+	for _, c := range cand {
+		sx, sy = append(sx, c[0]), append(sy, c[1])
+	}
+	list := near(sx, sy)
+	best := crossings(list)
 	bestX, bestY := px, py
 	for _, c := range cand {
 		if *work > untangleWork {
 			break
 		}
 		x[v], y[v] = c[0], c[1]
-		k := crossings()
+		k := crossings(list)
 		stay := bestX == px && bestY == py
 		if (k < best || sideways && stay && k == best) && !onVertex(x, y, v) {
 			best, bestX, bestY = k, c[0], c[1]
