@@ -106,16 +106,20 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 		return c
 	}
 	// crossingPairs lists the crossing pairs of edges (lower index
-	// first), by a sweep along x over the edges' extents.
+	// first), by a sweep along x over the edges' extents; ok is false
+	// when the sweep ran past the work bound (long edges overlapping
+	// along x all over).
 	byLeft := make([]int32, m)
 	for i := range byLeft {
 		byLeft[i] = int32(i)
 	}
-	crossingPairs := func() [][2]int32 {
+	crossingPairs := func() (pairs [][2]int32, ok bool) {
 		left := func(i int32) float64 { return min(ux[edges[i][0]], ux[edges[i][1]]) }
 		slices.SortStableFunc(byLeft, func(a, b int32) int { return cmp.Compare(left(a), left(b)) })
-		var pairs [][2]int32
 		for k, i := range byLeft {
+			if work > untangleWork {
+				return nil, false
+			}
 			right := max(ux[edges[i][0]], ux[edges[i][1]])
 			for _, j := range byLeft[k+1:] {
 				if left(j) > right {
@@ -133,12 +137,15 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 			}
 			return cmp.Compare(a[1], b[1])
 		})
-		return pairs
+		return pairs, true
 	}
 	last, sideways := -1, false
 	for range untangleRounds {
 		// The vertices at a crossing edge, and how many pairs cross.
-		pairs := crossingPairs()
+		pairs, ok := crossingPairs()
+		if !ok {
+			return nil, nil
+		}
 		if len(pairs) == 0 {
 			break
 		}
@@ -202,7 +209,10 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 	// relaxation, locally; W. T. Tutte, "How to draw a graph", 1963),
 	// kept where that leaves fewer crossings.
 	count := func() (int, []bool) {
-		pairs := crossingPairs()
+		pairs, ok := crossingPairs()
+		if !ok {
+			return 0, nil // past the bound: stop
+		}
 		on := make([]bool, n)
 		for _, p := range pairs {
 			for _, v := range [4]int32{edges[p[0]][0], edges[p[0]][1], edges[p[1]][0], edges[p[1]][1]} {
@@ -241,6 +251,11 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 			work += n
 		}
 		after, on := count()
+		if on == nil { // past the bound: keep what was
+			copy(ux, sx)
+			copy(uy, sy)
+			break
+		}
 		if after < now {
 			now, at0 = after, on
 			ring = -1 // start again from the new crossings
