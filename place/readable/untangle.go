@@ -12,7 +12,7 @@ import (
 // mirror places across (a hub's would cost its degree squared times the
 // edges).
 const (
-	untangleMaxEdges = 20000
+	untangleMaxEdges = 10000
 	untangleRounds   = 30
 	untangleWork     = 20_000_000
 	untangleNear     = 16
@@ -37,10 +37,14 @@ const (
 // move undoes). A round that leaves no fewer crossings than the one
 // before is followed by one that also takes moves to places as good as
 // where a vertex is, to leave the plateau; after two such rounds, when
-// nothing crosses, or at its bounds, it stops. It returns the drawing,
+// nothing crosses, or at its bounds, the moves stop. Folds left then are
+// relaxed: the vertices about them, with up to untangleRings rings of
+// neighbours, go to the barycentres of their neighbours with the rest
+// held, kept where that leaves fewer crossings. It returns the drawing,
 // which may still cross itself (the caller reads an embedding off it with
 // Follow, which allows a few crossings), or nil for a graph of more than
-// untangleMaxEdges edges.
+// untangleMaxEdges edges or one whose crossings alone cost more to find
+// than the work bound.
 func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 	n, m := len(x), len(edges)
 	if m > untangleMaxEdges {
