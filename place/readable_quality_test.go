@@ -8,6 +8,7 @@ import (
 	"slices"
 	"testing"
 
+	"github.com/gridwood/gridwood/internal/disjoint"
 	"github.com/gridwood/gridwood/internal/graphgen"
 	"github.com/gridwood/gridwood/place/quality"
 	"github.com/gridwood/gridwood/place/readable"
@@ -330,34 +331,24 @@ func TestWorldMapReadable(t *testing.T) {
 		t.Fatalf("read %d edges, want the 313 of bench/corpus/README.md", len(all))
 	}
 	// The largest component, renumbered.
-	comp := make([]int32, len(id))
-	for v := range comp {
-		comp[v] = int32(v)
-	}
-	var find func(int32) int32
-	find = func(v int32) int32 {
-		for comp[v] != v {
-			v = comp[v]
-		}
-		return v
-	}
+	comp := disjoint.New(len(id))
 	for _, e := range all {
-		comp[find(e[0])] = find(e[1])
+		comp.Union(e[0], e[1])
 	}
 	size := map[int32]int{}
 	big := int32(0)
-	for v := range comp {
-		r := find(int32(v))
+	for v := range int32(len(id)) {
+		r := comp.Find(v)
 		size[r]++
-		if size[r] > size[find(big)] {
+		if size[r] > size[comp.Find(big)] {
 			big = r
 		}
 	}
 	local := map[int32]int32{}
 	g := graphgen.Graph{Name: "world-countries"}
-	for v := range comp {
-		if find(int32(v)) == find(big) {
-			local[int32(v)] = int32(len(local))
+	for v := range int32(len(id)) {
+		if comp.Find(v) == comp.Find(big) {
+			local[v] = int32(len(local))
 		}
 	}
 	g.N = len(local)
