@@ -116,9 +116,9 @@
 // ReadableOptions.Groups gathers clusters). The result is rounded to
 // integer points, checked plane exactly (package place/mesh) and
 // stretched by the least factor that clears every box. A component keeps
-// its spaced drawing (Placed.Unrefined, by reason in Placed.UnrefinedWhy)
-// when the stage finds it crowded, when rounding and stretching would
-// need more than maxRoundings scalings or more than maxReadableGrowth^2
-// (4) times the spaced drawing's area, or when its normalized stress is
-// higher than the spaced drawing's.
+// its spaced drawing (counted by reason in Placed.Unrefined) when the
+// stage finds it crowded, when rounding and stretching would need more
+// than maxRoundings scalings or more than maxReadableGrowth^2 (4) times
+// the spaced drawing's area, or when its normalized stress is higher than
+// the spaced drawing's.
 package place

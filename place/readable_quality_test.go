@@ -86,9 +86,8 @@ func TestReadableNearReference(t *testing.T) {
 			b := equalBoxes(tc.g.N, 27, 18)
 			res, sp := drawReadable(t, tc.g, b, ReadableOptions{})
 			checkSpaced(t, tc.g.Name, sp, b, res.Kept(), true)
-			why := sp.UnrefinedWhy
-			if sp.Readable+sp.Unrefined != 1 || why.TooLarge+why.Crowded+why.Area+why.Stress != sp.Unrefined {
-				t.Fatalf("%d components drawn readable and %d unrefined (by reason %+v), want 1 in all", sp.Readable, sp.Unrefined, why)
+			if sp.Readable+sp.Unrefined.Total() != 1 {
+				t.Fatalf("%d components drawn readable and %d unrefined (by reason %+v), want 1 in all", sp.Readable, sp.Unrefined.Total(), sp.Unrefined)
 			}
 			got, _ := quality.Stress(floats(sp.X), floats(sp.Y), tc.g.Edges)
 			ref := referenceStress(t, tc.g, b)
@@ -289,9 +288,9 @@ func TestUnrefinedReasons(t *testing.T) {
 			b := equalBoxes(tc.g.N, 27, 18)
 			res, sp := drawReadable(t, tc.g, b, ReadableOptions{})
 			checkSpaced(t, tc.g.Name, sp, b, res.Kept(), tc.g.N <= 5000)
-			why := sp.UnrefinedWhy
-			if sp.Readable != 0 || sp.Unrefined != 1 || why.TooLarge+why.Crowded+why.Area+why.Stress != 1 {
-				t.Fatalf("readable %d, unrefined %d by reason %+v; want 0, 1 and one reason", sp.Readable, sp.Unrefined, why)
+			why := sp.Unrefined
+			if sp.Readable != 0 || why.Total() != 1 {
+				t.Fatalf("readable %d, unrefined by reason %+v; want 0 and one reason", sp.Readable, why)
 			}
 			if (why.TooLarge == 1) != tc.tooLarge {
 				t.Errorf("reasons %+v, want too large: %v", why, tc.tooLarge)
@@ -363,8 +362,8 @@ func TestWorldMapReadable(t *testing.T) {
 	b := equalBoxes(g.N, 27, 18)
 	res, sp := drawReadable(t, g, b, ReadableOptions{})
 	checkSpaced(t, g.Name, sp, b, res.Kept(), true)
-	if sp.Readable != 1 || sp.Unrefined != 0 {
-		t.Fatalf("readable %d, unrefined %d (%+v), want the map drawn readable", sp.Readable, sp.Unrefined, sp.UnrefinedWhy)
+	if sp.Readable != 1 || sp.Unrefined.Total() != 0 {
+		t.Fatalf("readable %d, unrefined %+v, want the map drawn readable", sp.Readable, sp.Unrefined)
 	}
 	got, _ := quality.Stress(floats(sp.X), floats(sp.Y), g.Edges)
 	ref := referenceStress(t, g, b)

@@ -61,8 +61,8 @@ type ReadableOptions struct {
 // the least factor that clears every box (as Space does) where the stage
 // left a box too near; a component whose drawing would then take more
 // than maxReadableGrowth^2 times the area of its spaced drawing keeps the
-// spaced drawing (counted in Placed.Unrefined, by reason in
-// Placed.UnrefinedWhy), as do one whose drawing
+// spaced drawing (counted by reason in Placed.Unrefined), as do one whose
+// drawing
 // has more stress than the spaced one (by the stage's own ideal distances,
 // readable.Output.Gain) and one of more than readableMaxVertices vertices;
 // a digraph's drawing that points more pairs along the flow than the
@@ -125,15 +125,13 @@ func (r *Result) Readable(b Boxes, opt ReadableOptions) (*Placed, error) {
 		}
 		switch {
 		case len(vs) > readableMaxVertices:
-			out.Unrefined++
-			out.UnrefinedWhy.TooLarge++
+			out.Unrefined.TooLarge++
 		case len(vs) >= 3:
 			err := r.readableComponent(vs, edgesOf[c], sx, sy, hw, hh, gap, opt, px, py, stamp, out)
-			if why := unrefinedCount(&out.UnrefinedWhy, err); why != nil {
+			if why := unrefinedCount(&out.Unrefined, err); why != nil {
 				for _, v := range vs {
 					px[v], py[v] = sx[v], sy[v]
 				}
-				out.Unrefined++
 				*why++
 				err = nil
 			}

@@ -57,10 +57,10 @@ type Placed struct {
 	// trees, drawn in layers (see spacing.Tree) rather than on the grid.
 	Trees int
 	// Readable counts the components drawn by the readable stage
-	// (Result.Readable), and Unrefined those it left with their spaced
-	// drawing, UnrefinedWhy the same by reason.
-	Readable, Unrefined int
-	UnrefinedWhy        Unrefinement
+	// (Result.Readable), and Unrefined, by reason, those it left with
+	// their spaced drawing.
+	Readable  int
+	Unrefined Unrefinement
 	// Relaxed counts the components whose drawing was then relaxed,
 	// nodes moved one at a time to where they have more room (see spacing.Relax),
 	// which needed less area; they are counted here only.
@@ -68,8 +68,8 @@ type Placed struct {
 }
 
 // Unrefinement counts by reason the components the readable stage left
-// with their spaced drawing (Placed.Unrefined is the sum), so that the
-// command can say which bound a component met.
+// with their spaced drawing, so that the command can say which bound a
+// component met.
 type Unrefinement struct {
 	// TooLarge: more vertices than the stage takes (20,000).
 	TooLarge int
@@ -83,6 +83,9 @@ type Unrefinement struct {
 	// Stress: the readable drawing had more stress than the spaced one.
 	Stress int
 }
+
+// Total is the number of components counted, for every reason.
+func (u Unrefinement) Total() int { return u.TooLarge + u.Crowded + u.Area + u.Stress }
 
 // relaxLimit is the largest component Space relaxes (spacing.RelaxLimit);
 // a variable so that tests can compare spacing without relaxation.

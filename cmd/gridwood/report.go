@@ -18,11 +18,11 @@ func graphMeasures(g *dotio.Graph, gi int, method string, res *place.Result, sp 
 		RemovedEdges: len(res.Removed), RemovedPairs: res.RemovedPairs, RemovalOptimal: res.Optimal,
 		Method: method, Components: len(res.Components), TutteComponents: sp.Tutte,
 		ConvexComponents: convexCount(res) + sp.Convex, TreeComponents: sp.Trees, FaceCountComponents: sp.FaceCounts, RelaxedComponents: sp.Relaxed, UncheckedComponents: sp.Unchecked, CrowdedComponents: sp.Crowded,
-		ReadableComponents: sp.Readable, UnrefinedComponents: sp.Unrefined,
+		ReadableComponents: sp.Readable, UnrefinedComponents: sp.Unrefined.Total(),
 		GridWidth: res.Width, GridHeight: res.Height, Unit: sp.Unit,
 		WidthPoints: sp.Width, HeightPoints: sp.Height,
 	}
-	why := sp.UnrefinedWhy
+	why := sp.Unrefined
 	r.UnrefinedWhy = report.Unrefined{TooLarge: why.TooLarge, Crowded: why.Crowded, Area: why.Area, Stress: why.Stress}
 	if n := int64(len(g.Nodes)); n >= 3 {
 		r.AreaRatio = float64(res.Width*res.Height) / float64((n-2)*(n-2))

@@ -475,8 +475,8 @@ func layoutGraph(cfg *config, g *dotio.Graph, gi int, where string, step func(st
 	if sp.Unchecked+sp.Crowded > 0 && !cfg.quiet {
 		cfg.prog.note("gridwood: %s: %s; edges may pass through node boxes there (--check lists them)\n", where, unclearedText(sp.Unchecked, sp.Crowded))
 	}
-	if sp.Unrefined > 0 && !cfg.quiet {
-		cfg.prog.note("gridwood: %s: %s\n", where, unrefinedText(sp.UnrefinedWhy))
+	if sp.Unrefined.Total() > 0 && !cfg.quiet {
+		cfg.prog.note("gridwood: %s: %s\n", where, unrefinedText(sp.Unrefined))
 	}
 	var gr report.Graph
 	if cfg.reportFile != "" {
@@ -593,7 +593,7 @@ func labelRoom(g *dotio.Graph) map[[2]int32]float64 {
 // unrefinedText says how many components kept their spaced grid drawing
 // instead of the readable one, and why (README, Readable drawing).
 func unrefinedText(u place.Unrefinement) string {
-	total := u.TooLarge + u.Crowded + u.Area + u.Stress
+	total := u.Total()
 	if total == 1 {
 		why := "it has over 20,000 nodes"
 		switch {
