@@ -215,6 +215,15 @@ func Draw(in Input, opt Options) (*Output, error) {
 			out.Chosen = name
 		}
 	}
+	// considerNear considers the plane drawing with embedding emb made
+	// near the drawing tx, ty (nearPlane), where there is one.
+	considerNear := func(name string, tx, ty []float64, emb *planarize.Embedding, t time.Time) {
+		if px, py, ok := nearPlane(tx, ty, in.Edges, emb, reach); ok {
+			if m, err := mesh.New(px, py, in.Edges, reach); err == nil {
+				consider(name, newGuard(m, px, py), sweepsFor(candidateShare), t)
+			}
+		}
+	}
 	if !in.KeepOuter {
 		t = time.Now()
 		emb, _, ok := Follow(rx, ry, in.Edges)
@@ -225,11 +234,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 				emb, _ = planarize.Embed(n, in.Edges)
 			}
 		}
-		if px, py, ok := nearPlane(rx, ry, in.Edges, emb, reach); ok {
-			if m, err := mesh.New(px, py, in.Edges, reach); err == nil {
-				consider(name, newGuard(m, px, py), sweepsFor(candidateShare), t)
-			}
-		}
+		considerNear(name, rx, ry, emb, t)
 		if name != "follow" {
 			// The reference folds where no plane drawing can follow it.
 			// A second one, grown from the plane start instead of from
@@ -244,11 +249,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 			}
 			model.Layout(ux, uy, sweepsFor(referenceShare), 1e-4)
 			if e2, _, ok := Follow(ux, uy, in.Edges); ok {
-				if px, py, ok := nearPlane(ux, uy, in.Edges, e2, reach); ok {
-					if m, err := mesh.New(px, py, in.Edges, reach); err == nil {
-						consider("unfolded", newGuard(m, px, py), sweepsFor(candidateShare), t)
-					}
-				}
+				considerNear("unfolded", ux, uy, e2, t)
 			}
 		}
 		if len(in.Edges) == n-1 {
@@ -306,11 +307,7 @@ func Draw(in Input, opt Options) (*Output, error) {
 		t = time.Now()
 		if ux, uy := untangle(rx, ry, in.Edges); ux != nil {
 			if e2, _, ok := Follow(ux, uy, in.Edges); ok {
-				if px, py, ok := nearPlane(ux, uy, in.Edges, e2, reach); ok {
-					if m, err := mesh.New(px, py, in.Edges, reach); err == nil {
-						consider("untangled", newGuard(m, px, py), sweepsFor(candidateShare), t)
-					}
-				}
+				considerNear("untangled", ux, uy, e2, t)
 			}
 		}
 	}

@@ -143,6 +143,16 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 		})
 		return pairs, true
 	}
+	// endsOf marks the vertices at an edge of the pairs.
+	endsOf := func(pairs [][2]int32) []bool {
+		on := make([]bool, n)
+		for _, p := range pairs {
+			for _, v := range [4]int32{edges[p[0]][0], edges[p[0]][1], edges[p[1]][0], edges[p[1]][1]} {
+				on[v] = true
+			}
+		}
+		return on
+	}
 	last, sideways := -1, false
 	for range untangleRounds {
 		// The vertices at a crossing edge, and how many pairs cross.
@@ -153,12 +163,7 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 		if len(pairs) == 0 {
 			break
 		}
-		tangled := make([]bool, n)
-		for _, p := range pairs {
-			for _, v := range [4]int32{edges[p[0]][0], edges[p[0]][1], edges[p[1]][0], edges[p[1]][1]} {
-				tangled[v] = true
-			}
-		}
+		tangled := endsOf(pairs)
 		if now := len(pairs); last >= 0 && now >= last {
 			if sideways {
 				break
@@ -217,13 +222,7 @@ func untangle(x, y []float64, edges [][2]int32) (ux, uy []float64) {
 		if !ok {
 			return 0, nil // past the bound: stop
 		}
-		on := make([]bool, n)
-		for _, p := range pairs {
-			for _, v := range [4]int32{edges[p[0]][0], edges[p[0]][1], edges[p[1]][0], edges[p[1]][1]} {
-				on[v] = true
-			}
-		}
-		return len(pairs), on
+		return len(pairs), endsOf(pairs)
 	}
 	now, at0 := count()
 	for ring := 0; ring < untangleRings && now > 0 && work <= untangleWork; ring++ {
