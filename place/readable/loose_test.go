@@ -6,7 +6,6 @@ import (
 
 	"github.com/gridwood/gridwood/internal/graphgen"
 	"github.com/gridwood/gridwood/place"
-	"github.com/gridwood/gridwood/place/geomcheck"
 	"github.com/gridwood/gridwood/place/quality"
 	"github.com/gridwood/gridwood/place/readable"
 )
@@ -36,11 +35,11 @@ func TestLooseMarginsAlternative(t *testing.T) {
 			if !before || loose != tc.loose || len(out.Alternatives) != len(names) {
 				t.Fatalf("%d alternatives (before margins %v, loose margins %v), want loose margins %v", len(out.Alternatives), before, loose, tc.loose)
 			}
-			if problems := crossings(t, out.X, out.Y, kept); problems > 0 {
+			if problems := readable.Problems(t, out.X, out.Y, kept); problems > 0 {
 				t.Errorf("result: %d crossings or touchings", problems)
 			}
 			for _, a := range out.Alternatives {
-				if problems := crossings(t, a.X, a.Y, kept); problems > 0 {
+				if problems := readable.Problems(t, a.X, a.Y, kept); problems > 0 {
 					t.Errorf("%s: %d crossings or touchings", a.Name, problems)
 				}
 				if !(a.Gain > 0) || math.IsInf(a.Gain, 0) {
@@ -51,26 +50,6 @@ func TestLooseMarginsAlternative(t *testing.T) {
 			}
 		})
 	}
-}
-
-// crossings counts the problems geomcheck finds in the drawing scaled so
-// that its extent is about 2^30 and rounded to integers.
-func crossings(t *testing.T, x, y []float64, edges [][2]int32) int {
-	t.Helper()
-	ext := 0.0
-	for i := range x {
-		ext = max(ext, math.Abs(x[i]), math.Abs(y[i]))
-	}
-	s := float64(1<<30) / ext
-	pts := make([]geomcheck.Point, len(x))
-	for i := range x {
-		pts[i] = geomcheck.Point{X: int64(math.Round(x[i] * s)), Y: int64(math.Round(y[i] * s))}
-	}
-	problems, err := geomcheck.Check(pts, edges)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return len(problems)
 }
 
 // drawFromGrid draws g readable from its grid drawing, with the

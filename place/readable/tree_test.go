@@ -4,6 +4,7 @@ import (
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/graphgen"
+	"github.com/gridwood/gridwood/place/readable"
 )
 
 // TestTreeNearItsStressLayout: a tree can be drawn plane with any order
@@ -29,7 +30,7 @@ func TestTreeNearItsStressLayout(t *testing.T) {
 	if r := stress["radial"] / stress["reference"]; !(r < 1.1) {
 		t.Errorf("radial candidate's stress %.4g is %.3f times the reference's", stress["radial"], r)
 	}
-	if problems := crossings(t, out.X, out.Y, kept); problems > 0 {
+	if problems := readable.Problems(t, out.X, out.Y, kept); problems > 0 {
 		t.Errorf("%d crossings or touchings", problems)
 	}
 }

@@ -1,35 +1,12 @@
 package readable
 
 import (
-	"math"
 	"math/rand/v2"
 	"testing"
 
 	"github.com/gridwood/gridwood/internal/graphgen"
-	"github.com/gridwood/gridwood/place/geomcheck"
 	"github.com/gridwood/gridwood/place/mesh"
 )
-
-// crossingCount is the number of crossing edge pairs of the drawing, by
-// geomcheck, the independent exact checker, at a fine integer scale.
-func crossingCount(t *testing.T, x, y []float64, edges [][2]int32) int {
-	t.Helper()
-	pts := make([]geomcheck.Point, len(x))
-	for i := range pts {
-		pts[i] = geomcheck.Point{X: int64(math.Round(x[i] * 1e6)), Y: int64(math.Round(y[i] * 1e6))}
-	}
-	probs, err := geomcheck.Check(pts, edges)
-	if err != nil {
-		t.Fatal(err)
-	}
-	k := 0
-	for _, p := range probs {
-		if p.Kind == geomcheck.Crossing {
-			k++
-		}
-	}
-	return k
-}
 
 // TestUntangleRepairsFolds folds plane drawings (a grid at its grid
 // points; Delaunay triangulations of random points, less a third of their
@@ -76,9 +53,9 @@ func TestUntangleRepairsFolds(t *testing.T) {
 			v := rng.IntN(len(x))
 			x[v], y[v] = lo+rng.Float64()*(hi-lo), lo+rng.Float64()*(hi-lo)
 		}
-		before := crossingCount(t, x, y, edges)
+		before := Problems(t, x, y, edges)
 		ux, uy := untangle(x, y, edges)
-		after := crossingCount(t, ux, uy, edges)
+		after := Problems(t, ux, uy, edges)
 		if after > before {
 			t.Fatalf("trial %d: %d crossings before untangle, %d after", trial, before, after)
 		}
